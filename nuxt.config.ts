@@ -1,0 +1,73 @@
+// Nuxt 4 configuration. Every setting that differs between machines comes from
+// runtime config, overridden by NUXT_* environment variables at start.
+export default defineNuxtConfig({
+  compatibilityDate: '2025-07-15',
+  devtools: { enabled: false },
+  telemetry: false,
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', '@sidebase/nuxt-auth', '@nuxt/eslint'],
+  css: [
+    '@fontsource/ibm-plex-sans/400.css',
+    '@fontsource/ibm-plex-sans/500.css',
+    '@fontsource/ibm-plex-sans/600.css',
+    '~/assets/css/main.css',
+  ],
+  app: {
+    head: {
+      title: 'Tonewright',
+      htmlAttrs: { lang: 'en' },
+      meta: [{ name: 'viewport', content: 'width=device-width, initial-scale=1' }],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+    },
+  },
+  runtimeConfig: {
+    databaseUrl: 'postgres://tonewright@127.0.0.1:54329/tonewright',
+    authSecret: '',
+    sessionMaxAgeS: 60 * 60 * 24 * 7,
+    signInMaxPerAddress: 30,
+    storage: { driver: 'fs', dir: '.data/storage' },
+    smtp: { host: '127.0.0.1', port: 2525, user: '', pass: '', from: 'Tonewright <certificates@tonewright.test>' },
+    public: { devMailbox: false },
+  },
+  auth: {
+    isEnabled: true,
+    baseURL: '/api/auth',
+    originEnvKey: 'NUXT_AUTH_ORIGIN',
+    globalAppMiddleware: { isEnabled: true, allow404WithoutAuth: true, addDefaultCallbackUrl: true },
+    sessionRefresh: { enableOnWindowFocus: true, enablePeriodically: false },
+    provider: {
+      type: 'local',
+      pages: { login: '/signin' },
+      endpoints: {
+        signIn: { path: '/login', method: 'post' },
+        signOut: { path: '/logout', method: 'post' },
+        signUp: { path: '/signup', method: 'post' },
+        getSession: { path: '/session', method: 'get' },
+      },
+      token: {
+        signInResponseTokenPointer: '/token',
+        type: 'Bearer',
+        cookieName: 'auth.token',
+        headerName: 'Authorization',
+        maxAgeInSeconds: 60 * 60 * 24 * 7,
+        sameSiteAttribute: 'lax',
+      },
+      session: {
+        dataType: {
+          id: 'string',
+          email: 'string',
+          name: 'string',
+          workshopId: 'string',
+          workshopName: 'string',
+          role: '\'owner\' | \'supervisor\' | \'benchmaker\' | \'office\'',
+          workshops: '{ id: string, name: string, role: string }[]',
+        },
+      },
+    },
+  },
+  tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts' },
+  eslint: { config: { stylistic: true } },
+  typescript: { strict: true },
+  nitro: {
+    experimental: { tasks: false },
+  },
+})

@@ -1,0 +1,184 @@
+#!/usr/bin/env bash
+# Shared set-up for scripts/start.sh and scripts/test.sh: Debian packages, node
+# modules, a project-local PostgreSQL cluster run as an unprivileged user.
+set -euo pipefail
+
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+DATA="$ROOT/.data"
+mkdir -p "$DATA"
+
+log() { printf '\033[1;33mtonewright\033[0m %s\n' "$*"; }
+die() { printf '\033[1;31mtonewright\033[0m %s\n' "$*" >&2; exit 1; }
+
+is_root() { [ "$(id -u)" = 0 ]; }
+
+APT_UPDATED=0
+apt_install() {
+  is_root || die "Missing Debian packages ($*). Install them with: sudo apt-get install -y $*"
+  if [ "$APT_UPDATED" = 0 ]; then
+    log "Updating Debian's package lists…"
+    DEBIAN_FRONTEND=noninteractive apt-get update -qq
+    APT_UPDATED=1
+  fi
+  log "Installing $* from Debian's packages…"
+  DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "$@" >/dev/null
+}
+
+require_node() {
+  command -v node >/dev/null || die "Node.js 20 or newer is needed (node was not found)."
+  local major; major=$(node -p 'process.versions.node.split(".")[0]')
+  [ "$major" -ge 20 ] || die "Node.js 20 or newer is needed (found $(node -v))."
+}
+
+# npm ci when node_modules is missing or was installed from another lock file.
+ensure_node_modules() {
+  local want have=""
+  want=$(sha256sum "$ROOT/package-lock.json" | cut -c1-64)
+  [ -f "$ROOT/node_modules/.tonewright-lock" ] && have=$(cat "$ROOT/node_modules/.tonewright-lock")
+  if [ ! -d "$ROOT/node_modules" ] || [ "$want" != "$have" ]; then
+    log "Installing node modules (npm ci)…"
+    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+    echo "$want" > "$ROOT/node_modules/.tonewright-lock"
+  fi
+}
+
+pg_bindir() { ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1; }
+
+ensure_postgres() {
+  local bin; bin=$(pg_bindir)
+  if [ -z "$bin" ] || [ ! -x "$bin/postgres" ] || [ ! -x "$bin/initdb" ]; then
+    apt_install postgresql
+    bin=$(pg_bindir)
+  fi
+  [ -n "$bin" ] || die "PostgreSQL's server programs were not found after installing them."
+  PG_BIN="$bin"
+  if is_root; then
+    id postgres >/dev/null 2>&1 || useradd --system --user-group --home-dir /var/lib/postgresql --shell /usr/sbin/nologin postgres
+    PG_USER=postgres
+  else
+    PG_USER=$(id -un)
+  fi
+  export PG_BIN PG_USER
+}
+
+ensure_chromium() {
+  if [ ! -x /usr/bin/chromium ]; then apt_install chromium fonts-liberation; fi
+}
+
+ensure_poppler() {
+  command -v pdftoppm >/dev/null || apt_install poppler-utils
+}
+
+# Run a command as the PostgreSQL system user (PostgreSQL refuses to run as root).
+as_pg() {
+  if is_root; then runuser -u "$PG_USER" -- "$@"; else "$@"; fi
+}
+
+# Where a cluster named NAME lives: .data/NAME when the PostgreSQL user can reach
+# it; otherwise (a checkout under /root or a private mktemp folder) a folder under
+# /var/lib/tonewright that it can reach, linked from .data/NAME.
+pg_datadir() {
+  local name="$1" dir="$DATA/$1"
+  if [ -L "$dir" ]; then readlink -f "$dir"; return; fi
+  if ! is_root || as_pg test -x "$DATA" 2>/dev/null; then echo "$dir"; return; fi
+  local key; key=$(printf '%s' "$ROOT" | sha256sum | cut -c1-12)
+  local real="/var/lib/tonewright/$key/$name"
+  mkdir -p "$real"
+  chmod 755 /var/lib/tonewright "/var/lib/tonewright/$key"
+  ln -sfn "$real" "$dir"
+  echo "$real"
+}
+
+# pg_init DIR PORT PASSWORD [extra postgresql.conf lines…]
+pg_init() {
+  local dir="$1" port="$2" password="$3"; shift 3
+  if [ -s "$dir/PG_VERSION" ]; then return; fi
+  log "Creating a PostgreSQL cluster in $dir…"
+  mkdir -p "$dir"
+  is_root && chown "$PG_USER" "$dir"
+  chmod 700 "$dir"
+  local pwfile; pwfile=$(mktemp)
+  printf '%s\n' "$password" > "$pwfile"
+  is_root && chown "$PG_USER" "$pwfile"
+  as_pg "$PG_BIN/initdb" -D "$dir" -U tonewright --pwfile="$pwfile" --auth-host=scram-sha-256 --auth-local=scram-sha-256 \
+    -E UTF8 --no-locale >/dev/null
+  rm -f "$pwfile"
+  {
+    echo "# Tonewright: loopback only, TCP only."
+    echo "listen_addresses = '127.0.0.1'"
+    echo "port = $port"
+    echo "unix_socket_directories = ''"
+    echo "max_connections = 100"
+    for line in "$@"; do echo "$line"; done
+  } | as_pg tee -a "$dir/postgresql.conf" >/dev/null
+}
+
+pg_ready() { "$PG_BIN/pg_isready" -q -h 127.0.0.1 -p "$1" >/dev/null 2>&1; }
+
+# pg_start DIR PORT: start unless already answering. Clears a lock file left by a
+# killed server (after kill -9 the pid may belong to another process by now).
+pg_start() {
+  local dir="$1" port="$2"
+  if pg_ready "$port"; then return 0; fi
+  if [ -f "$dir/postmaster.pid" ]; then
+    local pid; pid=$(head -n 1 "$dir/postmaster.pid" 2>/dev/null || true)
+    if [ -z "$pid" ] || ! grep -qs postgres "/proc/$pid/comm"; then
+      log "Removing a stale PostgreSQL lock file."
+      rm -f "$dir/postmaster.pid"
+    fi
+  fi
+  as_pg "$PG_BIN/pg_ctl" -D "$dir" -l "$dir/server.log" -w -t 60 start >/dev/null \
+    || { tail -n 20 "$dir/server.log" >&2 || true; die "PostgreSQL did not start (log above)."; }
+  local i
+  for i in $(seq 1 60); do pg_ready "$port" && return 0; sleep 0.5; done
+  die "PostgreSQL started but does not answer on 127.0.0.1:$port."
+}
+
+pg_stop() {
+  local dir="$1"
+  [ -f "$dir/postmaster.pid" ] || return 0
+  as_pg "$PG_BIN/pg_ctl" -D "$dir" -m fast -w -t 60 stop >/dev/null 2>&1 || true
+}
+
+# A password kept beside the clusters, made once.
+secret_file() {
+  local file="$DATA/$1"
+  if [ ! -s "$file" ]; then
+    (umask 077; node -e 'process.stdout.write(require("crypto").randomBytes(32).toString("base64url"))' > "$file")
+  fi
+  cat "$file"
+}
+
+# psql_as PORT PASSWORD DB SQL
+psql_as() {
+  PGPASSWORD="$2" "$PG_BIN/psql" -X -q -v ON_ERROR_STOP=1 -h 127.0.0.1 -p "$1" -U tonewright -d "$3" -tAc "$4"
+}
+
+ensure_database() {
+  local port="$1" password="$2" db="$3"
+  if [ -z "$(psql_as "$port" "$password" postgres "select 1 from pg_database where datname = '$db'")" ]; then
+    psql_as "$port" "$password" postgres "create database \"$db\""
+  fi
+}
+
+# Build when there is no build or a source file is newer than it.
+build_if_stale() {
+  local stamp="$ROOT/.output/nitro.json"
+  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app server shared public nuxt.config.ts tailwind.config.ts package-lock.json -newer "$stamp" -type f -print -quit 2>/dev/null)" ]; then
+    return 0
+  fi
+  log "Building the app…"
+  (cd "$ROOT" && NODE_ENV=production npx nuxt build >"$DATA/build.log" 2>&1) || { tail -n 40 "$DATA/build.log" >&2; die "The build failed (full log: .data/build.log)."; }
+}
+
+port_busy() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
+
+# wait_http URL SECONDS
+wait_http() {
+  local url="$1" limit="$2" i
+  for i in $(seq 1 $((limit * 4))); do
+    if node -e 'fetch(process.argv[1]).then(r=>process.exit(r.status<500?0:1),()=>process.exit(1))' "$url" 2>/dev/null; then return 0; fi
+    sleep 0.25
+  done
+  return 1
+}

@@ -1,0 +1,21 @@
+// Seeds the invented demo workshop once (skipped when its owner already exists).
+import { createDatabase } from '../server/database/client'
+import { seedDemo } from '../server/database/seeds/demo'
+
+const url = process.env.NUXT_DATABASE_URL
+if (!url) {
+  console.error('Set NUXT_DATABASE_URL to the PostgreSQL database to seed.')
+  process.exit(1)
+}
+const { db, client } = createDatabase(url, { max: 2 })
+try {
+  const result = await seedDemo(db)
+  console.log(result.created ? `Demo workshop "${result.workshopName}" seeded.` : 'Demo workshop already present.')
+}
+catch (error) {
+  console.error(`The demo data could not be seeded: ${(error as Error).message}`)
+  process.exitCode = 1
+}
+finally {
+  await client.end()
+}

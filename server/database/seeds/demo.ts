@@ -1,0 +1,24 @@
+import { eq } from 'drizzle-orm'
+import type { Database } from '../client'
+import { memberships, users, workshops } from '../schema'
+import { findUserByEmail } from '../../utils/accounts'
+import { hashPassword } from '../../utils/passwords'
+import { seedNewWorkshop } from '../../utils/workshop-starter'
+import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_WORKSHOP } from './demo-people'
+
+/** The demo workshop, its four people and (as later parts add them) its records. */
+export async function seedDemo(db: Database) {
+  const owner = DEMO_PEOPLE[0]!
+  if (await findUserByEmail(db, owner.email)) return { created: false, workshopName: DEMO_WORKSHOP.name }
+  const passwordHash = await hashPassword(DEMO_PASSWORD)
+  await db.transaction(async (tx) => {
+    const [workshop] = await tx.insert(workshops).values(DEMO_WORKSHOP).returning()
+    for (const person of DEMO_PEOPLE) {
+      const [user] = await tx.insert(users).values({ email: person.email, name: person.name, passwordHash }).returning()
+      await tx.insert(memberships).values({ workshopId: workshop!.id, userId: user!.id, role: person.role })
+    }
+    const [ownerRow] = await tx.select({ id: users.id }).from(users).where(eq(users.email, owner.email))
+    await seedNewWorkshop(tx, workshop!.id, ownerRow!.id)
+  })
+  return { created: true, workshopName: DEMO_WORKSHOP.name }
+}

@@ -1,0 +1,14 @@
+/** True when PostgreSQL answers a trivial query within two seconds. */
+export async function databaseAnswers(): Promise<boolean> {
+  const client = useSqlClient()
+  try {
+    await Promise.race([
+      client`select 1`,
+      new Promise((_, reject) => setTimeout(() => reject(new Error('timeout')), 2000)),
+    ])
+    return true
+  }
+  catch {
+    return false
+  }
+}

@@ -1,0 +1,83 @@
+import { createHmac, randomBytes } from 'node:crypto'
+import { and, eq, gt, lt } from 'drizzle-orm'
+import { memberships, sessions, users, workshops } from '../database/schema'
+import type { Executor } from '../database/client'
+import type { Role } from '../../shared/auth/roles'
+
+export function newToken(): string {
+  return randomBytes(32).toString('base64url')
+}
+
+/** Tokens are stored only as an HMAC under the server's secret. */
+export function hashToken(token: string, secret: string): string {
+  return createHmac('sha256', secret).update(token).digest('base64url')
+}
+
+export async function createSession(db: Executor, input: { userId: string, workshopId: string | null, secret: string, maxAgeS: number }) {
+  const token = newToken()
+  await db.insert(sessions).values({
+    tokenHash: hashToken(token, input.secret),
+    userId: input.userId,
+    workshopId: input.workshopId,
+    expiresAt: new Date(Date.now() + input.maxAgeS * 1000),
+  })
+  // Opportunistic clean-up keeps the table small without a scheduler.
+  await db.delete(sessions).where(and(eq(sessions.userId, input.userId), lt(sessions.expiresAt, new Date())))
+  return token
+}
+
+export interface SessionMember {
+  sessionId: string
+  userId: string
+  email: string
+  name: string
+  workshopId: string | null
+  workshopName: string | null
+  role: Role | null
+}
+
+/**
+ * The signed-in user behind a token, with the workshop they act in: the session's
+ * current one, or `workshopOverride` (e.g. an X-Workshop-Id header) when given.
+ * A workshop the user is not a member of gives role null.
+ */
+export async function findSessionMember(db: Executor, token: string, secret: string, workshopOverride?: string): Promise<SessionMember | null> {
+  const [row] = await db
+    .select({ sessionId: sessions.id, userId: users.id, email: users.email, name: users.name, workshopId: sessions.workshopId })
+    .from(sessions)
+    .innerJoin(users, eq(users.id, sessions.userId))
+    .where(and(eq(sessions.tokenHash, hashToken(token, secret)), gt(sessions.expiresAt, new Date())))
+    .limit(1)
+  if (!row) return null
+  const workshopId = workshopOverride ?? row.workshopId
+  if (!workshopId) return { ...row, workshopId: null, workshopName: null, role: null }
+  const [member] = await db
+    .select({ role: memberships.role, workshopName: workshops.name })
+    .from(memberships)
+    .innerJoin(workshops, eq(workshops.id, memberships.workshopId))
+    .where(and(eq(memberships.userId, row.userId), eq(memberships.workshopId, workshopId)))
+    .limit(1)
+  if (!member) return { ...row, workshopId, workshopName: null, role: null }
+  return { ...row, workshopId, workshopName: member.workshopName, role: member.role }
+}
+
+export async function deleteSession(db: Executor, token: string, secret: string) {
+  await db.delete(sessions).where(eq(sessions.tokenHash, hashToken(token, secret)))
+}
+
+export async function listUserWorkshops(db: Executor, userId: string) {
+  return db
+    .select({ id: workshops.id, name: workshops.name, role: memberships.role })
+    .from(memberships)
+    .innerJoin(workshops, eq(workshops.id, memberships.workshopId))
+    .where(eq(memberships.userId, userId))
+    .orderBy(workshops.name)
+}
+
+export async function switchSessionWorkshop(db: Executor, sessionId: string, userId: string, workshopId: string): Promise<boolean> {
+  const [member] = await db.select({ id: memberships.id }).from(memberships)
+    .where(and(eq(memberships.userId, userId), eq(memberships.workshopId, workshopId))).limit(1)
+  if (!member) return false
+  await db.update(sessions).set({ workshopId }).where(eq(sessions.id, sessionId))
+  return true
+}

@@ -1,0 +1,31 @@
+import type { H3Event } from 'h3'
+import { getRequestIP } from 'h3'
+import type { SignInInput } from '../../shared/schemas/auth'
+import { firstWorkshopOf, verifyCredentials } from './accounts'
+import { fail } from './http-errors'
+import { clearFailedSignIns, DEFAULT_SIGN_IN_LIMITS, isSignInBlocked, recordFailedSignIn } from './rate-limit'
+import { createSession } from './sessions'
+
+const WRONG = 'That e-mail and password do not match an account.'
+const SLOW_DOWN = 'Too many sign-in attempts. Wait 15 minutes and try again.'
+
+/** Checks the credentials (rate-limited per address and per account) and opens a session. */
+export async function signIn(event: H3Event, input: SignInInput): Promise<{ token: string }> {
+  const db = useDatabase()
+  const config = useRuntimeConfig()
+  const ip = getRequestIP(event) ?? 'unknown'
+  const limits = {
+    ...DEFAULT_SIGN_IN_LIMITS,
+    maxPerAddress: Number(config.signInMaxPerAddress) || DEFAULT_SIGN_IN_LIMITS.maxPerAddress,
+  }
+  if (await isSignInBlocked(db, ip, input.email, limits)) fail(429, SLOW_DOWN)
+  const user = await verifyCredentials(db, input.email, input.password)
+  if (!user) {
+    await recordFailedSignIn(db, ip, input.email)
+    fail(401, WRONG)
+  }
+  await clearFailedSignIns(db, input.email)
+  const workshopId = await firstWorkshopOf(db, user.id)
+  const token = await createSession(db, { userId: user.id, workshopId, secret: config.authSecret, maxAgeS: Number(config.sessionMaxAgeS) })
+  return { token }
+}
