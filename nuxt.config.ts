@@ -1,16 +1,8 @@
 // Nuxt 4 configuration. Every setting that differs between machines comes from
 // runtime config, overridden by NUXT_* environment variables at start.
 export default defineNuxtConfig({
-  compatibilityDate: '2025-07-15',
-  devtools: { enabled: false },
-  telemetry: false,
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', '@sidebase/nuxt-auth', '@nuxt/eslint'],
-  css: [
-    '@fontsource/ibm-plex-sans/400.css',
-    '@fontsource/ibm-plex-sans/500.css',
-    '@fontsource/ibm-plex-sans/600.css',
-    '~/assets/css/main.css',
-  ],
+  devtools: { enabled: false },
   app: {
     head: {
       title: 'Tonewright',
@@ -19,6 +11,12 @@ export default defineNuxtConfig({
       link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
     },
   },
+  css: [
+    '@fontsource/ibm-plex-sans/400.css',
+    '@fontsource/ibm-plex-sans/500.css',
+    '@fontsource/ibm-plex-sans/600.css',
+    '~/assets/css/main.css',
+  ],
   runtimeConfig: {
     databaseUrl: 'postgres://tonewright@127.0.0.1:54329/tonewright',
     authSecret: '',
@@ -28,6 +26,9 @@ export default defineNuxtConfig({
     smtp: { host: '127.0.0.1', port: 2525, user: '', pass: '', from: 'Tonewright <certificates@tonewright.test>' },
     public: { devMailbox: false },
   },
+  compatibilityDate: '2025-07-15',
+  typescript: { strict: true },
+  telemetry: false,
   auth: {
     isEnabled: true,
     baseURL: '/api/auth',
@@ -64,10 +65,6 @@ export default defineNuxtConfig({
       },
     },
   },
-  tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts' },
   eslint: { config: { stylistic: true } },
-  typescript: { strict: true },
-  nitro: {
-    experimental: { tasks: false },
-  },
+  tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts' },
 })

@@ -71,4 +71,3 @@ export type User = typeof users.$inferSelect
 export type Membership = typeof memberships.$inferSelect
 export type Session = typeof sessions.$inferSelect
 export type AuditEvent = typeof auditEvents.$inferSelect
-

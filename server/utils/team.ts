@@ -37,10 +37,8 @@ export async function listTeam(db: Executor, workshopId: string): Promise<TeamMe
 export async function addMember(db: Database, workshopId: string, actorId: string, input: AddMemberInput): Promise<TeamMember> {
   const passwordHash = await hashPassword(input.temporaryPassword)
   return db.transaction(async (tx) => {
-    let user = await findUserByEmail(tx, input.email)
-    if (!user) {
-      ;[user] = await tx.insert(users).values({ name: input.name, email: input.email, passwordHash, mustChangePassword: true }).returning()
-    }
+    const user = await findUserByEmail(tx, input.email)
+      ?? (await tx.insert(users).values({ name: input.name, email: input.email, passwordHash, mustChangePassword: true }).returning())[0]
     const [existing] = await tx.select({ id: memberships.id }).from(memberships)
       .where(and(eq(memberships.workshopId, workshopId), eq(memberships.userId, user!.id)))
     if (existing) fail(409, 'That person is already a member of this workshop.')

@@ -1,0 +1,54 @@
+import { randomUUID } from 'node:crypto'
+
+export const BASE_URL = process.env.TW_BASE_URL ?? 'http://127.0.0.1:3100'
+
+export interface Reply<T = any> { status: number, body: T, headers: Headers }
+
+/** A JSON request against the running test server. */
+export async function api<T = any>(path: string, options: { method?: string, body?: unknown, token?: string, headers?: Record<string, string> } = {}): Promise<Reply<T>> {
+  const headers: Record<string, string> = { accept: 'application/json', ...options.headers }
+  if (options.token) headers.authorization = `Bearer ${options.token}`
+  let body: BodyInit | undefined
+  if (options.body instanceof FormData) body = options.body
+  else if (options.body !== undefined) {
+    headers['content-type'] = 'application/json'
+    body = JSON.stringify(options.body)
+  }
+  const response = await fetch(`${BASE_URL}${path}`, { method: options.method ?? 'GET', headers, body })
+  const text = await response.text()
+  let parsed: unknown = text
+  try {
+    parsed = text ? JSON.parse(text) : null
+  }
+  catch { /* not JSON: keep the text */ }
+  return { status: response.status, body: parsed as T, headers: response.headers }
+}
+
+export function uniqueEmail(prefix = 'user') {
+  return `${prefix}-${randomUUID().slice(0, 8)}@example.test`
+}
+
+/** Signs up a fresh workshop and returns its owner's token and ids. */
+export async function newWorkshop(name = 'Test workshop') {
+  const email = uniqueEmail('owner')
+  const password = 'correct-horse-battery'
+  const reply = await api('/api/auth/signup', { method: 'POST', body: { name: 'Test Owner', email, password, workshopName: name } })
+  if (reply.status !== 200) throw new Error(`sign-up failed: ${reply.status} ${JSON.stringify(reply.body)}`)
+  const session = await api('/api/auth/session', { token: reply.body.token })
+  return { token: reply.body.token as string, workshopId: reply.body.workshopId as string, userId: session.body.id as string, email, password }
+}
+
+export async function signIn(email: string, password: string) {
+  const reply = await api('/api/auth/login', { method: 'POST', body: { email, password } })
+  if (reply.status !== 200) throw new Error(`sign-in failed: ${reply.status} ${JSON.stringify(reply.body)}`)
+  return reply.body.token as string
+}
+
+/** Adds a member with a role to the owner's workshop and signs them in. */
+export async function memberWithRole(ownerToken: string, role: string) {
+  const email = uniqueEmail(role)
+  const temporaryPassword = 'temporary-pass-123'
+  const added = await api('/api/team', { method: 'POST', token: ownerToken, body: { name: `A ${role}`, email, role, temporaryPassword } })
+  if (added.status !== 201) throw new Error(`add member failed: ${added.status} ${JSON.stringify(added.body)}`)
+  return { token: await signIn(email, temporaryPassword), userId: added.body.userId as string, email }
+}
