@@ -1,0 +1,17 @@
+import { analyzeChannels } from './analyzeChannels'
+import { decodeAudio } from './decodeAudio'
+import { validateAnalyzeOptions } from './parseAnalyzeOptions'
+import type { AnalysisResult, AnalyzeOptions } from './types'
+
+/**
+ * Measure one strike from the bytes of an audio file (WAV, FLAC, MP3, Ogg): decode,
+ * mix to mono at the native rate, then the full pipeline. Resolves to the JSON contract;
+ * rejects with AnalysisError (400 bad option, 413 too large, 415 not audio, 422 not
+ * measurable) carrying one plain sentence.
+ */
+export async function analyzeStrike(bytes: Uint8Array, options: AnalyzeOptions = {}): Promise<AnalysisResult> {
+  // Options first: a typo in a form field should not cost a decode.
+  const opts = validateAnalyzeOptions(options)
+  const decoded = await decodeAudio(bytes)
+  return analyzeChannels(decoded.channelData, decoded.sampleRate, opts)
+}

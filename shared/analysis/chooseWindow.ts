@@ -1,0 +1,58 @@
+import { nextPowerOfTwo } from './nextPowerOfTwo'
+
+/** Null-to-null main-lobe width of the 4-term Blackman–Harris window, in bins (Harris 1978). */
+export const MAIN_LOBE_BINS = 8
+
+/** Analysis window and frame layout, in samples and in seconds. */
+export interface WindowChoice {
+  windowLength: number
+  fftSize: number
+  hop: number
+  windowS: number
+  hopS: number
+  /** fftSize / windowLength (≥ 2). */
+  zeroPad: number
+}
+
+export interface WindowNeeds {
+  /** Smallest spacing between partials that must be resolved, in Hz. */
+  spacingHz: number
+  /** Lowest partial expected, in Hz (it must clear its mirror image at −f). */
+  lowestHz: number
+  /** Length of the analysed span, in s. */
+  spanS: number
+  /** A forced window length in s (overrides the derivation). */
+  windowS?: number
+}
+
+/**
+ * Window length from the partials to resolve: a window of T seconds has a main lobe
+ * MAIN_LOBE_BINS / T Hz wide, which must be narrower than the closest spacing (and than
+ * 2 × the lowest partial, its distance from its own mirror image), with a 25 % margin.
+ * Kept between 30 ms and min(0.5 s, span / 3) so a track has frames enough for a decay
+ * fit; closer partials than that are found later by the long-window refinement.
+ * FFT zero-padded to the next power of two ≥ 2 × the window; hop T / 4, but never more
+ * than ~100 frames over the span (the decay fit needs no more, and speed matters).
+ */
+export function chooseWindow(needs: WindowNeeds, sampleRate: number): WindowChoice {
+  if (!(sampleRate > 0) || !(needs.spanS > 0)) throw new RangeError('chooseWindow needs a positive rate and span')
+  const margin = 1.25
+  const needed = Math.max(
+    (margin * MAIN_LOBE_BINS) / needs.spacingHz,
+    (margin * MAIN_LOBE_BINS) / (2 * needs.lowestHz),
+    0.03,
+  )
+  const longest = Math.min(0.5, needs.spanS / 3)
+  const windowS = needs.windowS ?? Math.min(needed, longest)
+  const windowLength = Math.max(64, Math.min(Math.round(windowS * sampleRate), Math.floor(needs.spanS * sampleRate)))
+  const fftSize = nextPowerOfTwo(2 * windowLength)
+  const hop = Math.max(1, Math.round(Math.max(windowLength / 4, (needs.spanS * sampleRate) / 100)))
+  return {
+    windowLength,
+    fftSize,
+    hop,
+    windowS: windowLength / sampleRate,
+    hopS: hop / sampleRate,
+    zeroPad: fftSize / windowLength,
+  }
+}

@@ -1,0 +1,78 @@
+/** Where the strike is in a recording, in samples. */
+export interface StrikeSpan {
+  /** First sample of the strike. */
+  onsetIndex: number
+  /** First sample analysed: onset plus the skipped attack transient. */
+  startIndex: number
+  /** One past the last sample above the noise floor. */
+  endIndex: number
+  /** Level of the quiet parts of the recording, dB re full scale (RMS). */
+  noiseFloorDb: number
+  /** Level of the loudest block, dB re full scale (RMS). */
+  peakDb: number
+}
+
+export interface StrikeSettings {
+  /** Time skipped after the onset, in s (the attack transient of mallet contact). */
+  attackSkipS: number
+  /** Length of the energy blocks, in s. */
+  blockS?: number
+}
+
+/**
+ * Find the strike in a mono recording from its short-time energy envelope (1 ms
+ * blocks): the noise floor is the 10th percentile of the block levels, the onset is
+ * the first sample of the rise to the loudest block (the first sample over
+ * max(4 × noise RMS, peak − 30 dB) in the block where the envelope leaves the floor),
+ * and the end is the last point where the smoothed envelope stands 6 dB over the floor.
+ */
+export function findStrike(signal: Float64Array, sampleRate: number, settings: StrikeSettings): StrikeSpan {
+  const block = Math.max(16, Math.round(sampleRate * (settings.blockS ?? 0.001)))
+  const blocks = Math.floor(signal.length / block)
+  if (blocks < 4) throw new RangeError('findStrike needs at least four blocks of signal')
+  const levels = new Float64Array(blocks)
+  const energies = new Float64Array(blocks)
+  for (let b = 0; b < blocks; b++) {
+    let e = 0
+    for (let i = b * block; i < (b + 1) * block; i++) e += signal[i]! * signal[i]!
+    energies[b] = e / block
+    levels[b] = 10 * Math.log10(e / block + 1e-30)
+  }
+  let peakBlock = 0
+  for (let b = 1; b < blocks; b++) if (levels[b]! > levels[peakBlock]!) peakBlock = b
+  const peakDb = levels[peakBlock]!
+  const noiseFloorDb = percentile(levels, 0.1)
+  const riseDb = Math.max(noiseFloorDb + 10, peakDb - 40)
+
+  // Walk back from the loudest block to where the envelope left the floor.
+  let first = peakBlock
+  while (first > 0 && levels[first - 1]! > riseDb) first--
+  const threshold = Math.max(4 * 10 ** (noiseFloorDb / 20), 10 ** ((peakDb - 30) / 20))
+  let onsetIndex = first * block
+  const searchFrom = Math.max(0, (first - 1) * block)
+  for (let i = searchFrom; i < (peakBlock + 1) * block; i++) {
+    if (Math.abs(signal[i]!) > threshold) {
+      onsetIndex = i
+      break
+    }
+  }
+
+  // Smooth over 10 blocks so a single noisy block does not extend the strike.
+  const smooth = 10
+  const endPower = 10 ** ((noiseFloorDb + 6) / 10)
+  const prefix = new Float64Array(blocks + 1)
+  for (let b = 0; b < blocks; b++) prefix[b + 1] = prefix[b]! + energies[b]!
+  let last = blocks - 1
+  for (; last > peakBlock; last--) {
+    const from = Math.max(peakBlock, last - smooth + 1)
+    if ((prefix[last + 1]! - prefix[from]!) / (last - from + 1) > endPower) break
+  }
+  const endIndex = Math.min(signal.length, (last + 1) * block)
+  const startIndex = Math.min(endIndex, onsetIndex + Math.round(settings.attackSkipS * sampleRate))
+  return { onsetIndex, startIndex, endIndex, noiseFloorDb, peakDb }
+}
+
+function percentile(values: Float64Array, q: number): number {
+  const sorted = Float64Array.from(values).sort()
+  return sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))]!
+}

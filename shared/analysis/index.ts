@@ -1,0 +1,62 @@
+// Tonewright measurement engine: partials, decay and cents from one strike.
+// Pure TypeScript (no framework imports), shared by the server, scripts and browser.
+
+export { ENGINE_VERSION } from './version'
+export { AnalysisError, type AnalysisErrorStatus } from './AnalysisError'
+export { LIMITS } from './limits'
+export type {
+  AnalysisParameters,
+  AnalysisResult,
+  AnalyzeOptions,
+  MeasuredPartial,
+  PartialMatch,
+  RatioTemplateInput,
+  TemplatePartialSpec,
+  Verdict,
+} from './types'
+
+// Whole pipeline.
+export { analyzeStrike } from './analyzeStrike'
+export { analyzeSamples } from './analyzeSamples'
+export { analyzeChannels } from './analyzeChannels'
+export { AnalyzeOptionsSchema, RatioTemplateSchema, TemplatePartialSpecSchema } from './analyzeOptionsSchema'
+export { parseAnalyzeOptions, validateAnalyzeOptions } from './parseAnalyzeOptions'
+
+// Pitch.
+export { parseNoteName, type NoteName } from './parseNoteName'
+export { noteToFrequencyHz } from './noteToFrequencyHz'
+export { frequencyToNote, type NearestNote } from './frequencyToNote'
+export { centsBetween } from './centsBetween'
+
+// Audio in and out.
+export { decodeAudio, checkLimits, type DecodedAudio } from './decodeAudio'
+export { readWavHeader, type WavHeader } from './readWavHeader'
+export { encodeWav } from './encodeWav'
+export { mixToMono } from './mixToMono'
+export { inspectLevels, CLIP_LEVEL, type LevelReport } from './inspectLevels'
+
+// Steps of the pipeline.
+export { findStrike, type StrikeSpan, type StrikeSettings } from './findStrike'
+export { chooseWindow, MAIN_LOBE_BINS, type WindowChoice, type WindowNeeds } from './chooseWindow'
+export { roughPartialSpacing, type RoughPartials } from './roughPartialSpacing'
+export { shortTimePeaks, type SpectralPeak, type SpectrumFrame, type ShortTimeSettings } from './shortTimePeaks'
+export { linkTracks, type TrackPoint, type LinkSettings } from './linkTracks'
+export { measureTrack, type TrackContext, type TrackMeasurement } from './measureTrack'
+export { detectBeat, type BeatSettings } from './detectBeat'
+export { resolveTarget, type ResolvedTarget } from './resolveTarget'
+export { resolveTemplate, defaultPartialLabel, TEMPLATE_DEFAULTS } from './resolveTemplate'
+export { matchTemplate } from './matchTemplate'
+export { decideVerdict } from './decideVerdict'
+export { guidanceLines } from './guidanceLines'
+
+// Numerical building blocks.
+export { blackmanHarris, BLACKMAN_HARRIS_COEFFICIENTS } from './blackmanHarris'
+export { realFft } from './realFft'
+export { directDft } from './directDft'
+export { dtftAt, type Complex } from './dtftAt'
+export { refinePeak, type RefinedPeak } from './refinePeak'
+export { parabolicPeak, type ParabolicVertex } from './parabolicPeak'
+export { bandNoiseFloor } from './bandNoiseFloor'
+export { selectQuantile } from './selectQuantile'
+export { fitLine, type LineFit } from './fitLine'
+export { nextPowerOfTwo } from './nextPowerOfTwo'

@@ -1,0 +1,11 @@
+/** Input limits of the engine (the contract). */
+export const LIMITS = {
+  maxBytes: 50 * 1024 * 1024,
+  minDurationS: 0.2,
+  maxDurationS: 60,
+  minSampleRate: 8000,
+  maxSampleRate: 192000,
+  maxChannels: 8,
+  /** Peak below this (about −120 dBFS) counts as digital silence. */
+  silencePeak: 1e-6,
+} as const

@@ -1,0 +1,59 @@
+import type { AnalysisResult } from './types'
+
+/** Round to `digits` decimals; null passes through. */
+function r(value: number, digits: number): number
+function r(value: number | null, digits: number): number | null
+function r(value: number | null, digits: number): number | null {
+  if (value === null || !Number.isFinite(value)) return value
+  const scale = 10 ** digits
+  return Math.round(value * scale) / scale
+}
+
+/**
+ * Round a result for output, to well below what the engine can resolve:
+ * 0.0001 Hz (0.003 ¢ at 65 Hz), 0.01 dB, 0.001 dB/s, 0.01 ¢, 0.1 ms.
+ * Verdicts are decided before rounding.
+ */
+export function roundResult(result: AnalysisResult): AnalysisResult {
+  const rounded: AnalysisResult = {
+    ...result,
+    durationS: r(result.durationS, 6),
+    onsetS: r(result.onsetS, 6),
+    analysisStartS: r(result.analysisStartS, 6),
+    analysisEndS: r(result.analysisEndS, 6),
+    fundamentalHz: r(result.fundamentalHz, 4),
+    partials: result.partials.map(p => ({
+      ...p,
+      frequencyHz: r(p.frequencyHz, 4),
+      amplitudeDb: r(p.amplitudeDb, 2),
+      decayDbPerS: r(p.decayDbPerS, 3),
+      t60S: r(p.t60S, 3),
+      r2: r(p.r2, 4),
+      startS: r(p.startS, 4),
+      endS: r(p.endS, 4),
+      stabilityCents: r(p.stabilityCents, 3),
+      beatHz: r(p.beatHz, 3),
+      snrDb: r(p.snrDb, 1),
+    })),
+    parameters: {
+      ...result.parameters,
+      windowS: r(result.parameters.windowS, 6),
+      zeroPad: r(result.parameters.zeroPad, 4),
+      hopS: r(result.parameters.hopS, 6),
+      trackJumpCents: r(result.parameters.trackJumpCents, 3),
+    },
+  }
+  if (result.target) rounded.target = { ...result.target, fundamentalHz: r(result.target.fundamentalHz, 4) }
+  if (result.matches) {
+    rounded.matches = result.matches.map(m => ({
+      ...m,
+      targetHz: r(m.targetHz, 4),
+      measuredHz: r(m.measuredHz, 4),
+      cents: r(m.cents, 2),
+      rawCents: r(m.rawCents, 2),
+      normalizedCents: r(m.normalizedCents, 2),
+      amplitudeDb: r(m.amplitudeDb, 2),
+    }))
+  }
+  return rounded
+}

@@ -1,0 +1,95 @@
+import { blackmanHarris } from './blackmanHarris'
+import { parabolicPeak } from './parabolicPeak'
+import { realFft } from './realFft'
+import { bandNoiseFloor } from './bandNoiseFloor'
+
+/** One spectral peak of one frame. */
+export interface SpectralPeak {
+  frequencyHz: number
+  /** Peak amplitude of the sinusoid, dB re full scale (window gain removed). */
+  amplitudeDb: number
+  /** Local noise floor under the peak, same dB scale (level of a sinusoid as strong as the floor). */
+  noiseFloorDb: number
+  /** Phase of the FFT bin at the peak, in rad, referenced to the frame start. */
+  phaseRad: number
+}
+
+/** Peaks of one short-time spectrum. */
+export interface SpectrumFrame {
+  /** Centre of the frame, in s from the start of the signal. */
+  timeS: number
+  peaks: SpectralPeak[]
+}
+
+export interface ShortTimeSettings {
+  windowLength: number
+  fftSize: number
+  hop: number
+  startIndex: number
+  endIndex: number
+  /** Peaks more than this far below the frame's strongest peak are ignored, in dB (e.g. 80). */
+  peakThresholdDb: number
+  /** Peaks must stand this far above the local noise floor, in dB (e.g. 20). */
+  noiseMarginDb: number
+  minFrequencyHz: number
+  maxFrequencyHz: number
+}
+
+/**
+ * Short-time Fourier transform (Blackman–Harris window, zero-padded FFT) of
+ * `signal[startIndex…endIndex)` and its spectral peaks: local maxima of the power above
+ * both thresholds (relative to the frame's strongest peak, and over the banded noise
+ * floor), refined by parabolic interpolation of the dB magnitude.
+ */
+export function shortTimePeaks(signal: Float64Array, sampleRate: number, settings: ShortTimeSettings): SpectrumFrame[] {
+  const { windowLength, fftSize, hop } = settings
+  if (fftSize < windowLength || hop < 1) throw new RangeError('fftSize must cover the window and hop must be ≥ 1')
+  const window = blackmanHarris(windowLength)
+  let windowSum = 0
+  for (let i = 0; i < windowLength; i++) windowSum += window[i]!
+  // |X| of a sinusoid of amplitude A is A·Σw/2: this turns power into dB of amplitude.
+  const gainDb = 20 * Math.log10(2 / windowSum)
+  const binHz = sampleRate / fftSize
+  const kMin = Math.max(2, Math.ceil(settings.minFrequencyHz / binHz))
+  const kMax = Math.min(fftSize / 2 - 2, Math.floor(settings.maxFrequencyHz / binHz))
+  const frames: SpectrumFrame[] = []
+  if (kMax <= kMin) return frames
+
+  const buffer = new Float64Array(fftSize)
+  const spectrum = new Float64Array(2 * fftSize)
+  const power = new Float64Array(kMax + 2)
+  const floor = new Float64Array(kMax + 2)
+  // Three main lobes of the zero-padded window: a band is never filled by one partial.
+  const minBandBins = Math.ceil((3 * 8 * fftSize) / windowLength)
+  const relative = 10 ** (-settings.peakThresholdDb / 10)
+  const margin = 10 ** (settings.noiseMarginDb / 10)
+
+  for (let start = settings.startIndex; start + windowLength <= settings.endIndex; start += hop) {
+    for (let i = 0; i < windowLength; i++) buffer[i] = signal[start + i]! * window[i]!
+    realFft(buffer, spectrum)
+    let maxPower = 0
+    for (let k = kMin - 1; k <= kMax + 1; k++) {
+      const re = spectrum[2 * k]!
+      const im = spectrum[2 * k + 1]!
+      const p = re * re + im * im
+      power[k] = p
+      if (k >= kMin && k <= kMax && p > maxPower) maxPower = p
+    }
+    bandNoiseFloor(power, kMin, kMax, minBandBins, floor)
+    const relativeThreshold = Math.max(maxPower * relative, Number.MIN_VALUE)
+    const peaks: SpectralPeak[] = []
+    for (let k = kMin; k <= kMax; k++) {
+      const p = power[k]!
+      if (p <= relativeThreshold || p <= floor[k]! * margin || p <= power[k - 1]! || p < power[k + 1]!) continue
+      const vertex = parabolicPeak(10 * Math.log10(power[k - 1]!), 10 * Math.log10(p), 10 * Math.log10(power[k + 1]!))
+      peaks.push({
+        frequencyHz: (k + vertex.offset) * binHz,
+        amplitudeDb: vertex.value + gainDb,
+        noiseFloorDb: 10 * Math.log10(Math.max(floor[k]!, Number.MIN_VALUE)) + gainDb,
+        phaseRad: Math.atan2(spectrum[2 * k + 1]!, spectrum[2 * k]!),
+      })
+    }
+    frames.push({ timeS: (start + windowLength / 2) / sampleRate, peaks })
+  }
+  return frames
+}
