@@ -151,7 +151,7 @@ secret_file() {
 
 # psql_as PORT PASSWORD DB SQL
 psql_as() {
-  PGPASSWORD="$2" "$PG_BIN/psql" -X -q -v ON_ERROR_STOP=1 -h 127.0.0.1 -p "$1" -U tonewright -d "$3" -tAc "$4"
+  PGOPTIONS="-c client_min_messages=warning" PGPASSWORD="$2" "$PG_BIN/psql" -X -q -v ON_ERROR_STOP=1 -h 127.0.0.1 -p "$1" -U tonewright -d "$3" -tAc "$4"
 }
 
 ensure_database() {

@@ -1,28 +1,34 @@
-import { mkdtempSync, mkdirSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
+import { mkdirSync } from 'node:fs'
 import { join } from 'node:path'
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
 
 export const BASE_URL = process.env.TW_BASE_URL ?? 'http://127.0.0.1:3100'
 export const ARTEFACTS = join(process.cwd(), 'test-results', 'screenshots')
 
-/** Debian's Chromium, headless, with a fresh profile each launch. */
-export async function launch(extraArgs: string[] = []): Promise<{ browser: BrowserContext, close: () => Promise<void> }> {
-  const profile = mkdtempSync(join(tmpdir(), 'tonewright-chromium-'))
-  const context = await chromium.launchPersistentContext(profile, {
+/**
+ * Debian's Chromium, headless. Playwright gives every launch a fresh, temporary
+ * profile (--user-data-dir); each test opens its own context (own cookies).
+ */
+export async function launch(extraArgs: string[] = []): Promise<{ browser: Browser, newPage: () => Promise<Page>, close: () => Promise<void> }> {
+  const browser = await chromium.launch({
     executablePath: '/usr/bin/chromium',
     headless: true,
-    viewport: { width: 1280, height: 800 },
     args: [
       '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update',
       '--disable-sync', '--no-first-run', '--disable-quic', ...extraArgs,
     ],
   })
+  const contexts: BrowserContext[] = []
   return {
-    browser: context,
+    browser,
+    newPage: async () => {
+      const context = await browser.newContext({ viewport: { width: 1280, height: 800 } })
+      contexts.push(context)
+      return context.newPage()
+    },
     close: async () => {
-      await context.close()
-      rmSync(profile, { recursive: true, force: true })
+      for (const c of contexts) await c.close().catch(() => {})
+      await browser.close()
     },
   }
 }

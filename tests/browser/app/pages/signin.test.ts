@@ -12,7 +12,7 @@ afterAll(async () => {
 
 describe('signing in', () => {
   it('sends a visitor to the sign-in page', async () => {
-    const page = await session.browser.newPage()
+    const page = await session.newPage()
     await page.goto(`${BASE_URL}/team`)
     await page.waitForURL(/\/signin/)
     expect(await page.getByRole('heading', { name: 'Sign in' }).isVisible()).toBe(true)
@@ -20,7 +20,7 @@ describe('signing in', () => {
   })
 
   it('shows a plain message for a wrong password, next to the form', async () => {
-    const page = await session.browser.newPage()
+    const page = await session.newPage()
     await page.goto(`${BASE_URL}/signin`)
     await page.getByLabel('E-mail').fill('owner@tonewright.test')
     await page.getByLabel('Password').fill('wrong-password')
@@ -30,7 +30,7 @@ describe('signing in', () => {
   })
 
   it('signs the demo owner in to the dashboard and the Team screen', async () => {
-    const page = await session.browser.newPage()
+    const page = await session.newPage()
     await signInAs(page, 'owner@tonewright.test')
     await page.getByRole('heading', { name: 'Brackenfold Bar & Bell Works' }).waitFor()
     const nav = await page.getByRole('navigation', { name: 'Main' }).innerText()
@@ -46,7 +46,7 @@ describe('signing in', () => {
   })
 
   it('hides owner-only controls and screens from a benchmaker', async () => {
-    const page = await session.browser.newPage()
+    const page = await session.newPage()
     await signInAs(page, 'bench@tonewright.test')
     const nav = await page.getByRole('navigation', { name: 'Main' }).innerText()
     expect(nav).not.toContain('Review')
