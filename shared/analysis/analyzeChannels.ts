@@ -23,6 +23,8 @@ import { ENGINE_VERSION } from './version'
 const SETTINGS = {
   attackSkipS: 0.005,
   peakThresholdDb: 80,
+  /** Lossy codecs leave artefacts 40–60 dB under the partials: report less range. */
+  lossyRangeDb: 40,
   noiseMarginDb: 20,
   fitMarginDb: 15,
   minSnrDb: 25,
@@ -44,6 +46,7 @@ export function analyzeChannels(
   channels: readonly ArrayLike<number>[],
   sampleRate: number,
   options: AnalyzeOptions = {},
+  source: { lossy?: boolean } = {},
 ): AnalysisResult {
   const opts = validateAnalyzeOptions(options)
   const frames = channels[0]?.length ?? 0
@@ -137,7 +140,11 @@ export function analyzeChannels(
       maxRefineS: SETTINGS.maxRefineS,
     }),
   )
-  const partials: MeasuredPartial[] = dropDuplicates(measured).map(({ refineSpanS: _span, ...p }) => p)
+  const dynamicRangeDb = source.lossy ? SETTINGS.lossyRangeDb : SETTINGS.peakThresholdDb
+  const strongest = Math.max(-Infinity, ...measured.map(m => m.amplitudeDb))
+  const partials: MeasuredPartial[] = dropDuplicates(measured.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb))
+    .map(({ refineSpanS: _span, ...p }) => p)
+  if (source.lossy) warnings.push(`lossy audio format: partials more than ${dynamicRangeDb} dB under the strongest are not reported`)
   if (partials.length === 0) warnings.push('no partials found above the noise floor')
 
   const result: AnalysisResult = {
@@ -161,6 +168,7 @@ export function analyzeChannels(
       fftSize: layout.fftSize,
       attackSkipS,
       peakThresholdDb: SETTINGS.peakThresholdDb,
+      dynamicRangeDb,
       noiseMarginDb: SETTINGS.noiseMarginDb,
       trackJumpCents,
       minTrackFrames,

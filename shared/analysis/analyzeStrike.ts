@@ -1,5 +1,6 @@
 import { analyzeChannels } from './analyzeChannels'
 import { decodeAudio } from './decodeAudio'
+import { detectContainer, isLossy } from './detectContainer'
 import { validateAnalyzeOptions } from './parseAnalyzeOptions'
 import type { AnalysisResult, AnalyzeOptions } from './types'
 
@@ -13,5 +14,5 @@ export async function analyzeStrike(bytes: Uint8Array, options: AnalyzeOptions =
   // Options first: a typo in a form field should not cost a decode.
   const opts = validateAnalyzeOptions(options)
   const decoded = await decodeAudio(bytes)
-  return analyzeChannels(decoded.channelData, decoded.sampleRate, opts)
+  return analyzeChannels(decoded.channelData, decoded.sampleRate, opts, { lossy: isLossy(detectContainer(bytes)) })
 }

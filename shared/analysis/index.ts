@@ -31,6 +31,7 @@ export { centsBetween } from './centsBetween'
 // Audio in and out.
 export { decodeAudio, checkLimits, type DecodedAudio } from './decodeAudio'
 export { readWavHeader, type WavHeader } from './readWavHeader'
+export { detectContainer, isLossy, type ContainerKind } from './detectContainer'
 export { encodeWav } from './encodeWav'
 export { mixToMono } from './mixToMono'
 export { inspectLevels, CLIP_LEVEL, type LevelReport } from './inspectLevels'

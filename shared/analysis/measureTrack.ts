@@ -28,8 +28,8 @@ export interface TrackMeasurement extends MeasuredPartial {
 }
 
 /**
- * Measure one partial track: decay rate (dB/s) by a least-squares line through the
- * dB envelope of the frames well above the noise floor (T60 = 60 / rate), beating from
+ * Measure one partial track: decay rate (dB/s) by a weighted least-squares line through
+ * the dB envelope of the frames well above the noise floor (T60 = 60 / rate), beating from
  * the fit's residual, then frequency and onset amplitude from one long Blackman–Harris
  * window over the track's span. The amplitude divides |X(f)| by Σ w[n]·e^{−α(t_n − t_onset)},
  * the gain of the window for a partial decaying at the fitted rate α (Np/s), which gives
@@ -46,7 +46,10 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   if (fitPoints.length < 3) return []
 
   const times = fitPoints.map(p => p.timeS)
-  const fit = fitLine(times, fitPoints.map(p => p.amplitudeDb))
+  // Weights: the inverse noise variance of a frame's level (∝ 10^(SNR/10)), capped at
+  // 40 dB over the floor — above that the decay model, not the noise, limits the fit.
+  const weights = fitPoints.map(p => 10 ** (Math.min(0, p.amplitudeDb - p.noiseFloorDb - 40) / 10))
+  const fit = fitLine(times, fitPoints.map(p => p.amplitudeDb), weights)
   const decayDbPerS = -fit.slope
   const frequencies = fitPoints.map(p => p.frequencyHz).sort((a, b) => a - b)
   const coarseHz = frequencies[frequencies.length >> 1]!

@@ -121,6 +121,8 @@ export interface AnalysisParameters {
   fftSize: number
   attackSkipS: number
   peakThresholdDb: number
+  /** Partials weaker than the strongest by more than this (dB) are not reported. */
+  dynamicRangeDb: number
   noiseMarginDb: number
   trackJumpCents: number
   minTrackFrames: number
