@@ -23,7 +23,7 @@ export interface StrikeSettings {
  * Find the strike in a mono recording from its short-time energy envelope (1 ms
  * blocks): the noise floor is the 10th percentile of the block levels, the onset is
  * the first sample of the rise to the loudest block (the first sample over
- * max(4 × noise RMS, peak − 30 dB) in the block where the envelope leaves the floor),
+ * max(4 × noise RMS, peak − 30 dB) from the block where the envelope left the floor),
  * and the end is the last point where the smoothed envelope stands 6 dB over the floor.
  */
 export function findStrike(signal: Float64Array, sampleRate: number, settings: StrikeSettings): StrikeSpan {
@@ -44,9 +44,18 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   const noiseFloorDb = percentile(levels, 0.1)
   const riseDb = Math.max(noiseFloorDb + 10, peakDb - 40)
 
-  // Walk back from the loudest block to where the envelope left the floor.
+  // Walk back from the loudest block to where the envelope left the floor. A low partial
+  // dips at its zero crossings within a block, so only a run of 20 quiet blocks (20 ms)
+  // counts as the floor before the strike.
   let first = peakBlock
-  while (first > 0 && levels[first - 1]! > riseDb) first--
+  let quiet = 0
+  for (let b = peakBlock - 1; b >= 0 && quiet < 20; b--) {
+    if (levels[b]! > riseDb) {
+      first = b
+      quiet = 0
+    }
+    else quiet++
+  }
   const threshold = Math.max(4 * 10 ** (noiseFloorDb / 20), 10 ** ((peakDb - 30) / 20))
   let onsetIndex = first * block
   const searchFrom = Math.max(0, (first - 1) * block)

@@ -108,7 +108,7 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
 /**
  * Two local maxima of the long-window magnitude within ±`halfWidthHz` of `centreHz`
  * (a grid of half bins, then refined), the weaker no more than 30 dB under the
- * stronger; null when the long window sees only one peak.
+ * stronger and the two at least 0.9 half main lobes apart; null otherwise.
  */
 function findClosePair(windowed: Float64Array, sampleRate: number, centreHz: number, halfWidthHz: number, binHz: number) {
   const step = binHz / 2
@@ -129,7 +129,8 @@ function findClosePair(windowed: Float64Array, sampleRate: number, centreHz: num
   const refined = [first, second]
     .map(m => refinePeak(windowed, sampleRate, centreHz + (m.index - count) * step, [0.25, 0.1]))
     .sort((a, b) => a.frequencyHz - b.frequencyHz) as [ReturnType<typeof refinePeak>, ReturnType<typeof refinePeak>]
-  // Both refinements climbing the same lobe means there was no second partial.
-  if (refined[1].frequencyHz - refined[0].frequencyHz < binHz) return null
+  // Closer than 3.6 bins (0.9 × the half main lobe) the window cannot resolve the pair:
+  // two maxima there come from the beating itself, not from two separable partials.
+  if (refined[1].frequencyHz - refined[0].frequencyHz < 0.9 * (MAIN_LOBE_BINS / 2) * binHz) return null
   return refined
 }
