@@ -72,11 +72,14 @@ export function analyzeChannels(
   const attackSkipS = opts.attackSkipS ?? SETTINGS.attackSkipS
   const strike = findStrike(mono, sampleRate, { attackSkipS })
   if (strike.peakDb - strike.noiseFloorDb < SETTINGS.minProminenceDb) {
-    warnings.push(
-      `no strike stands out of the background: the loudest moment is only ${(strike.peakDb - strike.noiseFloorDb).toFixed(1)} dB over the quiet parts`,
-    )
-    strike.onsetIndex = 0
-    strike.startIndex = 0
+    // No quiet part to tell the strike from: the sound rings through the whole recording
+    // (or there is no strike at all). Take the first loud sample as onset, analyse to the end.
+    warnings.push('the sound never falls to a quiet background in this recording; analysed from its first loud moment to the end')
+    const loud = 10 ** ((strike.peakDb - 30) / 20)
+    let onset = 0
+    while (onset < mono.length - 1 && Math.abs(mono[onset]!) <= loud) onset++
+    strike.onsetIndex = onset
+    strike.startIndex = Math.min(mono.length, onset + Math.round(attackSkipS * sampleRate))
     strike.endIndex = mono.length
   }
   const minSpan = Math.round(SETTINGS.minSpanS * sampleRate)

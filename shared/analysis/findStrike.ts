@@ -21,7 +21,8 @@ export interface StrikeSettings {
 
 /**
  * Find the strike in a mono recording from its short-time energy envelope (1 ms
- * blocks): the noise floor is the 10th percentile of the block levels, the onset is
+ * blocks): the noise floor is the median level of the lead-in before the loudest block
+ * (or the 10th percentile of all blocks when that is lower or there is no lead-in), the onset is
  * the first sample of the rise to the loudest block (the first sample over
  * max(4 × noise RMS, peak − 30 dB) from the block where the envelope left the floor),
  * and the end is the last point where the smoothed envelope stands 6 dB over the floor.
@@ -41,7 +42,10 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   let peakBlock = 0
   for (let b = 1; b < blocks; b++) if (levels[b]! > levels[peakBlock]!) peakBlock = b
   const peakDb = levels[peakBlock]!
-  const noiseFloorDb = percentile(levels, 0.1)
+  // The quiet part is the lead-in before the strike when there is one (a ringing piece may
+  // never fall to the floor within the recording), else the quietest tenth of the blocks.
+  let noiseFloorDb = percentile(levels, 0.1)
+  if (peakBlock >= 15) noiseFloorDb = Math.min(noiseFloorDb, percentile(levels.subarray(0, peakBlock - 5), 0.5))
   const riseDb = Math.max(noiseFloorDb + 10, peakDb - 40)
 
   // Walk back from the loudest block to where the envelope left the floor. A low partial

@@ -186,4 +186,16 @@ describe('synthetic strikes with known answers (seeded noise)', () => {
     expect(result.parameters.attackSkipS).toBe(0.02)
     expect(result.analysisEndS).toBeLessThanOrEqual(1)
   })
+
+  it('measures a piece that rings through the whole recording, struck at its first sample', () => {
+    const partial = { frequencyHz: 587.33, amplitudeDb: -10, decayDbPerS: 3 }
+    const x = synthStrike([partial], { sampleRate: 48000, durationS: 1.5, noiseDb: -80, seed: 9 })
+    const result = analyzeSamples(x, 48000)
+    expect(result.onsetS).toBeLessThan(0.001)
+    expect(result.analysisEndS).toBeCloseTo(1.5, 3)
+    const p = nearest(result.partials, 587.33)
+    expect(Math.abs(centsBetween(p.frequencyHz, 587.33))).toBeLessThan(0.05)
+    expect(Math.abs(p.amplitudeDb + 10)).toBeLessThan(0.1)
+    expect(Math.abs(p.decayDbPerS / 3 - 1)).toBeLessThan(0.03)
+  })
 })
