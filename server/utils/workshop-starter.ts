@@ -1,7 +1,7 @@
 import type { Executor } from '../database/client'
+import { seedStarterTemplates } from './templates'
 
-/**
- * What every new workshop starts with. The starter ratio-template library is
- * added here by the records part of the product.
- */
-export async function seedNewWorkshop(_tx: Executor, _workshopId: string, _userId: string): Promise<void> {}
+/** What every new workshop starts with: the starter ratio-template library. */
+export async function seedNewWorkshop(tx: Executor, workshopId: string, userId: string): Promise<void> {
+  await seedStarterTemplates(tx, workshopId, userId)
+}

@@ -1,0 +1,58 @@
+import { and, asc, avg, count, eq, gte, inArray, sql } from 'drizzle-orm'
+import { memberships, pieces, sets, strikes, users } from '../database/schema'
+import type { Executor } from '../database/client'
+import { listSets } from './sets'
+
+const DONE = ['approved', 'certified', 'shipped'] as const
+
+/** Monday 00:00 UTC of the current week. */
+function weekStart(now = new Date()): Date {
+  const d = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate()))
+  d.setUTCDate(d.getUTCDate() - ((d.getUTCDay() + 6) % 7))
+  return d
+}
+
+export async function dashboardFor(db: Executor, workshopId: string) {
+  const since = weekStart()
+  const [setRows, [queue], [done], [firstPass], [perPiece], weekly] = await Promise.all([
+    listSets(db, workshopId),
+    db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), eq(pieces.stage, 'review'))),
+    db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, DONE))),
+    db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, DONE), eq(pieces.reworkCount, 0))),
+    db.select({ v: avg(pieces.strikeCount) }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, DONE))),
+    db.select({ userId: users.id, name: users.name, strikes: sql<number>`count(${strikes.id})::int` })
+      .from(memberships)
+      .innerJoin(users, eq(users.id, memberships.userId))
+      .leftJoin(strikes, and(eq(strikes.userId, users.id), eq(strikes.workshopId, workshopId), gte(strikes.createdAt, since)))
+      .where(and(eq(memberships.workshopId, workshopId), inArray(memberships.role, ['benchmaker', 'supervisor', 'owner'])))
+      .groupBy(users.id, users.name)
+      .orderBy(asc(users.name)),
+  ])
+  const approved = done?.n ?? 0
+  return {
+    sets: setRows.filter(s => !s.shippedAt).map(s => ({ id: s.id, name: s.name, serial: s.serial, byStage: s.byStage, pieceCount: s.pieceCount, approvedCount: s.approvedCount, certifiable: s.certifiable })),
+    reviewQueue: queue?.n ?? 0,
+    approvedPieces: approved,
+    firstPassYield: approved > 0 ? (firstPass?.n ?? 0) / approved : null,
+    strikesPerApprovedPiece: perPiece?.v != null ? Number(perPiece.v) : null,
+    weekStartsAt: since,
+    strikesThisWeek: weekly,
+  }
+}
+
+/** Pieces waiting for a supervisor, oldest first, with the latest strike's matches. */
+export async function reviewQueue(db: Executor, workshopId: string) {
+  return db.select({
+    id: pieces.id, note: pieces.note, position: pieces.position, targetHz: pieces.targetHz, setId: sets.id, setName: sets.name,
+    strikeCount: pieces.strikeCount, reworkCount: pieces.reworkCount, latestStrikeId: pieces.latestStrikeId,
+    latestVerdict: pieces.latestVerdict, latestWorstCents: pieces.latestWorstCents, updatedAt: pieces.updatedAt,
+    assigneeName: users.name,
+    matches: sql<unknown>`(select ${strikes.analysis} -> 'matches' from ${strikes} where ${strikes.id} = ${pieces.latestStrikeId})`,
+    temperatureC: sql<number | null>`(select ${strikes.temperatureC} from ${strikes} where ${strikes.id} = ${pieces.latestStrikeId})`,
+  }).from(pieces)
+    .innerJoin(sets, eq(sets.id, pieces.setId))
+    .leftJoin(users, eq(users.id, pieces.assigneeId))
+    .where(and(eq(pieces.workshopId, workshopId), eq(pieces.stage, 'review')))
+    .orderBy(asc(pieces.updatedAt))
+    .limit(200)
+}

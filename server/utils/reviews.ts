@@ -1,0 +1,70 @@
+import { and, eq, sql } from 'drizzle-orm'
+import { pieces, reviews, strikes } from '../database/schema'
+import type { Database, Executor } from '../database/client'
+import type { Member } from './auth'
+import { audit } from './audit'
+import { fail } from './http-errors'
+
+async function lockPiece(tx: Executor, member: Member, pieceId: string) {
+  const [piece] = await tx.select().from(pieces)
+    .where(and(eq(pieces.id, pieceId), eq(pieces.workshopId, member.workshopId))).for('update')
+  if (!piece) fail(404, 'No such piece in this workshop.')
+  return piece
+}
+
+/**
+ * Approves a piece in review on its latest strike. The row lock makes two
+ * simultaneous approvals queue: the second finds the piece approved and gets 409.
+ */
+export function approvePiece(db: Database, member: Member, pieceId: string, input: { strikeId: string, overrideReason?: string, comment?: string }) {
+  return db.transaction(async (tx) => {
+    const piece = await lockPiece(tx, member, pieceId)
+    if (piece.stage === 'approved' || piece.stage === 'certified' || piece.stage === 'shipped') fail(409, 'This piece is already approved.')
+    if (piece.stage !== 'review') fail(409, 'Only a piece in review can be approved.')
+    const [strike] = await tx.select({ id: strikes.id, verdict: strikes.verdict }).from(strikes)
+      .where(and(eq(strikes.id, input.strikeId), eq(strikes.pieceId, pieceId)))
+    if (!strike) fail(404, 'That strike does not belong to this piece.')
+    if (strike.id !== piece.latestStrikeId) fail(409, 'A newer strike exists: approve on the latest strike.')
+    if (strike.verdict !== 'within' && !input.overrideReason) {
+      fail(409, `The latest strike is ${strike.verdict ?? 'not measured against a template'}: approve only with an override reason.`)
+    }
+    const [review] = await tx.insert(reviews).values({
+      workshopId: member.workshopId, pieceId, strikeId: strike.id, supervisorId: member.userId, decision: 'approve',
+      comment: input.comment ?? '', overrideReason: strike.verdict === 'within' ? null : input.overrideReason ?? null,
+    }).returning()
+    await tx.update(pieces).set({ stage: 'approved', approvedStrikeId: strike.id, approvedAt: new Date(), updatedAt: new Date() }).where(eq(pieces.id, pieceId))
+    await audit(tx, {
+      workshopId: member.workshopId, actorId: member.userId, action: 'piece.approve', subjectType: 'piece', subjectId: pieceId,
+      fromState: 'review', toState: 'approved', reason: input.overrideReason ?? input.comment ?? null, details: { strikeId: strike.id, override: strike.verdict !== 'within' },
+    })
+    return review!
+  })
+}
+
+export function returnPiece(db: Database, member: Member, pieceId: string, comment: string) {
+  return db.transaction(async (tx) => {
+    const piece = await lockPiece(tx, member, pieceId)
+    if (piece.stage !== 'review') fail(409, 'Only a piece in review can be returned for rework.')
+    const [review] = await tx.insert(reviews).values({
+      workshopId: member.workshopId, pieceId, strikeId: piece.latestStrikeId, supervisorId: member.userId, decision: 'return', comment,
+    }).returning()
+    await tx.update(pieces).set({ stage: 'rework', reworkCount: sql`${pieces.reworkCount} + 1`, updatedAt: new Date() }).where(eq(pieces.id, pieceId))
+    await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.return', subjectType: 'piece', subjectId: pieceId, fromState: 'review', toState: 'rework', reason: comment })
+    return review!
+  })
+}
+
+/** Reopening an approval is its own audited action with a reason; a certified piece needs its certificate revoked first. */
+export function reopenPiece(db: Database, member: Member, pieceId: string, reason: string) {
+  return db.transaction(async (tx) => {
+    const piece = await lockPiece(tx, member, pieceId)
+    if (piece.stage === 'certified' || piece.stage === 'shipped') fail(409, 'This piece is on a certificate: revoke the certificate before reopening it.')
+    if (piece.stage !== 'approved') fail(409, 'Only an approved piece can be reopened.')
+    const [review] = await tx.insert(reviews).values({
+      workshopId: member.workshopId, pieceId, strikeId: piece.approvedStrikeId, supervisorId: member.userId, decision: 'reopen', comment: reason,
+    }).returning()
+    await tx.update(pieces).set({ stage: 'tuning', approvedStrikeId: null, approvedAt: null, updatedAt: new Date() }).where(eq(pieces.id, pieceId))
+    await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.reopen', subjectType: 'piece', subjectId: pieceId, fromState: 'approved', toState: 'tuning', reason })
+    return review!
+  })
+}
