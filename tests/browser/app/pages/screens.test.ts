@@ -1,0 +1,294 @@
+import { randomUUID } from 'node:crypto'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { encodeWav } from '../../../../shared/analysis/index'
+import { synthStrike } from '../../../support/synthStrike'
+import { api, signIn } from '../../../integration/support/http'
+import { BASE_URL, DEMO_PASSWORD, launch, screenshot, signInAs, type Page } from '../../support/browser'
+
+let session: Awaited<ReturnType<typeof launch>>
+
+// What each role may open, from the product notes' role table (owner: everything;
+// supervisor: review and sign-off plus bench rights; benchmaker: the bench; office:
+// sets, buyers, certificates, read everything). Mailbox is the development mail
+// catcher, which the test server turns on.
+const ROLES = {
+  owner: { email: 'owner@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team', 'Mailbox'], forbidden: [] },
+  supervisor: { email: 'supervisor@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team', 'Mailbox'], forbidden: [] },
+  benchmaker: { email: 'bench@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Templates', 'Team', 'Mailbox'], forbidden: ['/review', '/certificates'] },
+  office: { email: 'office@tonewright.test', nav: ['Pieces', 'Sets', 'Templates', 'Certificates', 'Team', 'Mailbox'], forbidden: ['/bench', '/review'] },
+} as const
+
+/** The screens built here, with the heading each opens with. */
+const HEADINGS: Record<string, string> = { '/pieces': 'Pieces', '/sets': 'Sets', '/review': 'Review', '/templates': 'Templates', '/team': 'Team' }
+
+/** A synthetic strike on one piece: its fundamental, `cents` away from the target. */
+function strikeWav(targetHz: number, cents: number) {
+  const samples = synthStrike([{ frequencyHz: targetHz * 2 ** (cents / 1200), amplitudeDb: -10, decayDbPerS: 8 }], {
+    sampleRate: 48_000, durationS: 1.5, onsetS: 0.15, noiseDb: -75, seed: 7,
+  })
+  return encodeWav(samples, 48_000)
+}
+
+async function strike(token: string, pieceId: string, targetHz: number, cents: number) {
+  const form = new FormData()
+  form.append('file', new Blob([strikeWav(targetHz, cents)], { type: 'audio/wav' }), 'strike.wav')
+  form.append('temperatureC', '21')
+  const reply = await api(`/api/pieces/${pieceId}/strikes`, { method: 'POST', token, body: form })
+  if (reply.status !== 201) throw new Error(`strike failed: ${reply.status} ${JSON.stringify(reply.body)}`)
+  return reply.body
+}
+
+// A small glockenspiel set of our own, made through the API: C6 and D6 struck in
+// tune, E6 struck 20 ¢ sharp (its tolerance is ±3 ¢), F6 left blank; the first
+// three sent to review.
+const fixture = { setId: '', setName: '', pieces: {} as Record<string, { id: string, targetHz: number }> }
+
+beforeAll(async () => {
+  session = await launch()
+  const owner = await signIn(ROLES.owner.email, DEMO_PASSWORD)
+  const bench = await signIn(ROLES.benchmaker.email, DEMO_PASSWORD)
+  const templates = await api('/api/templates', { token: owner })
+  const glock = templates.body.find((t: { name: string }) => t.name.startsWith('Glockenspiel'))
+  fixture.setName = `Browser check glockenspiel ${randomUUID().slice(0, 6)}`
+  const created = await api('/api/sets', {
+    method: 'POST', token: owner,
+    body: { name: fixture.setName, model: 'Check plate', serial: `BC-${randomUUID().slice(0, 8)}`, buyer: { name: 'Ada Fenwick', email: 'ada@example.test' }, referenceHz: 440, fromNote: 'C6', toNote: 'F6', chromatic: false, templateId: glock.id },
+  })
+  expect(created.status).toBe(201)
+  fixture.setId = created.body.id
+  const set = await api(`/api/sets/${fixture.setId}`, { token: owner })
+  for (const p of set.body.pieces) fixture.pieces[p.note] = { id: p.id, targetHz: p.targetHz }
+  for (const [note, cents] of [['C6', 0.4], ['D6', -0.6], ['E6', 20]] as const) {
+    const piece = fixture.pieces[note]!
+    for (const to of ['tuning', 'review']) {
+      if (to === 'review') await strike(bench, piece.id, piece.targetHz, cents)
+      const moved = await api(`/api/pieces/${piece.id}/stage`, { method: 'POST', token: bench, body: { to } })
+      expect(moved.status).toBe(200)
+    }
+  }
+})
+afterAll(async () => {
+  await session?.close()
+})
+
+async function navLabels(page: Page) {
+  const links = page.getByRole('navigation', { name: 'Main' }).getByRole('link')
+  return (await links.allInnerTexts()).map(t => t.trim())
+}
+
+describe('screens by role', () => {
+  for (const [role, spec] of Object.entries(ROLES)) {
+    it(`${role}: sees exactly its navigation, opens its screens and is turned away from the others`, async () => {
+      const page = await session.newPage()
+      await signInAs(page, spec.email)
+      await page.getByRole('heading', { name: 'Pieces by stage, per set' }).waitFor()
+      expect(await navLabels(page)).toEqual(spec.nav)
+      await screenshot(page, `dashboard-${role}`)
+      for (const path of spec.nav.map(label => `/${label.toLowerCase()}`).filter(p => HEADINGS[p])) {
+        await page.goto(`${BASE_URL}${path}`)
+        await page.getByRole('heading', { name: HEADINGS[path], exact: true, level: 1 }).waitFor()
+      }
+      for (const path of spec.forbidden) {
+        await page.goto(`${BASE_URL}${path}`)
+        await page.waitForURL(url => url.pathname === '/' && url.searchParams.get('denied') === path)
+        await page.getByRole('alert').filter({ hasText: `cannot open ${path}` }).waitFor()
+      }
+      await page.close()
+    })
+  }
+})
+
+describe('sets', () => {
+  it('office creates a set through the form, with a live count of the pieces the range makes', async () => {
+    const page = await session.newPage()
+    await signInAs(page, ROLES.office.email)
+    await page.goto(`${BASE_URL}/sets/new`)
+    await page.getByRole('heading', { name: 'New set' }).waitFor()
+    const name = `Concert marimba ${randomUUID().slice(0, 6)}`
+    await page.getByLabel('Set name').fill(name)
+    await page.getByLabel('Model').fill('Fieldfare 4.3')
+    await page.getByLabel('Serial number').fill(`FF-${randomUUID().slice(0, 8)}`)
+    await page.getByLabel('Buyer\'s name').fill('Rowan Leckie')
+    await page.getByLabel('Organisation (optional)').fill('Eastmere Youth Percussion')
+    await page.getByLabel('Buyer\'s e-mail').fill('rowan@example.test')
+    await page.getByLabel('From note').fill('A2')
+    await page.getByLabel('To note').fill('C7')
+    // source: product notes: a 4.3-octave marimba, A2 to C7 chromatic, is one set of 52 pieces
+    await expectText(page.getByTestId('range-preview'), /^52 pieces/)
+    await page.getByLabel('Chromatic (with accidentals)').uncheck()
+    // common practice: naturals only from A2 to C7 are A2, B2, four octaves of seven, and C7: 2 + 28 + 1 = 31
+    await expectText(page.getByTestId('range-preview'), /^31 pieces/)
+    await page.getByLabel('Chromatic (with accidentals)').check()
+    await page.getByLabel('To note').fill('C2')
+    await expectText(page.getByTestId('range-preview'), /runs backwards/)
+    await page.getByLabel('To note').fill('C7')
+    await page.getByLabel('Ratio template').selectOption({ label: 'Marimba bar, triple (1 : 4 : 10) (v1)' })
+    await screenshot(page, 'set-new-office')
+    await page.getByRole('button', { name: 'Create set and its pieces' }).click()
+    await page.waitForURL(/\/sets\/[0-9a-f-]{36}$/)
+    await page.getByRole('heading', { name, level: 1 }).waitFor()
+    await page.getByTestId('set-cell').nth(51).waitFor()
+    expect(await page.getByTestId('set-cell').count()).toBe(52)
+    expect(await page.getByTestId('set-cell').first().innerText()).toContain('A2')
+    expect(await page.getByTestId('set-cell').last().innerText()).toContain('C7')
+    await screenshot(page, 'set-page-new')
+    await page.goto(`${BASE_URL}/sets`)
+    await page.getByRole('link', { name }).waitFor()
+    await screenshot(page, 'sets-office')
+    await page.close()
+  })
+
+  it('refuses an empty form with plain sentences beside the fields', async () => {
+    const page = await session.newPage()
+    await signInAs(page, ROLES.office.email)
+    await page.goto(`${BASE_URL}/sets/new`)
+    await page.getByRole('button', { name: 'Create set and its pieces' }).click()
+    await expectText(page.getByRole('alert').filter({ hasText: 'Name the set' }), /Name the set/)
+    await expectText(page.getByRole('alert').filter({ hasText: 'template' }), /Choose a template/)
+    expect(page.url()).toMatch(/\/sets\/new$/)
+    await page.close()
+  })
+})
+
+describe('review', () => {
+  it('supervisor approves from the keyboard, gives an override reason for a sharp piece, and sees a lost race as a plain message', async () => {
+    const page = await session.newPage()
+    await signInAs(page, ROLES.supervisor.email)
+    await page.goto(`${BASE_URL}/review`)
+    await page.getByRole('heading', { name: 'Review', level: 1 }).waitFor()
+    const item = (note: string) => page.getByTestId('queue-item').filter({ hasText: fixture.setName }).filter({ hasText: note })
+    const current = page.getByTestId('review-current')
+
+    // C6, struck within: one key approves it.
+    await item('C6').click()
+    await current.getByRole('heading', { name: /C6/ }).waitFor()
+    await current.getByTestId('ladder-row').first().waitFor()
+    expect(await current.getByTestId('ladder-row').first().getAttribute('data-state')).toBe('within')
+    await screenshot(page, 'review-supervisor')
+    await page.keyboard.press('a')
+    await page.getByRole('alert').filter({ hasText: `C6 of ${fixture.setName} approved` }).waitFor()
+    await item('C6').waitFor({ state: 'detached' })
+
+    // E6, 20 ¢ sharp: `a` asks for a reason; keys typed into it stay text.
+    await item('E6').click()
+    await current.getByRole('heading', { name: /E6/ }).waitFor()
+    expect(await current.getByTestId('ladder-row').first().getAttribute('data-state')).toBe('sharp')
+    await page.keyboard.press('a')
+    const reason = page.getByLabel('Override reason (the latest strike is not within)')
+    await expect.poll(() => reason.evaluate(el => el === document.activeElement)).toBe(true)
+    await page.keyboard.type('Buyer asked for a bright top plate; agreed by phone')
+    expect(await reason.inputValue()).toBe('Buyer asked for a bright top plate; agreed by phone')
+    expect(await current.getByRole('heading', { name: /E6/ }).count()).toBe(1)
+    await screenshot(page, 'review-override')
+    await page.keyboard.press('Control+Enter')
+    await page.getByRole('alert').filter({ hasText: `E6 of ${fixture.setName} approved` }).waitFor()
+
+    // D6: another supervisor (the owner, through the API) approves it first.
+    await item('D6').click()
+    await current.getByRole('heading', { name: /D6/ }).waitFor()
+    const owner = await signIn(ROLES.owner.email, DEMO_PASSWORD)
+    const piece = await api(`/api/pieces/${fixture.pieces.D6!.id}`, { token: owner })
+    const first = await api(`/api/pieces/${fixture.pieces.D6!.id}/approve`, { method: 'POST', token: owner, body: { strikeId: piece.body.strikes[0].id } })
+    expect(first.status).toBe(200)
+    await page.keyboard.press('a')
+    await expectText(page.getByTestId('review-conflict'), /already approved/)
+    await item('D6').waitFor({ state: 'detached' })
+    await page.close()
+  })
+})
+
+describe('pieces', () => {
+  it('filters from the URL, changes stages in bulk all or nothing, and opens a piece', async () => {
+    const page = await session.newPage()
+    await signInAs(page, ROLES.supervisor.email)
+    await page.goto(`${BASE_URL}/pieces?set=${fixture.setId}`)
+    await page.getByRole('heading', { name: 'Pieces', level: 1 }).waitFor()
+    await expectText(page.getByTestId('pieces-count'), /of 4 pieces/)
+    await page.getByLabel('Stage', { exact: true }).selectOption('approved')
+    await page.waitForURL(url => url.searchParams.get('stage') === 'approved' && url.searchParams.get('set') === fixture.setId)
+    await expectText(page.getByTestId('pieces-count'), /of 3 pieces/)
+    await page.getByLabel('Stage', { exact: true }).selectOption('')
+    await expectText(page.getByTestId('pieces-count'), /of 4 pieces/)
+    await page.getByRole('button', { name: /Latest worst ¢/ }).click()
+    await page.waitForURL(url => url.searchParams.get('sort') === 'cents')
+    await screenshot(page, 'pieces-supervisor')
+
+    // F6 (blank) with C6 (approved): the approved one stops the whole change.
+    await page.getByLabel(`Select F6 of ${fixture.setName}`).check()
+    await page.getByLabel(`Select C6 of ${fixture.setName}`).check()
+    await page.getByLabel('Move to stage').selectOption('roughed')
+    await page.getByRole('button', { name: 'Change stage' }).click()
+    await expectText(page.getByRole('alert').filter({ hasText: 'Nothing was changed' }), /C6.*approved/)
+    const f6 = page.getByTestId('piece-row').filter({ hasText: 'F6' })
+    expect(await f6.locator('[data-stage]').getAttribute('data-stage')).toBe('blank')
+    await page.getByLabel(`Select C6 of ${fixture.setName}`).uncheck()
+    await page.getByRole('button', { name: 'Change stage' }).click()
+    await page.getByRole('alert').filter({ hasText: '1 piece moved to roughed' }).waitFor()
+    await expect.poll(() => f6.locator('[data-stage]').getAttribute('data-stage')).toBe('roughed')
+
+    await page.getByRole('link', { name: 'E6', exact: true }).click()
+    await page.getByRole('heading', { name: /Piece E6/ }).waitFor()
+    await page.getByTestId('strike-row').first().waitFor()
+    expect(await page.getByTestId('strike-row').count()).toBe(1)
+    await page.getByText('Override:').waitFor()
+    expect(await page.getByRole('link', { name: 'Open on the Bench' }).getAttribute('href')).toBe(`/bench?piece=${fixture.pieces.E6!.id}`)
+    await screenshot(page, 'piece-page')
+
+    // Reopening an approval asks for a reason and puts the piece back in tuning.
+    await page.getByRole('button', { name: 'Reopen approval…' }).click()
+    await page.getByLabel(/Why reopen/).fill('Plate chipped in packing; retune after filing')
+    await page.getByRole('button', { name: 'Reopen', exact: true }).click()
+    await page.getByRole('heading', { name: /Piece E6/ }).locator('[data-stage="tuning"]').waitFor()
+    await page.getByText('Reopened').waitFor()
+    await page.close()
+  })
+})
+
+describe('templates', () => {
+  it('owner creates a template with a dynamic partial list and edits it into a second version', async () => {
+    const page = await session.newPage()
+    await signInAs(page, ROLES.owner.email)
+    await page.goto(`${BASE_URL}/templates`)
+    await page.getByRole('heading', { name: 'Templates', level: 1 }).waitFor()
+    await page.getByRole('heading', { name: 'bell', exact: true }).waitFor()
+    await screenshot(page, 'templates-owner')
+    await page.getByRole('link', { name: 'New template' }).click()
+    const name = `Check chime ${randomUUID().slice(0, 6)}`
+    await page.getByLabel('Family').selectOption('tube')
+    await page.getByLabel('Template name').fill(name)
+    await page.getByRole('button', { name: 'Add a partial' }).click()
+    await page.getByLabel('Partial 2 name').fill('second')
+    await page.getByLabel('Ratio').nth(1).fill('2.76')
+    await page.getByLabel('Tolerance ±¢').nth(1).fill('8')
+    await page.getByLabel('Source of the values').fill('Invented for the browser check.')
+    await page.getByRole('button', { name: 'Create template' }).click()
+    await page.getByRole('heading', { name, level: 1 }).waitFor()
+    expect(await page.getByTestId('template-versions').locator('li').count()).toBe(1)
+    await page.getByRole('button', { name: /Edit \(makes version 2\)/ }).click()
+    await page.getByLabel('Tolerance ±¢').nth(1).fill('6')
+    await page.getByRole('button', { name: 'Save as a new version' }).click()
+    await expect.poll(() => page.getByTestId('template-versions').locator('li').count()).toBe(2)
+    expect(await page.getByTestId('template-partials').innerText()).toContain('±6 ¢')
+    expect(await page.getByTestId('template-versions').locator('li').last().innerText()).toContain('±8 ¢')
+    expect(await page.getByTestId('template-source').innerText()).toContain('Invented for the browser check.')
+    await screenshot(page, 'template-page')
+    await page.close()
+  })
+
+  it('a benchmaker reads templates but gets no edit controls', async () => {
+    const page = await session.newPage()
+    await signInAs(page, ROLES.benchmaker.email)
+    await page.goto(`${BASE_URL}/templates`)
+    await page.getByTestId('template-card').first().waitFor()
+    expect(await page.getByRole('link', { name: 'New template' }).count()).toBe(0)
+    await page.getByTestId('template-card').first().getByRole('link').click()
+    await page.getByTestId('template-source').waitFor()
+    expect(await page.getByRole('button', { name: /Edit/ }).count()).toBe(0)
+    await page.close()
+  })
+})
+
+async function expectText(locator: import('playwright-core').Locator, pattern: RegExp) {
+  await locator.first().waitFor()
+  await expect.poll(() => locator.first().innerText()).toMatch(pattern)
+}
