@@ -77,8 +77,9 @@ export function separatePair(
     const alpha = (decayDbPerS[k]! * Math.LN10) / 20
     let envelope = Math.exp((-alpha * (spanStart - onsetIndex)) / sampleRate)
     const perSample = Math.exp(-alpha / sampleRate)
+    const gain = gains[k]!
     for (let n = 0; n < length; n++) {
-      gains[k][n] = long[n]! * envelope
+      gain[n] = long[n]! * envelope
       envelope *= perSample
     }
   }
