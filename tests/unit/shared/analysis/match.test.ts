@@ -121,6 +121,21 @@ describe('the whole chain on a synthetic bar', () => {
     expect(at442.matches![0]!.cents).toBeCloseTo(0.8 - 1200 * Math.log2(442 / 440), 1)
   })
 
+  it('normalises to the reference temperature end to end from form fields', () => {
+    // A bar that reads 0.8 ¢ sharp at 26 °C; with −0.3 ¢/°C it would read 0.8 + 0.3 × 6 = 2.6 ¢ at 20 °C.
+    const options = parseAnalyzeOptions({
+      note: 'C4', ratios: '1', tolerances: '2', temperatureC: '26', referenceTemperatureC: '20', temperatureCoefficientCentsPerC: '-0.3',
+    })
+    const result = analyzeSamples(x, 48000, options)
+    const m = result.matches![0]!
+    expect(m.rawCents).toBeCloseTo(0.8, 1)
+    expect(m.normalizedCents).toBeCloseTo(2.6, 1)
+    expect(m.within).toBe(false)
+    expect(result.verdict).toBe('outside')
+    expect(result.temperatureC).toBe(26)
+    expect(result.guidance[0]).toMatch(/^Fundamental is 2\.6 ¢ sharp/)
+  })
+
   it('is incomplete when a required partial is missing, and accepts a stored template', () => {
     const result = analyzeSamples(x, 48000, {
       targetHz: f0,
