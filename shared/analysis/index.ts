@@ -19,7 +19,12 @@ export type {
 export { analyzeStrike } from './analyzeStrike'
 export { analyzeSamples } from './analyzeSamples'
 export { analyzeChannels } from './analyzeChannels'
-export { AnalyzeOptionsSchema, RatioTemplateSchema, TemplatePartialSpecSchema } from './analyzeOptionsSchema'
+export {
+  AnalyzeOptionsObjectSchema,
+  AnalyzeOptionsSchema,
+  RatioTemplateSchema,
+  TemplatePartialSpecSchema,
+} from './analyzeOptionsSchema'
 export { parseAnalyzeOptions, validateAnalyzeOptions } from './parseAnalyzeOptions'
 
 // Pitch.
