@@ -58,6 +58,7 @@ export { guidanceLines } from './guidanceLines'
 
 // Numerical building blocks.
 export { blackmanHarris, BLACKMAN_HARRIS_COEFFICIENTS } from './blackmanHarris'
+export { windowSpan, type WindowedSpan } from './windowSpan'
 export { realFft } from './realFft'
 export { directDft } from './directDft'
 export { dtftAt, type Complex } from './dtftAt'

@@ -1,4 +1,3 @@
-import { blackmanHarris } from './blackmanHarris'
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import { detectBeat } from './detectBeat'
 import { dtftPowers3 } from './dtftPowers3'
@@ -7,6 +6,7 @@ import type { TrackPoint } from './linkTracks'
 import { refinePeak } from './refinePeak'
 import { separatePair } from './separatePair'
 import type { MeasuredPartial } from './types'
+import { windowSpan } from './windowSpan'
 
 export interface TrackContext {
   onsetIndex: number
@@ -70,17 +70,8 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   )
   const length = spanEnd - spanStart
   if (length < 32) return []
-  const window = blackmanHarris(length)
-  const windowed = new Float64Array(length)
   const alpha = (decayDbPerS * Math.LN10) / 20
-  let gain = 0
-  let envelope = Math.exp((-alpha * (spanStart - context.onsetIndex)) / sampleRate)
-  const perSample = Math.exp(-alpha / sampleRate)
-  for (let n = 0; n < length; n++) {
-    windowed[n] = signal[spanStart + n]! * window[n]!
-    gain += window[n]! * envelope
-    envelope *= perSample
-  }
+  const { windowed, decayingGain: gain } = windowSpan(signal, spanStart, length, alpha / sampleRate, context.onsetIndex)
   const binHz = sampleRate / length
 
   const common = {
