@@ -22,8 +22,9 @@ describe('chooseWindow', () => {
       expect(MAIN_LOBE_BINS / w.windowS).toBeLessThan(spacingHz)
       expect(w.fftSize & (w.fftSize - 1)).toBe(0)
       expect(w.zeroPad).toBeGreaterThanOrEqual(2)
-      // Hop a quarter window, but no more than ~100 frames over the span.
+      // Hop a quarter window, but no more than ~100 frames over the span; never over a window.
       expect(w.hop).toBe(Math.round(Math.max(w.windowLength / 4, (10 * 48000) / 100)))
+      expect(w.hop).toBeLessThanOrEqual(w.windowLength)
     }
   })
 
@@ -32,8 +33,9 @@ describe('chooseWindow', () => {
     expect(MAIN_LOBE_BINS / w.windowS).toBeLessThan(2 * 65.41)
   })
 
-  it('stays between 30 ms and a third of the span, unless forced', () => {
-    expect(chooseWindow({ spacingHz: 5000, lowestHz: 5000, spanS: 4 }, 48000).windowS).toBeCloseTo(0.03, 4)
+  it('stays between max(30 ms, span / 100) and min(0.5 s, span / 3), unless forced', () => {
+    expect(chooseWindow({ spacingHz: 5000, lowestHz: 5000, spanS: 2 }, 48000).windowS).toBeCloseTo(0.03, 4)
+    expect(chooseWindow({ spacingHz: 5000, lowestHz: 5000, spanS: 4 }, 48000).windowS).toBeCloseTo(0.04, 4)
     expect(chooseWindow({ spacingHz: 3, lowestHz: 440, spanS: 1.2 }, 48000).windowS).toBeCloseTo(0.4, 4)
     expect(chooseWindow({ spacingHz: 3, lowestHz: 440, spanS: 4 }, 48000).windowS).toBeCloseTo(0.5, 4)
     expect(chooseWindow({ spacingHz: 300, lowestHz: 440, spanS: 4, windowS: 0.2 }, 48000).windowS).toBeCloseTo(0.2, 4)
