@@ -11,11 +11,20 @@ describe('configuration', () => {
       stdio: ['ignore', 'pipe', 'pipe'],
     })
     let output = ''
-    child.stdout.on('data', (d) => { output += d })
-    child.stderr.on('data', (d) => { output += d })
+    const collect = (d: Buffer) => {
+      output += d
+    }
+    child.stdout.on('data', collect)
+    child.stderr.on('data', collect)
     const code = await new Promise<number | null>((resolve) => {
-      const timer = setTimeout(() => { child.kill('SIGKILL'); resolve(null) }, 20_000)
-      child.on('exit', (c) => { clearTimeout(timer); resolve(c) })
+      const timer = setTimeout(() => {
+        child.kill('SIGKILL')
+        resolve(null)
+      }, 20_000)
+      child.on('exit', (c) => {
+        clearTimeout(timer)
+        resolve(c)
+      })
     })
     expect(code).toBe(1)
     expect(output).toMatch(/set NUXT_AUTH_SECRET/)
