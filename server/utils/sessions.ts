@@ -31,6 +31,7 @@ export interface SessionMember {
   userId: string
   email: string
   name: string
+  mustChangePassword: boolean
   workshopId: string | null
   workshopName: string | null
   role: Role | null
@@ -43,7 +44,7 @@ export interface SessionMember {
  */
 export async function findSessionMember(db: Executor, token: string, secret: string, workshopOverride?: string): Promise<SessionMember | null> {
   const [row] = await db
-    .select({ sessionId: sessions.id, userId: users.id, email: users.email, name: users.name, workshopId: sessions.workshopId })
+    .select({ sessionId: sessions.id, userId: users.id, email: users.email, name: users.name, mustChangePassword: users.mustChangePassword, workshopId: sessions.workshopId })
     .from(sessions)
     .innerJoin(users, eq(users.id, sessions.userId))
     .where(and(eq(sessions.tokenHash, hashToken(token, secret)), gt(sessions.expiresAt, new Date())))
