@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { encodeWav } from '../../../../shared/analysis/index'
-import { synthStrike } from '../../../support/synthStrike'
+import { synthStrike } from '../../../../shared/synthesis/synthStrike'
 import { api, signIn } from '../../../integration/support/http'
 import { BASE_URL, DEMO_PASSWORD, launch, screenshot, signInAs, type Page } from '../../support/browser'
 
@@ -135,6 +135,11 @@ describe('sets', () => {
     await page.goto(`${BASE_URL}/sets`)
     await page.getByRole('link', { name }).waitFor()
     await screenshot(page, 'sets-office')
+    await page.goto(`${BASE_URL}/pieces?q=${encodeURIComponent(name)}`)
+    await expectText(page.getByTestId('pieces-count'), /of 52 pieces · page 1 of 3/)
+    await page.getByRole('button', { name: 'Next →' }).click()
+    await page.waitForURL(url => url.searchParams.get('page') === '2')
+    await expectText(page.getByTestId('pieces-count'), /^26–50 of 52/)
     await page.close()
   })
 
@@ -266,6 +271,7 @@ describe('templates', () => {
     expect(await page.getByTestId('template-versions').locator('li').count()).toBe(1)
     await page.getByRole('button', { name: /Edit \(makes version 2\)/ }).click()
     await page.getByLabel('Tolerance ±¢').nth(1).fill('6')
+    await screenshot(page, 'template-edit')
     await page.getByRole('button', { name: 'Save as a new version' }).click()
     await expect.poll(() => page.getByTestId('template-versions').locator('li').count()).toBe(2)
     expect(await page.getByTestId('template-partials').innerText()).toContain('±6 ¢')
