@@ -255,7 +255,7 @@ describe('templates', () => {
     await signInAs(page, ROLES.owner.email)
     await page.goto(`${BASE_URL}/templates`)
     await page.getByRole('heading', { name: 'Templates', level: 1 }).waitFor()
-    await page.getByRole('heading', { name: 'bell', exact: true }).waitFor()
+    await page.getByRole('heading', { name: 'Bell', exact: true }).waitFor()
     await screenshot(page, 'templates-owner')
     await page.getByRole('link', { name: 'New template' }).click()
     const name = `Check chime ${randomUUID().slice(0, 6)}`
