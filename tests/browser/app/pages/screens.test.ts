@@ -38,9 +38,9 @@ async function strike(token: string, pieceId: string, targetHz: number, cents: n
   return reply.body
 }
 
-// A small glockenspiel set of our own, made through the API: C6 and D6 struck in
-// tune, E6 struck 20 ¢ sharp (its tolerance is ±3 ¢), F6 left blank; the first
-// three sent to review.
+// A small glockenspiel set of our own, made through the API: C6, D6 and G6 struck
+// in tune, E6 struck 20 ¢ sharp (its tolerance is ±3 ¢), F6 left blank; the struck
+// ones sent to review.
 const fixture = { setId: '', setName: '', pieces: {} as Record<string, { id: string, targetHz: number }> }
 
 beforeAll(async () => {
@@ -52,13 +52,13 @@ beforeAll(async () => {
   fixture.setName = `Browser check glockenspiel ${randomUUID().slice(0, 6)}`
   const created = await api('/api/sets', {
     method: 'POST', token: owner,
-    body: { name: fixture.setName, model: 'Check plate', serial: `BC-${randomUUID().slice(0, 8)}`, buyer: { name: 'Ada Fenwick', email: 'ada@example.test' }, referenceHz: 440, fromNote: 'C6', toNote: 'F6', chromatic: false, templateId: glock.id },
+    body: { name: fixture.setName, model: 'Check plate', serial: `BC-${randomUUID().slice(0, 8)}`, buyer: { name: 'Ada Fenwick', email: 'ada@example.test' }, referenceHz: 440, fromNote: 'C6', toNote: 'G6', chromatic: false, templateId: glock.id },
   })
   expect(created.status).toBe(201)
   fixture.setId = created.body.id
   const set = await api(`/api/sets/${fixture.setId}`, { token: owner })
   for (const p of set.body.pieces) fixture.pieces[p.note] = { id: p.id, targetHz: p.targetHz }
-  for (const [note, cents] of [['C6', 0.4], ['D6', -0.6], ['E6', 20]] as const) {
+  for (const [note, cents] of [['C6', 0.4], ['D6', -0.6], ['E6', 20], ['G6', 1.1]] as const) {
     const piece = fixture.pieces[note]!
     for (const to of ['tuning', 'review']) {
       if (to === 'review') await strike(bench, piece.id, piece.targetHz, cents)
@@ -198,6 +198,17 @@ describe('review', () => {
     await page.keyboard.press('a')
     await expectText(page.getByTestId('review-conflict'), /already approved/)
     await item('D6').waitFor({ state: 'detached' })
+
+    // G6: `r` opens the comment, the comment is sent with Ctrl+Enter.
+    await item('G6').click()
+    await current.getByRole('heading', { name: /G6/ }).waitFor()
+    await page.keyboard.press('r')
+    const comment = page.getByLabel('What needs rework?')
+    await expect.poll(() => comment.evaluate(el => el === document.activeElement)).toBe(true)
+    await page.keyboard.type('Chip on the near edge; dress it and strike again')
+    await page.keyboard.press('Control+Enter')
+    await page.getByRole('alert').filter({ hasText: `G6 of ${fixture.setName} returned for rework` }).waitFor()
+    await item('G6').waitFor({ state: 'detached' })
     await page.close()
   })
 })
@@ -208,12 +219,20 @@ describe('pieces', () => {
     await signInAs(page, ROLES.supervisor.email)
     await page.goto(`${BASE_URL}/pieces?set=${fixture.setId}`)
     await page.getByRole('heading', { name: 'Pieces', level: 1 }).waitFor()
-    await expectText(page.getByTestId('pieces-count'), /of 4 pieces/)
+    await expectText(page.getByTestId('pieces-count'), /of 5 pieces/)
     await page.getByLabel('Stage', { exact: true }).selectOption('approved')
     await page.waitForURL(url => url.searchParams.get('stage') === 'approved' && url.searchParams.get('set') === fixture.setId)
     await expectText(page.getByTestId('pieces-count'), /of 3 pieces/)
+    await page.getByLabel('Latest verdict').selectOption('outside')
+    await expectText(page.getByTestId('pieces-count'), /of 1 pieces?\b/)
     await page.getByLabel('Stage', { exact: true }).selectOption('')
-    await expectText(page.getByTestId('pieces-count'), /of 4 pieces/)
+    await page.getByLabel('Latest verdict').selectOption('')
+    await expectText(page.getByTestId('pieces-count'), /of 5 pieces/)
+    await page.getByLabel('Stage', { exact: true }).selectOption('rework')
+    await expectText(page.getByTestId('pieces-count'), /of 1 pieces?\b/)
+    expect(await page.getByTestId('piece-row').innerText()).toContain('G6')
+    await page.getByLabel('Stage', { exact: true }).selectOption('')
+    await expectText(page.getByTestId('pieces-count'), /of 5 pieces/)
     await page.getByRole('button', { name: /Latest worst ¢/ }).click()
     await page.waitForURL(url => url.searchParams.get('sort') === 'cents')
     await screenshot(page, 'pieces-supervisor')
