@@ -8,7 +8,7 @@ import v8 from 'node:v8'
 import vm from 'node:vm'
 import { analyzeSamples, analyzeStrike, centsBetween, encodeWav, ENGINE_VERSION } from '../shared/analysis/index'
 import type { MeasuredPartial } from '../shared/analysis/index'
-import { synthStrike, type SynthPartial } from '../tests/support/synthStrike'
+import { synthStrike, type SynthPartial } from '../shared/synthesis/synthStrike'
 
 const RUNS = 30
 
