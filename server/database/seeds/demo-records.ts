@@ -97,7 +97,7 @@ async function seedSetStrikes(
         const audioKey = `workshops/${workshopId}/strikes/${piece.id}/${id}.wav`
         await storage.put(audioKey, encodeWav(samples, SAMPLE_RATE), 'audio/wav')
         await tx.insert(strikes).values({
-          id, workshopId, pieceId: piece.id, userId: k % 5 === 4 ? people.supervisor : people.bench, stage: k === 0 ? 'roughed' : 'tuning',
+          id, workshopId, pieceId: piece.id, userId: k % 3 === 2 ? people.supervisor : people.bench, stage: k === 0 ? 'roughed' : 'tuning',
           temperatureC, humidityPct: 38 + random.uniform() * 12, audioKey, audioBytes: 44 + samples.length * 2, audioType: 'audio/wav',
           audioName: `${piece.note}-${k + 1}.wav`, engineVersion: result.engineVersion, analysis: result, templateVersionId: template.id,
           fundamentalHz: result.fundamentalHz, worstCents: worstCents(result), verdict: result.verdict, createdAt: at,
@@ -110,8 +110,12 @@ async function seedSetStrikes(
         latestStrikeId: l?.id ?? null, latestVerdict: l?.result.verdict ?? null, latestWorstCents: l ? worstCents(l.result) : null,
         latestFundamentalHz: l?.result.fundamentalHz ?? null, latestStrikeAt: l?.at ?? null,
         approvedStrikeId: stage === 'approved' ? l?.id ?? null : null, approvedAt: stage === 'approved' ? l?.at ?? null : null,
-        reworkCount: stage === 'rework' ? 1 : 0, updatedAt: l?.at ?? new Date(),
+        reworkCount: stage === 'rework' || (stage === 'approved' && i % 7 === 3) ? 1 : 0, updatedAt: l?.at ?? new Date(),
       }).where(eq(pieces.id, piece.id))
+      if (stage === 'approved' && l && i % 7 === 3) {
+        // Some pieces came back once before they passed: the first-pass yield is not 100 %.
+        await tx.insert(reviews).values({ workshopId, pieceId: piece.id, strikeId: l.id, supervisorId: people.supervisor, decision: 'return', comment: 'Third partial flat; lower the fundamental a touch and recheck.', createdAt: new Date(l.at.getTime() - 3600_000) })
+      }
       if (stage === 'approved' && l) {
         await tx.insert(reviews).values({ workshopId, pieceId: piece.id, strikeId: l.id, supervisorId: people.supervisor, decision: 'approve', createdAt: l.at })
       }
