@@ -114,7 +114,7 @@ async function seedSetStrikes(
       }).where(eq(pieces.id, piece.id))
       if (stage === 'approved' && l && i % 7 === 3) {
         // Some pieces came back once before they passed: the first-pass yield is not 100 %.
-        await tx.insert(reviews).values({ workshopId, pieceId: piece.id, strikeId: l.id, supervisorId: people.supervisor, decision: 'return', comment: 'Third partial flat; lower the fundamental a touch and recheck.', createdAt: new Date(l.at.getTime() - 3600_000) })
+        await tx.insert(reviews).values({ workshopId, pieceId: piece.id, strikeId: null, supervisorId: people.supervisor, decision: 'return', comment: 'Third partial flat; lower the fundamental a touch and recheck.', createdAt: new Date(l.at.getTime() - 3600_000) })
       }
       if (stage === 'approved' && l) {
         await tx.insert(reviews).values({ workshopId, pieceId: piece.id, strikeId: l.id, supervisorId: people.supervisor, decision: 'approve', createdAt: l.at })
