@@ -63,10 +63,7 @@ export function thinningAdvice(matches: readonly AdviceMatch[], family: string |
         where = `thin within the outer ${percent(reach)} of the length at each end`
       }
     }
-    const direction = move === 'lower' ? 'lowered' : 'raised'
-    const state = m.cents > 0 ? 'sharp' : 'flat'
-    const sentence = `${capitalise(m.label)} is ${moveCents.toFixed(1)} ¢ ${state}: it must be ${direction} by ${moveCents.toFixed(1)} ¢`
-      + (where ? `; ${where}.` : '.')
+    const sentence = `${capitalise(move)} the ${m.label} by ${moveCents.toFixed(1)} ¢${where ? `: ${where}` : ''}.`
     out.push({ label: m.label, cents: m.cents, moveCents, move, mode, thinAt, sentence })
   })
   return out

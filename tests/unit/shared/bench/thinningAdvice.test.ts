@@ -12,14 +12,14 @@ describe('thinning advice', () => {
     const [a] = thinningAdvice([m('fundamental', 12.4)], 'bar')
     expect(a!.move).toBe('lower')
     expect(a!.moveCents).toBeCloseTo(12.4, 6)
-    expect(a!.sentence).toBe('Fundamental is 12.4 ¢ sharp: it must be lowered by 12.4 ¢; thin near the centre of the bar.')
+    expect(a!.sentence).toBe('Lower the fundamental by 12.4 ¢: thin near the centre of the bar.')
     expect(a!.thinAt[0]!.to).toBe(0.5)
   })
 
   it('a flat fundamental is raised by thinning within the outer ~15 % at each end', () => {
     const [a] = thinningAdvice([m('fundamental', -8)], 'plate')
     expect(a!.move).toBe('raise')
-    expect(a!.sentence).toMatch(/raised by 8\.0 ¢; thin within the outer 15 % of the length at each end\./)
+    expect(a!.sentence).toMatch(/^Raise the fundamental by 8\.0 ¢: thin within the outer 15 % of the length at each end\.$/)
   })
 
   it('a sharp second partial is lowered most at about 0.28 L, not at the centre', () => {
@@ -33,6 +33,6 @@ describe('thinning advice', () => {
     const [a] = thinningAdvice([m('hum', -20, 10)], 'bell')
     expect(a!.mode).toBeNull()
     expect(a!.thinAt).toEqual([])
-    expect(a!.sentence).toBe('Hum is 20.0 ¢ flat: it must be raised by 20.0 ¢.')
+    expect(a!.sentence).toBe('Raise the hum by 20.0 ¢.')
   })
 })
