@@ -48,7 +48,7 @@ export function useStrikeCapture(onRecorded: (samples: Float32Array, sampleRate:
     if (!trigger) return
     const samples = trigger.take()
     trigger = null
-    performance.mark('tw:strike-recorded')
+    performance.mark('tw:strike-recorded', { detail: { seconds: samples.length / mic.sampleRate.value, sampleRate: mic.sampleRate.value } })
     bench.capture = 'listening'
     onRecorded(samples, mic.sampleRate.value)
   }
