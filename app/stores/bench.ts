@@ -43,7 +43,11 @@ export const useBenchStore = defineStore('bench', () => {
   const shown = shallowRef<ShownStrike | null>(null)
   const recordedS = ref(0)
 
+  let restored = false
+  /** Reads the remembered values once, on the client (the server has no localStorage). */
   function restore() {
+    if (restored || typeof localStorage === 'undefined') return
+    restored = true
     const r = recall()
     if (r.setId !== undefined) setId.value = r.setId
     if (r.temperatureC !== undefined) temperatureC.value = r.temperatureC

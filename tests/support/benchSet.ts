@@ -38,5 +38,5 @@ export async function createBenchSet(base: string, fromNote = 'C4', toNote = 'E4
 
 /** The piece as the API gives it (strikes newest first). */
 export async function pieceOf(base: string, token: string, id: string) {
-  return (await call(base, `/api/pieces/${id}`, token)).body as { strikeCount: number, strikes: { id: string }[], stage: string }
+  return (await call(base, `/api/pieces/${id}`, token)).body as { strikeCount: number, strikes: { id: string, temperatureC: number | null, humidityPct: number | null }[], stage: string }
 }

@@ -53,6 +53,9 @@ describe('the Bench', () => {
   it('measures a strike from the microphone and shows the ladder within 0.5 ¢ of the truth', async () => {
     const page = await session.newPage()
     await openBench(page, 'C4')
+    // 20 °C is the template's reference temperature, so the cents are not shifted by it.
+    await page.getByLabel('Temperature (°C)').fill('20')
+    await page.getByLabel('Humidity (%)').fill('45')
     await page.getByTestId('arm').click()
     await page.getByTestId('ladder-row').nth(2).waitFor({ timeout: 40_000 })
     // One row per template partial of the marimba triple template (1 : 4 : 10).
@@ -74,6 +77,7 @@ describe('the Bench', () => {
     expect(await page.getByText(/local workplace-safety rules/).isVisible()).toBe(true)
     const stored = await pieceOf(BASE_URL, bench.token, bench.byNote('C4').id)
     expect(stored.strikeCount).toBe(1)
+    expect(stored.strikes[0]).toMatchObject({ temperatureC: 20, humidityPct: 45 })
     await page.getByTestId('capture-state').filter({ hasText: 'Listening' }).waitFor()
     await screenshot(page, 'bench-desktop')
 
@@ -87,6 +91,18 @@ describe('the Bench', () => {
     expect(small).toEqual([])
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)
     expect(overflow).toBeLessThanOrEqual(0)
+
+    // The conditions are remembered across a reload; the keys send to review and move on.
+    await page.reload()
+    await page.getByTestId('ladder-row').nth(2).waitFor()
+    expect(await page.getByLabel('Temperature (°C)').inputValue()).toBe('20')
+    await page.getByRole('heading', { level: 1 }).click()
+    await page.keyboard.press('r')
+    await page.getByText('C4 is in review.').waitFor()
+    expect((await pieceOf(BASE_URL, bench.token, bench.byNote('C4').id)).stage).toBe('review')
+    await page.keyboard.press('n')
+    await page.waitForURL(url => url.searchParams.get('piece') === bench.byNote('C#4').id)
+    await page.getByTestId('bench-note').filter({ hasText: 'C#4' }).waitFor()
     await page.close()
   })
 
