@@ -58,7 +58,7 @@ async function main() {
   const dir = mkdtempSync(join(tmpdir(), 'tw-bench-speed-'))
   const mic = join(dir, 'strike-C4.wav')
   // 0.6 s lead-in, then a ring longer than the 3 s maximum: every take is a 3 s recording.
-  writeFileSync(mic, benchStrikeWav('C4', { centsByPartial: [3, 0, -14], leadInS: 0.6, ringS: 3.4 }))
+  writeFileSync(mic, benchStrikeWav('C4', { centsByPartial: [3, 0, -14], leadInS: 0.6, ringS: 3.4, sampleRate: 44100 }))
   const browser = await chromium.launch({
     executablePath: '/usr/bin/chromium', headless: true,
     args: ['--no-sandbox', '--disable-gpu', '--use-fake-device-for-media-stream', '--use-fake-ui-for-media-stream', `--use-file-for-fake-audio-capture=${mic}`],

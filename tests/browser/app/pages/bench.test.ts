@@ -17,7 +17,7 @@ const dir = mkdtempSync(join(tmpdir(), 'tw-bench-'))
 beforeAll(async () => {
   bench = await createBenchSet(BASE_URL)
   const micFile = join(dir, 'fake-mic-C4.wav')
-  writeFileSync(micFile, benchStrikeWav('C4', { centsByPartial: [TRUTH.fundamental, TRUTH.second, TRUTH.third] }))
+  writeFileSync(micFile, benchStrikeWav('C4', { centsByPartial: [TRUTH.fundamental, TRUTH.second, TRUTH.third], sampleRate: 44100 }))
   session = await launch(['--use-fake-device-for-media-stream', '--use-fake-ui-for-media-stream', `--use-file-for-fake-audio-capture=${micFile}`])
 })
 afterAll(async () => {
