@@ -57,7 +57,8 @@ export function useMicrophone() {
     deviceLabel.value = track?.label ?? ''
     // Run the graph at the microphone's own rate, so no resampling sits between it and the file.
     try {
-      context = new AudioContext(settings.sampleRate ? { sampleRate: settings.sampleRate } : {})
+      // 'playback': larger render buffers, more headroom against an underrun (nothing is monitored live).
+      context = new AudioContext({ latencyHint: 'playback', ...(settings.sampleRate ? { sampleRate: settings.sampleRate } : {}) })
     }
     catch {
       context = new AudioContext()

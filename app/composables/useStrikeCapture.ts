@@ -17,6 +17,7 @@ export function useStrikeCapture(onRecorded: (samples: Float32Array, sampleRate:
   const micProblem = ref<string | null>(null)
   const rough = ref<{ frequencyHz: number, note: string, cents: number } | null>(null)
   const thresholdDb = ref<number | null>(null)
+  const notice = ref<string | null>(null)
   let trigger: StrikeTrigger | null = null
   const recent = new Float32Array(PITCH_SAMPLES)
   let blocks = 0
@@ -47,7 +48,15 @@ export function useStrikeCapture(onRecorded: (samples: Float32Array, sampleRate:
   function finish() {
     if (!trigger) return
     const samples = trigger.take()
+    const dropouts = trigger.dropouts
     trigger = null
+    if (dropouts > 0) {
+      // A take with a gap would read off-pitch: not measured, armed again at once.
+      notice.value = 'The recording dropped out for a moment (the computer was busy), so it was not measured. Armed again: strike once more.'
+      void arm()
+      return
+    }
+    notice.value = null
     performance.mark('tw:strike-recorded', { detail: { seconds: samples.length / mic.sampleRate.value, sampleRate: mic.sampleRate.value } })
     bench.capture = 'listening'
     onRecorded(samples, mic.sampleRate.value)
@@ -96,5 +105,5 @@ export function useStrikeCapture(onRecorded: (samples: Float32Array, sampleRate:
     if (trigger?.state === 'done') finish()
   }
 
-  return { mic, micProblem, rough, thresholdDb, arm, disarm, startManual, stopManual }
+  return { mic, micProblem, notice, rough, thresholdDb, arm, disarm, startManual, stopManual }
 }

@@ -29,6 +29,10 @@ export const TRIGGER_DEFAULTS: Omit<TriggerSettings, 'sampleRate'> = {
 
 export type TriggerState = 'waiting' | 'recording' | 'done'
 
+/** Exact zeros in a row that count as a dropout, and the level (−60 dBFS) the sound must have had just before. */
+const DROPOUT_SAMPLES = 32
+const DROPOUT_LEVEL = 0.001
+
 const toDb = (x: number) => 20 * Math.log10(Math.max(x, 1e-10))
 
 /**
@@ -52,6 +56,14 @@ export class StrikeTrigger {
   private tailRms: number[] = []
   /** Started by hand: then only a stop or the maximum length ends it. */
   private manual = false
+  /**
+   * Gaps of digital silence inside the ringing sound: the audio path lost input (an
+   * underrun while the computer was busy). A microphone never gives a run of exact
+   * zeros while something rings, and such a gap shifts the measured pitch.
+   */
+  dropouts = 0
+  private zeroRun = 0
+  private recentPeak = 0
 
   constructor(settings: Partial<TriggerSettings> & { sampleRate: number }) {
     this.settings = { ...TRIGGER_DEFAULTS, ...settings }
@@ -105,6 +117,7 @@ export class StrikeTrigger {
       return this.state
     }
     this.append(block)
+    this.scanDropouts(block)
     this.tailRms.push(rmsDb)
     const tailBlocks = Math.max(1, Math.round((0.1 * this.settings.sampleRate) / Math.max(1, block.length)))
     if (this.tailRms.length > tailBlocks) this.tailRms.shift()
@@ -126,6 +139,21 @@ export class StrikeTrigger {
       offset += part.length
     }
     return out
+  }
+
+  private scanDropouts(block: Float32Array) {
+    for (let i = 0; i < block.length; i++) {
+      const v = block[i]!
+      if (v === 0) {
+        if (++this.zeroRun === DROPOUT_SAMPLES && this.recentPeak > DROPOUT_LEVEL) this.dropouts++
+      }
+      else {
+        this.zeroRun = 0
+        // Peak of the last stretch of sound, decaying so a gap long after the ring ended is not counted.
+        const a = v < 0 ? -v : v
+        this.recentPeak = Math.max(a, this.recentPeak * 0.9995)
+      }
+    }
   }
 
   private trackFloor(rmsDb: number) {

@@ -108,7 +108,15 @@ describe('the Bench', () => {
 
   it('maps three dropped files to their pieces by the note in the name and measures each', async () => {
     const page = await session.newPage()
-    await openBench(page, 'E4')
+    // This time through the picker: set first, then the piece.
+    await signInAs(page, 'bench@tonewright.test')
+    await page.goto(`${BASE_URL}/bench`)
+    await page.getByRole('button', { name: new RegExp(bench.serial) }).click()
+    await page.getByTestId('pick-piece').nth(4).waitFor()
+    await screenshot(page, 'bench-picker')
+    await page.locator('[data-testid="pick-piece"][data-note="E4"]').click()
+    await page.waitForURL(url => url.searchParams.get('piece') === bench.byNote('E4').id)
+    await page.getByTestId('bench-note').filter({ hasText: 'E4' }).waitFor()
     await dropFiles(page, [
       { name: 'C4.wav', bytes: benchStrikeWav('C4', { centsByPartial: [1, 0, 0], seed: 2 }) },
       { name: 'C#4-second-try.wav', bytes: benchStrikeWav('C#4', { centsByPartial: [-6, 2, 0], seed: 3 }) },

@@ -58,4 +58,20 @@ describe('automatic strike capture', () => {
     expect(trigger.state).toBe('done')
     expect(trigger.take().length).toBeGreaterThanOrEqual(RATE / 2)
   })
+
+  it('counts a gap of digital silence inside the ring as a dropout, and none in a clean take', () => {
+    const clean = synthStrike([{ frequencyHz: 262, amplitudeDb: -8, decayDbPerS: 12 }], { sampleRate: RATE, durationS: 4, onsetS: 0.6, noiseDb: -78, seed: 8 })
+    const plain = new StrikeTrigger({ sampleRate: RATE })
+    feed(plain, clean)
+    expect(plain.state).toBe('done')
+    expect(plain.dropouts).toBe(0)
+    // 10 ms of exact zeros at 1.4 s, as an audio path that underran delivers them.
+    const gapped = new Float64Array(clean.length + 480)
+    const at = Math.round(2.0 * RATE)
+    gapped.set(clean.subarray(0, at), 0)
+    gapped.set(clean.subarray(at), at + 480)
+    const trigger = new StrikeTrigger({ sampleRate: RATE })
+    feed(trigger, gapped)
+    expect(trigger.dropouts).toBe(1)
+  })
 })
