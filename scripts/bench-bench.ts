@@ -78,6 +78,7 @@ async function main() {
     const render: number[] = []
     const lengths: number[] = []
     let rate = 0
+    let dropped = 0
     for (let i = 0; i < STRIKES; i++) {
       await page.evaluate(() => performance.clearMarks())
       await page.getByTestId('arm').click()
@@ -85,12 +86,13 @@ async function main() {
       // A string, not a function: tsx would wrap a function's inner helpers in its own __name().
       const t = await page.evaluate(`(() => {
         const m = n => performance.getEntriesByName(n)[0]
-        return { recorded: m('tw:strike-recorded').startTime, measured: m('tw:strike-measured').startTime, drawn: m('tw:ladder-drawn').startTime, take: m('tw:strike-recorded').detail }
-      })()`) as { recorded: number, measured: number, drawn: number, take: { seconds: number, sampleRate: number } }
+        return { dropped: performance.getEntriesByName('tw:take-dropped').length, recorded: m('tw:strike-recorded').startTime, measured: m('tw:strike-measured').startTime, drawn: m('tw:ladder-drawn').startTime, take: m('tw:strike-recorded').detail }
+      })()`) as { dropped: number, recorded: number, measured: number, drawn: number, take: { seconds: number, sampleRate: number } }
       total.push(t.drawn - t.recorded)
       server.push(t.measured - t.recorded)
       render.push(t.drawn - t.measured)
       lengths.push(t.take.seconds)
+      dropped += t.dropped
       rate = t.take.sampleRate
       await page.getByTestId('capture-state').filter({ hasText: 'Listening' }).waitFor()
       process.stdout.write(`strike ${i + 1}: ${(t.drawn - t.recorded).toFixed(0)} ms\n`)
@@ -102,6 +104,7 @@ async function main() {
     console.log(`  end of recording → ladder drawn: median ${ms(median(total))} (min ${ms(Math.min(...total))}, max ${ms(Math.max(...total))}); goal < 500 ms: ${median(total) < 500 ? 'met' : 'NOT met'}`)
     console.log(`    encode + upload + analysis + save: median ${ms(median(server))}`)
     console.log(`    render of the result:              median ${ms(median(render))}`)
+    console.log(`  takes discarded for an input dropout (re-armed by themselves): ${dropped}`)
     console.log(`  machine: ${cpus().length} cores, load average ${loadavg().map(l => l.toFixed(1)).join(' / ')} (1 / 5 / 15 min); a loaded machine slows the server's share`)
   }
   finally {

@@ -50,15 +50,16 @@ export function useStrikeCapture(onRecorded: (samples: Float32Array, sampleRate:
     const samples = trigger.take()
     const dropouts = trigger.dropouts
     trigger = null
+    bench.capture = 'listening'
     if (dropouts > 0) {
       // A take with a gap would read off-pitch: not measured, armed again at once.
+      performance.mark('tw:take-dropped')
       notice.value = 'The recording dropped out for a moment (the computer was busy), so it was not measured. Armed again: strike once more.'
       void arm()
       return
     }
     notice.value = null
     performance.mark('tw:strike-recorded', { detail: { seconds: samples.length / mic.sampleRate.value, sampleRate: mic.sampleRate.value } })
-    bench.capture = 'listening'
     onRecorded(samples, mic.sampleRate.value)
   }
 
