@@ -199,7 +199,7 @@ export async function certificateDocument(content: CertificateContent, status: s
         table: {
           headerRows: 1,
           dontBreakRows: true,
-          widths: [28, 60, '*', 58, 58, 50, 36, 44],
+          widths: [28, 58, '*', 58, 58, 50, 42, 40],
           body: [
             [
               { text: 'Note', style: 'th' },

@@ -31,7 +31,7 @@ export function verificationUrl(siteUrl: string, code: string) {
 
 async function nextNumber(tx: Executor, workshopId: string, year: number) {
   const prefix = `TW-${year}-`
-  const [row] = await tx.select({ n: sql<number>`coalesce(max(substring(${certificates.number} from ${prefix.length + 1})::int), 0)` })
+  const [row] = await tx.select({ n: sql<number>`coalesce(max(split_part(${certificates.number}, '-', 3)::int), 0)` })
     .from(certificates).where(and(eq(certificates.workshopId, workshopId), like(certificates.number, `${prefix}%`)))
   return `${prefix}${String((row?.n ?? 0) + 1).padStart(4, '0')}`
 }

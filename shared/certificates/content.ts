@@ -100,7 +100,7 @@ const signed = (n: number) => (n < 0 ? `−${Math.abs(n)}` : `+${n}`)
 
 /** The method in two sentences: what is measured and how. */
 export function methodText(engineVersions: string[]): string {
-  return `Each piece was struck on the bench and recorded, and the recording was analysed by the Tonewright measurement engine (${engineVersions.join(', ')}): `
+  return `Each piece was struck on the bench and recorded, and the recording was analysed by the Tonewright measurement engine (version ${engineVersions.join(', ')}): `
     + 'after the attack transient, a zero-padded short-time Fourier transform with a Blackman–Harris window finds the partials, whose frequencies are refined by parabolic interpolation and a long-window fit. '
     + 'Each tuned partial is compared with its target, the ratio of the piece\'s template times the target fundamental from the reference pitch, as a deviation in cents, 1200 · log2(measured ÷ target).'
 }
