@@ -135,7 +135,7 @@ export async function listCertificates(db: Executor, workshopId: string, setId?:
   const ids = rows.map(r => r.id)
   const mails = ids.length
     ? await db.select({ certificateId: mailMessages.certificateId, id: mailMessages.id, to: mailMessages.to, status: mailMessages.status, attempts: mailMessages.attempts, lastError: mailMessages.lastError, createdAt: mailMessages.createdAt, sentAt: mailMessages.sentAt })
-      .from(mailMessages).where(and(eq(mailMessages.workshopId, workshopId), inArray(mailMessages.certificateId, ids))).orderBy(desc(mailMessages.createdAt))
+        .from(mailMessages).where(and(eq(mailMessages.workshopId, workshopId), inArray(mailMessages.certificateId, ids))).orderBy(desc(mailMessages.createdAt))
     : []
   return rows.map(r => ({ ...r, mails: mails.filter(m => m.certificateId === r.id) }))
 }

@@ -65,6 +65,21 @@ export interface CertificateContent {
   scope: string
 }
 
+/** The set's columns a certificate reads (kept here so shared/ does not import the database schema). */
+interface InstrumentSetFields {
+  name: string
+  model: string
+  serial: string
+  fromNote: string
+  toNote: string
+  chromatic: boolean
+  buyerName: string
+  buyerOrganisation: string
+  buyerEmail: string
+  referenceHz: number
+  temperament: string
+}
+
 export interface ContentInput {
   number: string
   verificationUrl: string
@@ -72,14 +87,14 @@ export interface ContentInput {
   signedAt: Date
   signer: { name: string, role: string }
   workshop: { name: string, address: string }
-  set: {
-    name: string, model: string, serial: string, fromNote: string, toNote: string, chromatic: boolean
-    buyerName: string, buyerOrganisation: string, buyerEmail: string, referenceHz: number, temperament: string
-  }
+  set: Pick<InstrumentSetFields, 'name' | 'model' | 'serial' | 'fromNote' | 'toNote' | 'chromatic' | 'buyerName' | 'buyerOrganisation' | 'buyerEmail' | 'referenceHz' | 'temperament'>
   scrappedCount: number
   lots: { id: string, code: string, material: string, species: string }[]
   pieces: {
-    position: number, note: string, targetHz: number, lotId: string | null
+    position: number
+    note: string
+    targetHz: number
+    lotId: string | null
     template: { name: string, version: number, referenceTemperatureC: number, temperatureCoefficientCentsPerC: number }
     strike: { temperatureC: number | null, humidityPct: number | null, verdict: string | null, engineVersion: string, matches: PartialMatch[] }
     overrideReason: string | null

@@ -1,5 +1,4 @@
 import { VerifyParams } from '#shared/schemas/certificates'
-import { parseWith } from '#shared/validation'
 
 /** GET /api/verify/:code: public; a certificate's status and summary, the same time for a known and an unknown code. */
 export default defineEventHandler(async (event) => {

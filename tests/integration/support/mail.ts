@@ -47,7 +47,10 @@ export function attachmentPath(message: Caught, index = 0) {
 function portOpen(port: number) {
   return new Promise<boolean>((resolve) => {
     const socket = connect(port, '127.0.0.1')
-    socket.once('connect', () => { socket.destroy(); resolve(true) })
+    socket.once('connect', () => {
+      socket.destroy()
+      resolve(true)
+    })
     socket.once('error', () => resolve(false))
   })
 }
