@@ -67,6 +67,7 @@ export default defineNuxtConfig({
           workshopName: 'string',
           role: '\'owner\' | \'supervisor\' | \'benchmaker\' | \'office\'',
           workshops: '{ id: string, name: string, role: string }[]',
+          mustChangePassword: 'boolean',
         },
       },
     },

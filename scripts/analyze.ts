@@ -143,7 +143,19 @@ async function main(): Promise<number> {
   }
   if (size > LIMITS.maxBytes) throw new AnalysisError(413, 'too_large', 'The file is larger than 50 MB; record a single strike of at most 60 seconds.')
   const bytes = new Uint8Array(await readFile(file))
-  const result = await analyzeStrike(bytes, options)
+  // Some decoders log every bad frame of a damaged file to the console; the CLI promises
+  // one sentence on stderr, so their chatter is held back while decoding.
+  const { error: consoleError, warn: consoleWarn } = console
+  console.error = () => {}
+  console.warn = () => {}
+  let result: AnalysisResult
+  try {
+    result = await analyzeStrike(bytes, options)
+  }
+  finally {
+    console.error = consoleError
+    console.warn = consoleWarn
+  }
   process.stdout.write(json ? `${JSON.stringify(result, null, 2)}\n` : `${render(result, file)}\n`)
   return 0
 }

@@ -1,6 +1,7 @@
 // Seeds the invented demo workshop once (skipped when its owner already exists).
 import { createDatabase } from '../server/database/client'
 import { seedDemo } from '../server/database/seeds/demo'
+import { fileStorage } from '../server/utils/storage'
 
 const url = process.env.NUXT_DATABASE_URL
 if (!url) {
@@ -9,8 +10,9 @@ if (!url) {
 }
 const { db, client } = createDatabase(url, { max: 2 })
 try {
-  const result = await seedDemo(db)
-  console.log(result.created ? `Demo workshop "${result.workshopName}" seeded.` : 'Demo workshop already present.')
+  const started = Date.now()
+  const result = await seedDemo(db, fileStorage(process.env.NUXT_STORAGE_DIR ?? '.data/storage'))
+  console.log(result.created ? `Demo workshop "${result.workshopName}" seeded in ${((Date.now() - started) / 1000).toFixed(1)} s.` : 'Demo workshop already present.')
 }
 catch (error) {
   console.error(`The demo data could not be seeded: ${(error as Error).message}`)

@@ -57,14 +57,14 @@ log "Type-checking…"
 npx nuxt typecheck
 log "Linting…"
 npx eslint .
+mkdir -p "$ROOT/test-results" && rm -f "$ROOT"/test-results/*.json
 log "Unit tests…"
-npx vitest run --project unit
+npx vitest run --project unit --reporter=default --reporter=json --outputFile.json=test-results/unit.json
 
 log "Starting the mail catcher on 127.0.0.1:$SMTP_PORT…"
 mail_catcher_start "$SMTP_PORT" "$MAIL_DIR"
 
 log "Starting the built server on 127.0.0.1:$APP_PORT…"
-mkdir -p "$ROOT/test-results"
 HOST=127.0.0.1 PORT="$APP_PORT" NITRO_HOST=127.0.0.1 NITRO_PORT="$APP_PORT" NODE_ENV=production \
   node .output/server/index.mjs >"$ROOT/test-results/server.log" 2>&1 &
 APP_PID=$!
@@ -74,7 +74,14 @@ export TW_BASE_URL="http://127.0.0.1:$APP_PORT"
 export TW_PG_DIR="$PG_DIR" TW_PG_PORT="$DB_PORT"
 export TW_MAIL_DIR="$MAIL_DIR" TW_SMTP_PORT="$SMTP_PORT"
 log "Integration tests…"
-npx vitest run --project integration
+npx vitest run --project integration --reporter=default --reporter=json --outputFile.json=test-results/integration.json
 log "Browser tests…"
-npx vitest run --project browser
+npx vitest run --project browser --reporter=default --reporter=json --outputFile.json=test-results/browser.json
+# One plain closing line over the three suites.
+node -e 'let p = 0, f = 0, s = 0
+for (const n of ["unit", "integration", "browser"]) {
+  const r = require(`./test-results/${n}.json`)
+  p += r.numPassedTests; f += r.numFailedTests; s += r.numPendingTests + (r.numTodoTests ?? 0)
+}
+console.log(`${p} passed, ${f} failed, ${s} skipped`)'
 log "All checks passed."

@@ -1,4 +1,6 @@
 import { createError } from 'h3'
+import type { ZodTypeAny, z } from 'zod'
+import { plainSentence } from '../../shared/validation'
 
 /**
  * The one status policy: 400 bad input, 401 not signed in, 403 role may not,
@@ -21,4 +23,11 @@ const STATUS_TEXT: Record<number, string> = {
   422: 'Unprocessable Entity',
   429: 'Too Many Requests',
   503: 'Service Unavailable',
+}
+
+/** Validates data that did not come through readValidatedBody (e.g. multipart fields): 400 with a plain sentence. */
+export function validateInput<S extends ZodTypeAny>(schema: S, data: unknown): z.infer<S> {
+  const result = schema.safeParse(data)
+  if (!result.success) fail(400, plainSentence(result.error))
+  return result.data
 }

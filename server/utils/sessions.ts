@@ -1,5 +1,5 @@
 import { createHmac, randomBytes } from 'node:crypto'
-import { and, eq, gt, lt } from 'drizzle-orm'
+import { and, eq, gt, lt, sql } from 'drizzle-orm'
 import { memberships, sessions, users, workshops } from '../database/schema'
 import type { Executor } from '../database/client'
 import type { Role } from '../../shared/auth/roles'
@@ -31,6 +31,7 @@ export interface SessionMember {
   userId: string
   email: string
   name: string
+  mustChangePassword: boolean
   workshopId: string | null
   workshopName: string | null
   role: Role | null
@@ -42,23 +43,22 @@ export interface SessionMember {
  * A workshop the user is not a member of gives role null.
  */
 export async function findSessionMember(db: Executor, token: string, secret: string, workshopOverride?: string): Promise<SessionMember | null> {
+  // One round trip per request: session, user and (when there is one) the membership.
+  const workshopId = workshopOverride ? sql`${workshopOverride}::uuid` : sql`${sessions.workshopId}`
   const [row] = await db
-    .select({ sessionId: sessions.id, userId: users.id, email: users.email, name: users.name, workshopId: sessions.workshopId })
+    .select({
+      sessionId: sessions.id, userId: users.id, email: users.email, name: users.name,
+      mustChangePassword: users.mustChangePassword, workshopId: sql<string | null>`${workshopId}`,
+      workshopName: workshops.name, role: memberships.role,
+    })
     .from(sessions)
     .innerJoin(users, eq(users.id, sessions.userId))
+    .leftJoin(memberships, and(eq(memberships.userId, users.id), sql`${memberships.workshopId} = ${workshopId}`))
+    .leftJoin(workshops, eq(workshops.id, memberships.workshopId))
     .where(and(eq(sessions.tokenHash, hashToken(token, secret)), gt(sessions.expiresAt, new Date())))
     .limit(1)
   if (!row) return null
-  const workshopId = workshopOverride ?? row.workshopId
-  if (!workshopId) return { ...row, workshopId: null, workshopName: null, role: null }
-  const [member] = await db
-    .select({ role: memberships.role, workshopName: workshops.name })
-    .from(memberships)
-    .innerJoin(workshops, eq(workshops.id, memberships.workshopId))
-    .where(and(eq(memberships.userId, row.userId), eq(memberships.workshopId, workshopId)))
-    .limit(1)
-  if (!member) return { ...row, workshopId, workshopName: null, role: null }
-  return { ...row, workshopId, workshopName: member.workshopName, role: member.role }
+  return { ...row, workshopName: row.workshopName ?? null, role: row.role ?? null }
 }
 
 export async function deleteSession(db: Executor, token: string, secret: string) {

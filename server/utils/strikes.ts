@@ -82,15 +82,16 @@ export async function recordStrike(
         engineVersion: analysis.engineVersion, analysis, templateVersionId: template.id,
         fundamentalHz: analysis.fundamentalHz, worstCents: worst, verdict,
       }).returning()
-      // A returned piece is being tuned again as soon as it is struck.
-      const stage = current.stage === 'rework' ? 'tuning' : current.stage
+      // A blank or returned piece is being tuned as soon as it is struck; a strike while
+      // roughing or in review leaves the stage alone.
+      const stage = current.stage === 'rework' || current.stage === 'blank' ? 'tuning' : current.stage
       await tx.update(pieces).set({
         strikeCount: sql`${pieces.strikeCount} + 1`, latestStrikeId: strikeId, latestVerdict: verdict,
         latestWorstCents: worst, latestFundamentalHz: analysis.fundamentalHz, latestStrikeAt: strike!.createdAt,
         stage, assigneeId: piece.assigneeId ?? (member.role === 'benchmaker' ? member.userId : null), updatedAt: new Date(),
       }).where(eq(pieces.id, pieceId))
       if (stage !== current.stage) {
-        await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.stage', subjectType: 'piece', subjectId: pieceId, fromState: current.stage, toState: stage, reason: 'struck after rework' })
+        await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.stage', subjectType: 'piece', subjectId: pieceId, fromState: current.stage, toState: stage, reason: 'struck' })
       }
       return { ...strike!, analysis }
     })

@@ -21,27 +21,29 @@ export const RatioTemplateSchema = z.object({
   temperatureCoefficientCentsPerC: temperatureCoefficientCentsPerC.optional(),
 })
 
+/** The fields of AnalyzeOptions as a plain object schema (to extend or pick from). */
+export const AnalyzeOptionsObjectSchema = z.object({
+  note: z
+    .string()
+    .refine(n => parseNoteName(n) !== null, { message: 'The note must be a note name such as C4, F#3 or Bb2.' })
+    .optional(),
+  targetHz: finite('The target frequency').min(10, 'The target frequency must be between 10 and 20000 Hz.').max(20000, 'The target frequency must be between 10 and 20000 Hz.').optional(),
+  referenceHz: finite('The reference pitch').min(400, 'The reference pitch must be between 400 and 480 Hz.').max(480, 'The reference pitch must be between 400 and 480 Hz.').optional(),
+  ratios: z.array(TemplatePartialSpecSchema.shape.ratio).min(1, 'Give at least one ratio.').max(32, 'Give at most 32 ratios.').optional(),
+  tolerances: z.array(TemplatePartialSpecSchema.shape.toleranceCents).min(1, 'Give at least one tolerance.').optional(),
+  labels: z.array(TemplatePartialSpecSchema.shape.label).optional(),
+  required: z.array(z.boolean()).optional(),
+  searchWindowCents: searchWindowCents.optional(),
+  referenceTemperatureC: referenceTemperatureC.optional(),
+  temperatureCoefficientCentsPerC: temperatureCoefficientCentsPerC.optional(),
+  temperatureC: finite('The bench temperature').min(-40, 'The bench temperature must be between −40 and 80 °C.').max(80, 'The bench temperature must be between −40 and 80 °C.').optional(),
+  template: RatioTemplateSchema.optional(),
+  attackSkipS: finite('The attack skip').min(0, 'The attack skip must be between 0 and 0.5 s.').max(0.5, 'The attack skip must be between 0 and 0.5 s.').optional(),
+  windowS: finite('The window length').min(0.01, 'The window length must be between 0.01 and 2 s.').max(2, 'The window length must be between 0.01 and 2 s.').optional(),
+})
+
 /** Options of one analysis, validated; every message is one plain sentence. */
-export const AnalyzeOptionsSchema = z
-  .object({
-    note: z
-      .string()
-      .refine(n => parseNoteName(n) !== null, { message: 'The note must be a note name such as C4, F#3 or Bb2.' })
-      .optional(),
-    targetHz: finite('The target frequency').min(10, 'The target frequency must be between 10 and 20000 Hz.').max(20000, 'The target frequency must be between 10 and 20000 Hz.').optional(),
-    referenceHz: finite('The reference pitch').min(400, 'The reference pitch must be between 400 and 480 Hz.').max(480, 'The reference pitch must be between 400 and 480 Hz.').optional(),
-    ratios: z.array(TemplatePartialSpecSchema.shape.ratio).min(1, 'Give at least one ratio.').max(32, 'Give at most 32 ratios.').optional(),
-    tolerances: z.array(TemplatePartialSpecSchema.shape.toleranceCents).min(1, 'Give at least one tolerance.').optional(),
-    labels: z.array(TemplatePartialSpecSchema.shape.label).optional(),
-    required: z.array(z.boolean()).optional(),
-    searchWindowCents: searchWindowCents.optional(),
-    referenceTemperatureC: referenceTemperatureC.optional(),
-    temperatureCoefficientCentsPerC: temperatureCoefficientCentsPerC.optional(),
-    temperatureC: finite('The bench temperature').min(-40, 'The bench temperature must be between −40 and 80 °C.').max(80, 'The bench temperature must be between −40 and 80 °C.').optional(),
-    template: RatioTemplateSchema.optional(),
-    attackSkipS: finite('The attack skip').min(0, 'The attack skip must be between 0 and 0.5 s.').max(0.5, 'The attack skip must be between 0 and 0.5 s.').optional(),
-    windowS: finite('The window length').min(0.01, 'The window length must be between 0.01 and 2 s.').max(2, 'The window length must be between 0.01 and 2 s.').optional(),
-  })
+export const AnalyzeOptionsSchema = AnalyzeOptionsObjectSchema
   .strict()
   .superRefine((o, ctx) => {
     const count = o.ratios?.length ?? 1

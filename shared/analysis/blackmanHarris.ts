@@ -19,10 +19,22 @@ export function blackmanHarris(length: number): Float64Array {
   const [a0, a1, a2, a3] = BLACKMAN_HARRIS_COEFFICIENTS
   const w = new Float64Array(length)
   const step = (2 * Math.PI) / length
+  const cosStep = Math.cos(step)
+  const sinStep = Math.sin(step)
+  let c = 1
+  let sn = 0
   for (let n = 0; n < length; n++) {
-    // cos 2x and cos 3x from cos x (Chebyshev polynomials): one cosine per sample.
-    const c = Math.cos(step * n)
+    // cos(n·step) by rotating a phasor (re-seeded exactly every 1024 samples so rounding
+    // cannot build up); cos 2x and cos 3x from cos x (Chebyshev polynomials). Math.cos
+    // per sample costs more than the rest of a long-window refinement.
+    if ((n & 1023) === 0) {
+      c = Math.cos(step * n)
+      sn = Math.sin(step * n)
+    }
     w[n] = a0 - a1 * c + a2 * (2 * c * c - 1) - a3 * c * (4 * c * c - 3)
+    const next = c * cosStep - sn * sinStep
+    sn = sn * cosStep + c * sinStep
+    c = next
   }
   return w
 }

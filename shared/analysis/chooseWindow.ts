@@ -29,10 +29,11 @@ export interface WindowNeeds {
  * Window length from the partials to resolve: a window of T seconds has a main lobe
  * MAIN_LOBE_BINS / T Hz wide, which must be narrower than the closest spacing (and than
  * 2 × the lowest partial, its distance from its own mirror image), with a 25 % margin.
- * Kept between 30 ms and min(0.5 s, span / 3) so a track has frames enough for a decay
- * fit; closer partials than that are found later by the long-window refinement.
- * FFT zero-padded to the next power of two ≥ 2 × the window; hop T / 4, but never more
- * than ~100 frames over the span (the decay fit needs no more, and speed matters).
+ * Kept between max(30 ms, span / 100) and min(0.5 s, span / 3) so a track has frames
+ * enough for a decay fit; closer partials than that are found later by the long-window
+ * refinement. FFT zero-padded to the next power of two ≥ 2 × the window; hop T / 4, but
+ * never more than ~100 frames over the span (the decay fit needs no more, and speed
+ * matters) — the hop is therefore at most one window.
  */
 export function chooseWindow(needs: WindowNeeds, sampleRate: number): WindowChoice {
   if (!(sampleRate > 0) || !(needs.spanS > 0)) throw new RangeError('chooseWindow needs a positive rate and span')
@@ -43,7 +44,8 @@ export function chooseWindow(needs: WindowNeeds, sampleRate: number): WindowChoi
     0.03,
   )
   const longest = Math.min(0.5, needs.spanS / 3)
-  const windowS = needs.windowS ?? Math.min(needed, longest)
+  // Never shorter than the hop (span / 100), so consecutive frames always overlap or touch.
+  const windowS = needs.windowS ?? Math.min(Math.max(needed, needs.spanS / 100), longest)
   const windowLength = Math.max(64, Math.min(Math.round(windowS * sampleRate), Math.floor(needs.spanS * sampleRate)))
   const fftSize = nextPowerOfTwo(2 * windowLength)
   const hop = Math.max(1, Math.round(Math.max(windowLength / 4, (needs.spanS * sampleRate) / 100)))

@@ -19,7 +19,12 @@ export type {
 export { analyzeStrike } from './analyzeStrike'
 export { analyzeSamples } from './analyzeSamples'
 export { analyzeChannels } from './analyzeChannels'
-export { AnalyzeOptionsSchema, RatioTemplateSchema, TemplatePartialSpecSchema } from './analyzeOptionsSchema'
+export {
+  AnalyzeOptionsObjectSchema,
+  AnalyzeOptionsSchema,
+  RatioTemplateSchema,
+  TemplatePartialSpecSchema,
+} from './analyzeOptionsSchema'
 export { parseAnalyzeOptions, validateAnalyzeOptions } from './parseAnalyzeOptions'
 
 // Pitch.
@@ -44,6 +49,7 @@ export { shortTimePeaks, type SpectralPeak, type SpectrumFrame, type ShortTimeSe
 export { linkTracks, type TrackPoint, type LinkSettings } from './linkTracks'
 export { measureTrack, type TrackContext, type TrackMeasurement } from './measureTrack'
 export { detectBeat, type BeatSettings } from './detectBeat'
+export { separatePair, type SeparatedPair } from './separatePair'
 export { resolveTarget, type ResolvedTarget } from './resolveTarget'
 export { resolveTemplate, defaultPartialLabel, TEMPLATE_DEFAULTS } from './resolveTemplate'
 export { matchTemplate } from './matchTemplate'
@@ -52,9 +58,11 @@ export { guidanceLines } from './guidanceLines'
 
 // Numerical building blocks.
 export { blackmanHarris, BLACKMAN_HARRIS_COEFFICIENTS } from './blackmanHarris'
+export { windowSpan, type WindowedSpan } from './windowSpan'
 export { realFft } from './realFft'
 export { directDft } from './directDft'
 export { dtftAt, type Complex } from './dtftAt'
+export { dtftPowers3 } from './dtftPowers3'
 export { refinePeak, type RefinedPeak } from './refinePeak'
 export { parabolicPeak, type ParabolicVertex } from './parabolicPeak'
 export { bandNoiseFloor } from './bandNoiseFloor'

@@ -1,11 +1,12 @@
-import { blackmanHarris } from './blackmanHarris'
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import { detectBeat } from './detectBeat'
 import { dtftPowers3 } from './dtftPowers3'
 import { fitLine } from './fitLine'
 import type { TrackPoint } from './linkTracks'
 import { refinePeak } from './refinePeak'
+import { separatePair } from './separatePair'
 import type { MeasuredPartial } from './types'
+import { windowSpan } from './windowSpan'
 
 export interface TrackContext {
   onsetIndex: number
@@ -34,7 +35,8 @@ export interface TrackMeasurement extends MeasuredPartial {
  * window over the track's span. The amplitude divides |X(f)| by Σ w[n]·e^{−α(t_n − t_onset)},
  * the gain of the window for a partial decaying at the fitted rate α (Np/s), which gives
  * the sinusoid's amplitude at the onset directly. When the envelope beats, the long
- * spectrum around the track is scanned for a close pair, which is reported as two partials.
+ * spectrum around the track is scanned for a close pair, which is reported as two partials
+ * whose envelopes are separated by separatePair.
  * Returns zero, one or two partials.
  */
 export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleRate: number, context: TrackContext): TrackMeasurement[] {
@@ -68,17 +70,8 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   )
   const length = spanEnd - spanStart
   if (length < 32) return []
-  const window = blackmanHarris(length)
-  const windowed = new Float64Array(length)
   const alpha = (decayDbPerS * Math.LN10) / 20
-  let gain = 0
-  let envelope = Math.exp((-alpha * (spanStart - context.onsetIndex)) / sampleRate)
-  const perSample = Math.exp(-alpha / sampleRate)
-  for (let n = 0; n < length; n++) {
-    windowed[n] = signal[spanStart + n]! * window[n]!
-    gain += window[n]! * envelope
-    envelope *= perSample
-  }
+  const { windowed, decayingGain: gain } = windowSpan(signal, spanStart, length, alpha / sampleRate, context.onsetIndex)
   const binHz = sampleRate / length
 
   const common = {
@@ -98,7 +91,20 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     const pair = findClosePair(windowed, sampleRate, coarseHz, ((MAIN_LOBE_BINS / 2) * sampleRate) / context.windowLength, binHz)
     if (pair) {
       const beatHz = Math.abs(pair[1].frequencyHz - pair[0].frequencyHz)
-      return pair.map(peak => ({ ...common, frequencyHz: peak.frequencyHz, amplitudeDb: amplitudeDb(peak.magnitude), beatHz }))
+      const separated = separatePair(signal, sampleRate, spanStart, spanEnd, context.onsetIndex, pair[0].frequencyHz, pair[1].frequencyHz)
+      return pair.map((peak, k) => {
+        if (!separated) return { ...common, frequencyHz: peak.frequencyHz, amplitudeDb: amplitudeDb(peak.magnitude), beatHz }
+        const decay = separated.decayDbPerS[k]!
+        return {
+          ...common,
+          frequencyHz: peak.frequencyHz,
+          amplitudeDb: 20 * Math.log10(Math.max(separated.amplitude[k]!, 1e-12)),
+          decayDbPerS: decay,
+          t60S: decay > 0 ? 60 / decay : null,
+          r2: separated.r2[k]!,
+          beatHz,
+        }
+      })
     }
   }
   const peak = refinePeak(windowed, sampleRate, coarseHz)

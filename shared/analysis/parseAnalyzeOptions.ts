@@ -31,7 +31,8 @@ const FIELD_NAMES: Record<string, string> = {
  * Turn string fields (a multipart form or command-line flags) into validated
  * AnalyzeOptions. Empty fields count as absent; lists are comma-separated
  * (`ratios` "1,4,10", `tolerances` "2,5,8", `labels` "fundamental,octave",
- * `required` "yes,yes,no"). Throws AnalysisError(400) with one plain sentence.
+ * `required` "yes,yes,no"). Other fields (the file itself, a piece id…) are ignored, so a
+ * whole multipart form can be passed. Throws AnalysisError(400) with one plain sentence.
  */
 export function parseAnalyzeOptions(fields: Record<string, string | undefined>): AnalyzeOptions {
   const raw: Record<string, unknown> = {}
@@ -53,10 +54,6 @@ export function parseAnalyzeOptions(fields: Record<string, string | undefined>):
   if (labels !== undefined) raw.labels = splitList(labels)
   const required = value('required')
   if (required !== undefined) raw.required = splitList(required).map(toBoolean)
-  const known = new Set(['note', 'ratios', 'tolerances', 'labels', 'required', ...NUMBER_FIELDS])
-  for (const key of Object.keys(fields)) {
-    if (!known.has(key) && value(key) !== undefined) throw new AnalysisError(400, 'bad_option', `"${key}" is not an analysis option.`)
-  }
   return validateAnalyzeOptions(raw)
 }
 

@@ -38,3 +38,8 @@ export const SwitchWorkshopSchema = z.object({ workshopId: z.string().uuid('Choo
 export const CreateWorkshopSchema = z.object({
   name: z.string({ required_error: 'Name the workshop' }).trim().min(2, 'Name the workshop').max(120, 'That workshop name is too long'),
 })
+
+export const ChangePasswordSchema = z.object({
+  currentPassword: z.string({ required_error: 'Enter your current password' }).min(1, 'Enter your current password').max(200, 'That password is too long'),
+  newPassword: PasswordSchema,
+}).refine(v => v.currentPassword !== v.newPassword, { message: 'Choose a new password different from the current one', path: ['newPassword'] })

@@ -9,6 +9,7 @@ export default defineEventHandler(async (event) => {
     workshopId: member.workshopId,
     workshopName: member.workshopName,
     role: member.role,
+    mustChangePassword: member.mustChangePassword,
     workshops,
   }
 })

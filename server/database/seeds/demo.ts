@@ -4,13 +4,16 @@ import { memberships, users, workshops } from '../schema'
 import { findUserByEmail } from '../../utils/accounts'
 import { hashPassword } from '../../utils/passwords'
 import { seedNewWorkshop } from '../../utils/workshop-starter'
+import type { BlobStorage } from '../../utils/storage'
 import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_WORKSHOP } from './demo-people'
+import { seedDemoRecords } from './demo-records'
 
 /** The demo workshop, its four people and (as later parts add them) its records. */
-export async function seedDemo(db: Database) {
+export async function seedDemo(db: Database, storage: BlobStorage) {
   const owner = DEMO_PEOPLE[0]!
   if (await findUserByEmail(db, owner.email)) return { created: false, workshopName: DEMO_WORKSHOP.name }
   const passwordHash = await hashPassword(DEMO_PASSWORD)
+  // One transaction: a failed seed leaves nothing behind and runs again next start.
   await db.transaction(async (tx) => {
     const [workshop] = await tx.insert(workshops).values(DEMO_WORKSHOP).returning()
     for (const person of DEMO_PEOPLE) {
@@ -19,6 +22,8 @@ export async function seedDemo(db: Database) {
     }
     const [ownerRow] = await tx.select({ id: users.id }).from(users).where(eq(users.email, owner.email))
     await seedNewWorkshop(tx, workshop!.id, ownerRow!.id)
+    // Drizzle transactions nest (savepoints), so the services' own transactions run inside this one.
+    await seedDemoRecords(tx as unknown as Database, storage, workshop!.id)
   })
   return { created: true, workshopName: DEMO_WORKSHOP.name }
 }

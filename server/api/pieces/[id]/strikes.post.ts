@@ -7,7 +7,7 @@ export default defineEventHandler(async (event) => {
   const member = await requireMember(event, 'bench:strike')
   const { id } = await getValidatedRouterParams(event, parseWith(IdParams))
   const { file, fields } = await readUpload(event)
-  const conditions = parseWith(StrikeFieldsSchema)(Object.fromEntries(Object.entries(fields).filter(([, v]) => v.trim() !== '')))
+  const conditions = validateInput(StrikeFieldsSchema, Object.fromEntries(Object.entries(fields).filter(([, v]) => v.trim() !== '')))
   setResponseStatus(event, 201)
   return recordStrike(useDatabase(), useBlobStorage(), member, id, file, conditions)
 })

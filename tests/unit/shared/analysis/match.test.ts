@@ -121,6 +121,21 @@ describe('the whole chain on a synthetic bar', () => {
     expect(at442.matches![0]!.cents).toBeCloseTo(0.8 - 1200 * Math.log2(442 / 440), 1)
   })
 
+  it('normalises to the reference temperature end to end from form fields', () => {
+    // A bar that reads 0.8 ¢ sharp at 26 °C; with −0.3 ¢/°C it would read 0.8 + 0.3 × 6 = 2.6 ¢ at 20 °C.
+    const options = parseAnalyzeOptions({
+      note: 'C4', ratios: '1', tolerances: '2', temperatureC: '26', referenceTemperatureC: '20', temperatureCoefficientCentsPerC: '-0.3',
+    })
+    const result = analyzeSamples(x, 48000, options)
+    const m = result.matches![0]!
+    expect(m.rawCents).toBeCloseTo(0.8, 1)
+    expect(m.normalizedCents).toBeCloseTo(2.6, 1)
+    expect(m.within).toBe(false)
+    expect(result.verdict).toBe('outside')
+    expect(result.temperatureC).toBe(26)
+    expect(result.guidance[0]).toMatch(/^Fundamental is 2\.6 ¢ sharp/)
+  })
+
   it('is incomplete when a required partial is missing, and accepts a stored template', () => {
     const result = analyzeSamples(x, 48000, {
       targetHz: f0,
@@ -184,6 +199,8 @@ describe('parseAnalyzeOptions', () => {
     })
     expect(parseAnalyzeOptions({})).toEqual({})
     expect(parseAnalyzeOptions({ targetHz: '261.63' })).toEqual({ targetHz: 261.63 })
+    // Other form fields (the file, a piece id) are not options and are left alone.
+    expect(parseAnalyzeOptions({ note: 'A4', pieceId: '17', file: 'strike.wav' })).toEqual({ note: 'A4' })
   })
 
   const bad: [Record<string, string>, RegExp][] = [
@@ -198,7 +215,6 @@ describe('parseAnalyzeOptions', () => {
     [{ ratios: '1,4' }, /need a target/],
     [{ temperatureC: '500' }, /bench temperature/],
     [{ targetHz: '5' }, /between 10 and 20000 Hz/],
-    [{ colour: 'red' }, /not an analysis option/],
   ]
   for (const [fields, message] of bad) {
     it(`refuses ${JSON.stringify(fields)} with a 400 and a plain sentence`, () => {
@@ -215,6 +231,11 @@ describe('parseAnalyzeOptions', () => {
       expect((caught as AnalysisError).message).toMatch(/^[A-Z"].*\.$/)
     })
   }
+
+  it('the typed options refuse unknown keys', () => {
+    expect(AnalyzeOptionsSchema.safeParse({ note: 'A4', colour: 'red' }).success).toBe(false)
+    expect(() => analyzeSamples(new Float64Array(48000), 48000, { colour: 'red' } as never)).toThrow(/"colour" is not an analysis option/)
+  })
 
   it('the schema accepts a stored template and refuses a malformed one', () => {
     const template = { partials: [{ label: 'fundamental', ratio: 1, toleranceCents: 2, required: true }] }

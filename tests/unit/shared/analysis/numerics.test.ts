@@ -8,6 +8,7 @@ import {
   parabolicPeak,
   realFft,
   selectQuantile,
+  windowSpan,
 } from '../../../../shared/analysis/index'
 import { dtftPowers3 } from '../../../../shared/analysis/dtftPowers3'
 import { seededRandom } from '../../../support/seededRandom'
@@ -65,6 +66,21 @@ describe('4-term Blackman–Harris window', () => {
     }
     expect(width(-3.01)).toBeCloseTo(1.9, 1) // source: Harris (1978) Table 1, 3.0-dB bandwidth 1.90 bins
     expect(width(-6.02)).toBeCloseTo(2.72, 1) // source: Harris (1978) Table 1, 6.0-dB bandwidth 2.72 bins
+  })
+
+  it('windowSpan applies the same window and sums its decaying gain', () => {
+    const random = seededRandom(4)
+    const signal = new Float64Array(5000).map(() => random.normal())
+    const length = 3001
+    const w = blackmanHarris(length)
+    const alpha = 2e-4
+    const { windowed, decayingGain } = windowSpan(signal, 1000, length, alpha, 400)
+    let gain = 0
+    for (let n = 0; n < length; n++) {
+      expect(windowed[n]).toBeCloseTo(signal[1000 + n]! * w[n]!, 12)
+      gain += w[n]! * Math.exp(-alpha * (1000 + n - 400))
+    }
+    expect(decayingGain / gain).toBeCloseTo(1, 10)
   })
 
   it('is symmetric in its periodic form and refuses bad lengths', () => {

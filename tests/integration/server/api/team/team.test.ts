@@ -65,3 +65,18 @@ describe('team', () => {
     expect((await api(`/api/team/${b.userId}`, { method: 'DELETE', token: a.token })).status).toBe(404)
   })
 })
+
+describe('temporary passwords', () => {
+  it('flags a member added with a temporary password until they choose their own', async () => {
+    const owner = await newWorkshop()
+    const bench = await memberWithRole(owner.token, 'benchmaker')
+    expect((await api('/api/auth/session', { token: bench.token })).body.mustChangePassword).toBe(true)
+    const wrong = await api('/api/auth/password', { method: 'POST', token: bench.token, body: { currentPassword: 'not-it-at-all', newPassword: 'my-own-password-1' } })
+    expect(wrong.status).toBe(400)
+    const ok = await api('/api/auth/password', { method: 'POST', token: bench.token, body: { currentPassword: 'temporary-pass-123', newPassword: 'my-own-password-1' } })
+    expect(ok.status).toBe(200)
+    expect((await api('/api/auth/session', { token: bench.token })).body.mustChangePassword).toBe(false)
+    const signIn = await api('/api/auth/login', { method: 'POST', body: { email: bench.email, password: 'my-own-password-1' } })
+    expect(signIn.status).toBe(200)
+  })
+})

@@ -1,0 +1,106 @@
+import { blackmanHarris } from './blackmanHarris'
+import { dtftAt, type Complex } from './dtftAt'
+import { fitLine } from './fitLine'
+
+/** Envelopes of two close partials, separated. */
+export interface SeparatedPair {
+  /** Decay rates in dB/s, lower partial first. */
+  decayDbPerS: [number, number]
+  r2: [number, number]
+  /** Peak amplitudes at the onset (linear, full scale = 1). */
+  amplitude: [number, number]
+}
+
+const mul = (a: Complex, b: Complex): Complex => ({ re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re })
+const sub = (a: Complex, b: Complex): Complex => ({ re: a.re - b.re, im: a.im - b.im })
+const div = (a: Complex, b: Complex): Complex => {
+  const d = b.re * b.re + b.im * b.im
+  return { re: (a.re * b.re + a.im * b.im) / d, im: (a.im * b.re - a.re * b.im) / d }
+}
+
+/** Solve [[a, b], [c, d]] · [u, v] = [p, q] over the complex numbers (Cramer's rule). */
+function solve2(a: Complex, b: Complex, c: Complex, d: Complex, p: Complex, q: Complex): [Complex, Complex] {
+  const det = sub(mul(a, d), mul(b, c))
+  return [div(sub(mul(p, d), mul(b, q)), det), div(sub(mul(a, q), mul(c, p)), det)]
+}
+
+/**
+ * Separate the envelopes of two partials of known frequencies `f1Hz` < `f2Hz` that are
+ * too close for a short window: in each frame the two DTFT values X(f1), X(f2) are a
+ * linear mixture of the two complex amplitudes through the window's transform W(±Δf),
+ * so a 2 × 2 linear solve (least squares with as many equations as unknowns) gives
+ * each amplitude. Frames are 2.5 / Δf long (W(Δf) then lies well down the main lobe),
+ * hop a quarter of that. Each dB envelope gets its own least-squares decay line; the
+ * onset amplitudes come from the same solve on the long window over the whole span,
+ * with each partial's window gain Σ w[n]·e^{−α(t_n − t_onset)}.
+ * Returns null when the span holds fewer than three frames.
+ */
+export function separatePair(
+  signal: Float64Array,
+  sampleRate: number,
+  spanStart: number,
+  spanEnd: number,
+  onsetIndex: number,
+  f1Hz: number,
+  f2Hz: number,
+): SeparatedPair | null {
+  const deltaHz = f2Hz - f1Hz
+  const frameLength = Math.min(Math.round((2.5 / deltaHz) * sampleRate), Math.floor((spanEnd - spanStart) / 1.5))
+  const hop = Math.max(1, Math.round(frameLength / 4))
+  if (frameLength < 64) return null
+  const w = blackmanHarris(frameLength)
+  let w0 = 0
+  for (let i = 0; i < frameLength; i++) w0 += w[i]!
+  const wUp = dtftAt(w, f1Hz - f2Hz, sampleRate) // W(ω1 − ω2): leakage of partial 2 into X(f1)
+  const wDown = { re: wUp.re, im: -wUp.im } // W(ω2 − ω1) = conj, the window is real
+  const real = (x: number): Complex => ({ re: x, im: 0 })
+  const frame = new Float64Array(frameLength)
+  const times: number[] = []
+  const levels: [number[], number[]] = [[], []]
+  for (let start = spanStart; start + frameLength <= spanEnd; start += hop) {
+    for (let i = 0; i < frameLength; i++) frame[i] = signal[start + i]! * w[i]!
+    const [c1, c2] = solve2(real(w0), wUp, wDown, real(w0), dtftAt(frame, f1Hz, sampleRate), dtftAt(frame, f2Hz, sampleRate))
+    times.push((start + frameLength / 2) / sampleRate)
+    levels[0].push(20 * Math.log10(Math.max(Math.hypot(c1.re, c1.im), 1e-12)))
+    levels[1].push(20 * Math.log10(Math.max(Math.hypot(c2.re, c2.im), 1e-12)))
+  }
+  if (times.length < 3) return null
+  const fits = [fitLine(times, levels[0]), fitLine(times, levels[1])] as const
+  const decayDbPerS: [number, number] = [-fits[0].slope, -fits[1].slope]
+
+  // Long window over the span, with each partial's own decaying window gain.
+  const length = spanEnd - spanStart
+  const long = blackmanHarris(length)
+  const windowed = new Float64Array(length)
+  const gains = [new Float64Array(length), new Float64Array(length)] as const
+  for (let k = 0; k < 2; k++) {
+    const alpha = (decayDbPerS[k]! * Math.LN10) / 20
+    let envelope = Math.exp((-alpha * (spanStart - onsetIndex)) / sampleRate)
+    const perSample = Math.exp(-alpha / sampleRate)
+    const gain = gains[k]!
+    for (let n = 0; n < length; n++) {
+      gain[n] = long[n]! * envelope
+      envelope *= perSample
+    }
+  }
+  for (let n = 0; n < length; n++) windowed[n] = signal[spanStart + n]! * long[n]!
+  const g1 = gains[0].reduce((s, v) => s + v, 0)
+  const g2 = gains[1].reduce((s, v) => s + v, 0)
+  const [a1, a2] = solve2(
+    real(g1 / 2),
+    scale(dtftAt(gains[1], f1Hz - f2Hz, sampleRate), 0.5),
+    scale(dtftAt(gains[0], f2Hz - f1Hz, sampleRate), 0.5),
+    real(g2 / 2),
+    dtftAt(windowed, f1Hz, sampleRate),
+    dtftAt(windowed, f2Hz, sampleRate),
+  )
+  return {
+    decayDbPerS,
+    r2: [fits[0].r2, fits[1].r2],
+    amplitude: [Math.hypot(a1.re, a1.im), Math.hypot(a2.re, a2.im)],
+  }
+}
+
+function scale(a: Complex, s: number): Complex {
+  return { re: a.re * s, im: a.im * s }
+}
