@@ -1,5 +1,5 @@
 import { encodeWav } from '../../../shared/analysis/encodeWav'
-import { synthStrike } from '../../support/synthStrike'
+import { synthStrike } from '../../../shared/synthesis/synthStrike'
 import { api, memberWithRole, newWorkshop, uniqueEmail } from './http'
 
 /**
@@ -42,7 +42,9 @@ export async function approveAll(ctx: Awaited<ReturnType<typeof approvedSet>>) {
     form.set('humidityPct', String(42 + (i % 4)))
     const strike = await api(`/api/pieces/${piece.id}/strikes`, { method: 'POST', token: ctx.bench.token, body: form })
     if (strike.status !== 201) throw new Error(`strike: ${strike.status} ${JSON.stringify(strike.body)}`)
-    for (const to of ['tuning', 'review']) {
+    // Striking may already have moved the piece to tuning.
+    const { stage } = (await api(`/api/pieces/${piece.id}`, { token: ctx.bench.token })).body as { stage: string }
+    for (const to of stage === 'tuning' ? ['review'] : ['tuning', 'review']) {
       const moved = await api(`/api/pieces/${piece.id}/stage`, { method: 'POST', token: ctx.bench.token, body: { to } })
       if (moved.status !== 200) throw new Error(`stage ${to}: ${moved.status} ${JSON.stringify(moved.body)}`)
     }
