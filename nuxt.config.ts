@@ -24,6 +24,12 @@ export default defineNuxtConfig({
     signInMaxPerAddress: 30,
     storage: { driver: 'fs', dir: '.data/storage' },
     smtp: { host: '127.0.0.1', port: 2525, user: '', pass: '', from: 'Tonewright <certificates@tonewright.test>' },
+    // Where links in certificates and e-mails point (the public address of this app).
+    siteUrl: 'http://127.0.0.1:3000',
+    // Delivery retries of the mail queue: attempts after the first, and the first delay (doubling).
+    mailRetry: { limit: 6, delayS: 3 },
+    // Folder of the local SMTP catcher, read by the development Mailbox screen.
+    mailCatcherDir: '.data/mail',
     public: { devMailbox: false },
   },
   compatibilityDate: '2025-07-15',

@@ -182,3 +182,23 @@ wait_http() {
   done
   return 1
 }
+
+# mail_catcher_start PORT DIR: the local SMTP catcher (scripts/mail-catcher.ts) in the
+# background; it writes DIR/catcher.pid. mail_catcher_stop DIR ends that process.
+mail_catcher_start() {
+  local port="$1" dir="$2"
+  mkdir -p "$dir"
+  (cd "$ROOT" && exec node --import tsx scripts/mail-catcher.ts --port "$port" --dir "$dir" >>"$dir/catcher.log" 2>&1) &
+  local i
+  for i in $(seq 1 80); do port_busy "$port" && return 0; sleep 0.25; done
+  tail -n 20 "$dir/catcher.log" >&2 || true
+  die "The mail catcher did not start on 127.0.0.1:$port."
+}
+
+mail_catcher_stop() {
+  local pid_file="$1/catcher.pid" pid
+  [ -f "$pid_file" ] || return 0
+  pid=$(cat "$pid_file" 2>/dev/null || true)
+  if [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null; then kill "$pid" 2>/dev/null || true; fi
+  rm -f "$pid_file"
+}

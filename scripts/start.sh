@@ -22,10 +22,13 @@ AUTH_SECRET=$(secret_file auth-secret)
 pg_init "$PG_DIR" "$DB_PORT" "$DB_PASSWORD"
 
 STARTED_PG=0
+STARTED_MAIL=0
+MAIL_DIR="$DATA/mail"
 APP_PID=""
 cleanup() {
   trap - INT TERM EXIT
   if [ -n "$APP_PID" ] && kill -0 "$APP_PID" 2>/dev/null; then kill "$APP_PID" 2>/dev/null || true; wait "$APP_PID" 2>/dev/null || true; fi
+  if [ "$STARTED_MAIL" = 1 ]; then mail_catcher_stop "$MAIL_DIR"; fi
   if [ "$STARTED_PG" = 1 ]; then log "Stopping PostgreSQL…"; pg_stop "$PG_DIR"; fi
   log "Stopped."
 }
@@ -43,6 +46,13 @@ export NUXT_AUTH_SECRET="$AUTH_SECRET"
 export NUXT_STORAGE_DIR="$DATA/storage"
 export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT="$SMTP_PORT"
 export NUXT_PUBLIC_DEV_MAILBOX=true
+export NUXT_MAIL_CATCHER_DIR="$MAIL_DIR" NUXT_SITE_URL="${TONEWRIGHT_SITE_URL:-http://$APP_HOST:$APP_PORT}"
+
+if ! port_busy "$SMTP_PORT"; then
+  log "Starting the local mail catcher on 127.0.0.1:$SMTP_PORT (messages in .data/mail)…"
+  mail_catcher_start "$SMTP_PORT" "$MAIL_DIR"
+  STARTED_MAIL=1
+fi
 
 log "Applying database migrations…"
 (cd "$ROOT" && npx tsx scripts/migrate.ts)
@@ -60,6 +70,8 @@ cat <<MSG
     supervisor@tonewright.test  supervisor
     bench@tonewright.test       benchmaker
     office@tonewright.test      office
+
+  Mail goes to the local catcher on 127.0.0.1:$SMTP_PORT; read it on the Mailbox screen.
 
   Press Ctrl-C to stop.
 

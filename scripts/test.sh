@@ -13,6 +13,7 @@ DB_NAME=tonewright_test
 require_node
 ensure_postgres
 ensure_chromium
+ensure_poppler
 ensure_node_modules
 
 PG_DIR=$(pg_datadir test-pg)
@@ -20,11 +21,13 @@ DB_PASSWORD=$(secret_file test-db-password)
 # Durability does not matter for a throw-away database; speed does.
 pg_init "$PG_DIR" "$DB_PORT" "$DB_PASSWORD" "fsync = off" "synchronous_commit = off" "full_page_writes = off"
 
+MAIL_DIR="$DATA/test-mail"
 APP_PID=""
 cleanup() {
   local code=$?
   trap - INT TERM EXIT
   if [ -n "$APP_PID" ] && kill -0 "$APP_PID" 2>/dev/null; then kill "$APP_PID" 2>/dev/null || true; wait "$APP_PID" 2>/dev/null || true; fi
+  mail_catcher_stop "$MAIL_DIR"
   pg_stop "$PG_DIR"
   exit "$code"
 }
@@ -39,7 +42,10 @@ export NUXT_AUTH_SECRET="test-secret-$(secret_file test-auth-secret)"
 export NUXT_STORAGE_DIR="$DATA/test-storage"
 export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT="$SMTP_PORT"
 export NUXT_PUBLIC_DEV_MAILBOX=true
+export NUXT_MAIL_CATCHER_DIR="$MAIL_DIR" NUXT_SITE_URL="http://127.0.0.1:$APP_PORT"
 rm -rf "$NUXT_STORAGE_DIR"
+mail_catcher_stop "$MAIL_DIR"
+rm -rf "$MAIL_DIR"
 
 log "Migrating and seeding the test database…"
 (cd "$ROOT" && npx tsx scripts/migrate.ts && npx tsx scripts/seed.ts)
@@ -55,6 +61,9 @@ mkdir -p "$ROOT/test-results" && rm -f "$ROOT"/test-results/*.json
 log "Unit tests…"
 npx vitest run --project unit --reporter=default --reporter=json --outputFile.json=test-results/unit.json
 
+log "Starting the mail catcher on 127.0.0.1:$SMTP_PORT…"
+mail_catcher_start "$SMTP_PORT" "$MAIL_DIR"
+
 log "Starting the built server on 127.0.0.1:$APP_PORT…"
 HOST=127.0.0.1 PORT="$APP_PORT" NITRO_HOST=127.0.0.1 NITRO_PORT="$APP_PORT" NODE_ENV=production \
   node .output/server/index.mjs >"$ROOT/test-results/server.log" 2>&1 &
@@ -63,6 +72,7 @@ wait_http "http://127.0.0.1:$APP_PORT/api/health" 60 || { tail -n 30 "$ROOT/test
 
 export TW_BASE_URL="http://127.0.0.1:$APP_PORT"
 export TW_PG_DIR="$PG_DIR" TW_PG_PORT="$DB_PORT"
+export TW_MAIL_DIR="$MAIL_DIR" TW_SMTP_PORT="$SMTP_PORT"
 log "Integration tests…"
 npx vitest run --project integration --reporter=default --reporter=json --outputFile.json=test-results/integration.json
 log "Browser tests…"

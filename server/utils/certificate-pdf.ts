@@ -1,0 +1,255 @@
+import { createRequire } from 'node:module'
+import { existsSync } from 'node:fs'
+import { dirname, join, resolve, sep } from 'node:path'
+import pdfmake from 'pdfmake'
+import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
+import QRCode from 'qrcode'
+import type { CertificateContent, CertificatePartial } from '../../shared/certificates/content'
+import { formatCents } from '../../shared/format/numbers'
+
+export type Paper = 'A4' | 'LETTER'
+
+const INK = '#1f2329'
+const SOFT = '#4a5059'
+const FAINT = '#7b818a'
+const LINE = '#d9d0bd'
+const SPRUCE = '#2f7d5b'
+const KILN = '#c45a1c'
+const SLATE = '#3b62a8'
+const BRASS = '#a9832a'
+
+/**
+ * The folder of one complete (not script-split) woff set: pdfmake has no per-glyph
+ * fallback, so ¢, −, ±, ° and Δ must all be in the one file. Looked up from the
+ * server bundle and from the working directory (the built server does not copy fonts).
+ */
+function fontDir(pkg: string): string {
+  const bases = [import.meta.url, join(process.cwd(), 'package.json')]
+  for (const base of bases) {
+    try {
+      const dir = join(dirname(createRequire(base).resolve(`${pkg}/package.json`)), 'fonts', 'complete', 'woff')
+      if (existsSync(dir)) return dir
+    }
+    catch { /* try the next base */ }
+  }
+  const fallback = resolve(process.cwd(), 'node_modules', pkg, 'fonts', 'complete', 'woff')
+  if (existsSync(fallback)) return fallback
+  throw new Error(`The certificate fonts (${pkg}) were not found; run npm ci.`)
+}
+
+let configured = false
+function configure() {
+  if (configured) return
+  const sans = fontDir('@ibm/plex-sans')
+  const mono = fontDir('@ibm/plex-mono')
+  pdfmake.setFonts({
+    Plex: {
+      normal: join(sans, 'IBMPlexSans-Regular.woff'),
+      bold: join(sans, 'IBMPlexSans-SemiBold.woff'),
+      italics: join(sans, 'IBMPlexSans-Italic.woff'),
+      bolditalics: join(sans, 'IBMPlexSans-SemiBoldItalic.woff'),
+    },
+    PlexMono: {
+      normal: join(mono, 'IBMPlexMono-Regular.woff'),
+      bold: join(mono, 'IBMPlexMono-SemiBold.woff'),
+      italics: join(mono, 'IBMPlexMono-Italic.woff'),
+      bolditalics: join(mono, 'IBMPlexMono-SemiBoldItalic.woff'),
+    },
+  })
+  // Only the two font folders may be read; nothing is fetched from the network.
+  pdfmake.setLocalAccessPolicy(path => [sans, mono].some(dir => resolve(path).startsWith(dir + sep)))
+  pdfmake.setUrlAccessPolicy(() => false)
+  configured = true
+}
+
+type Mark = 'within' | 'sharp' | 'flat' | 'missing'
+
+function markOf(p: CertificatePartial): Mark {
+  if (p.missing || p.cents === null) return 'missing'
+  if (p.within) return 'within'
+  return p.cents > 0 ? 'sharp' : 'flat'
+}
+
+/** Shape and colour together, as on screen: filled circle, up triangle, down triangle, hollow square. */
+const MARK_SVG: Record<Mark, string> = {
+  within: `<svg width="7" height="7" viewBox="0 0 14 14"><circle cx="7" cy="7" r="6" fill="${SPRUCE}"/></svg>`,
+  sharp: `<svg width="7" height="7" viewBox="0 0 14 14"><polygon points="7,1 13,13 1,13" fill="${KILN}"/></svg>`,
+  flat: `<svg width="7" height="7" viewBox="0 0 14 14"><polygon points="1,1 13,1 7,13" fill="${SLATE}"/></svg>`,
+  missing: `<svg width="7" height="7" viewBox="0 0 14 14"><rect x="2" y="2" width="10" height="10" fill="none" stroke="${FAINT}" stroke-width="2"/></svg>`,
+}
+const MARK_COLOUR: Record<Mark, string> = { within: SPRUCE, sharp: KILN, flat: SLATE, missing: FAINT }
+
+const hz = (v: number | null) => (v === null ? '—' : `${v.toFixed(2)} Hz`)
+const num = (v: number) => (v < 0 ? `−${Math.abs(v)}` : String(v))
+const range = (r: { min: number, max: number } | null, unit: string) =>
+  !r ? 'not recorded' : r.min === r.max ? `${num(r.min)} ${unit}` : `${num(r.min)} ${unit} to ${num(r.max)} ${unit}`
+
+function pieceRow(p: CertificateContent['pieces'][number]): TableCell[] {
+  const lines = (f: (q: CertificatePartial) => Content) => ({ stack: p.partials.map(f) })
+  const verdictText = p.verdict === 'within' ? 'Pass' : p.verdict === 'outside' ? 'Outside' : 'Incomplete'
+  return [
+    { stack: [{ text: p.note, bold: true }, { text: `#${p.position}`, color: FAINT, fontSize: 7 }] },
+    { text: hz(p.targetHz), font: 'PlexMono', alignment: 'right' },
+    lines(q => ({ text: q.required ? q.label : `${q.label} (reported)`, noWrap: false })),
+    lines(q => ({ text: hz(q.targetHz), font: 'PlexMono', alignment: 'right', color: SOFT })),
+    lines(q => ({ text: hz(q.measuredHz), font: 'PlexMono', alignment: 'right' })),
+    lines(q => ({
+      columns: [
+        { svg: MARK_SVG[markOf(q)], width: 9, margin: [0, 2, 0, 0] },
+        { text: formatCents(q.cents), font: 'PlexMono', color: MARK_COLOUR[markOf(q)], alignment: 'right' },
+      ],
+    })),
+    lines(q => ({ text: `±${q.toleranceCents} ¢`, font: 'PlexMono', alignment: 'right' })),
+    {
+      stack: [
+        { text: verdictText, bold: true, color: p.verdict === 'within' ? SPRUCE : KILN },
+        ...(p.overrideReason ? [{ text: `approved with override: ${p.overrideReason}`, fontSize: 7, color: SOFT }] : []),
+      ],
+    },
+  ]
+}
+
+const heading = (text: string): Content => ({ text, style: 'h2' })
+
+function field(label: string, value: string): Content[] {
+  return [{ text: label, color: SOFT }, { text: value }]
+}
+
+/** The document definition of a certificate (pure: the same content gives the same layout). */
+export async function certificateDocument(content: CertificateContent, status: string, paper: Paper): Promise<TDocumentDefinitions> {
+  const qr = await QRCode.toDataURL(content.verificationUrl, { errorCorrectionLevel: 'M', margin: 0, width: 240, color: { dark: INK, light: '#ffffff' } })
+  const signedAt = new Date(content.signedAt)
+  const signedText = `${signedAt.toISOString().slice(0, 10)} ${signedAt.toISOString().slice(11, 16)} UTC`
+  const i = content.instrument
+  const lots = i.lots.length ? i.lots.map(l => `${l.code} (${[l.material, l.species].filter(Boolean).join(', ')})`).join('; ') : 'none recorded'
+  return {
+    pageSize: paper,
+    pageMargins: [48, 62, 48, 58],
+    info: { title: `Tuning certificate ${content.number}`, author: content.workshop.name, creator: 'Tonewright', subject: `${i.model} ${i.serial}` },
+    defaultStyle: { font: 'Plex', fontSize: 9, color: INK, lineHeight: 1.2 },
+    styles: {
+      h1: { fontSize: 20, bold: true, margin: [0, 0, 0, 2] },
+      h2: { fontSize: 10.5, bold: true, margin: [0, 12, 0, 4], color: INK },
+      th: { bold: true, color: SOFT, fontSize: 8 },
+      small: { fontSize: 8, color: SOFT },
+    },
+    header: (currentPage: number) => ({
+      margin: [48, 24, 48, 0],
+      columns: [
+        { text: currentPage === 1 ? content.workshop.name : `Tuning certificate · ${content.workshop.name}`, color: SOFT, fontSize: 8 },
+        { text: `Certificate No. ${content.number}`, alignment: 'right', bold: true, fontSize: 9 },
+      ],
+    }),
+    footer: (currentPage: number, pageCount: number) => ({
+      margin: [48, 16, 48, 0],
+      columns: [
+        { text: `Certificate No. ${content.number} · verify at ${content.verificationUrl}`, fontSize: 7.5, color: SOFT },
+        { text: `page ${currentPage} of ${pageCount}`, alignment: 'right', fontSize: 8, width: 80 },
+      ],
+    }),
+    content: [
+      {
+        columns: [
+          {
+            width: '*',
+            stack: [
+              { text: 'Tuning certificate', style: 'h1' },
+              { text: [{ text: 'No. ', color: SOFT }, { text: content.number, bold: true }, ...(status !== 'valid' ? [{ text: `  (${status.toUpperCase()})`, color: KILN, bold: true }] : [])], fontSize: 12 },
+              ...(content.supersedes ? [{ text: `Supersedes certificate ${content.supersedes}.`, style: 'small', margin: [0, 2, 0, 0] } as Content] : []),
+              {
+                margin: [0, 12, 0, 0],
+                columns: [
+                  { stack: [{ text: 'Issued by', style: 'th' }, { text: content.workshop.name, bold: true }, { text: content.workshop.address || '—' }] },
+                  { stack: [{ text: 'Issued to', style: 'th' }, { text: content.buyer.organisation || content.buyer.name, bold: true }, ...(content.buyer.organisation ? [{ text: content.buyer.name }] : [])] },
+                ],
+                columnGap: 16,
+              },
+            ],
+          },
+          { width: 92, stack: [{ image: qr, width: 88 }, { text: 'Scan to verify', style: 'small', alignment: 'center', margin: [0, 3, 0, 0] }] },
+        ],
+        columnGap: 16,
+      },
+      heading('Instrument'),
+      {
+        table: {
+          widths: [90, '*', 90, '*'],
+          body: [
+            [...field('Model', i.model), ...field('Serial number', i.serial)],
+            [...field('Name', i.name), ...field('Range', i.range)],
+            [...field('Pieces', `${i.pieceCount}${i.scrappedCount ? ` (${i.scrappedCount} scrapped, not listed)` : ''}`), ...field('Reference pitch', `A4 = ${content.referenceHz} Hz, ${content.temperament}`)],
+            [...field('Material lots', lots), { text: '' }, { text: '' }],
+          ],
+        },
+        layout: 'noBorders',
+      },
+      heading('Measurement conditions'),
+      {
+        table: {
+          widths: [90, '*', 90, '*'],
+          body: [[...field('Temperature', range(content.conditions.temperatureC, '°C')), ...field('Relative humidity', range(content.conditions.humidityPct, '%'))]],
+        },
+        layout: 'noBorders',
+      },
+      { text: `${content.conditions.statement} Conditions are the range over the ${content.conditions.strikeCount} approved strikes this certificate rests on.`, margin: [0, 2, 0, 0] },
+      heading('Method'),
+      { text: content.method },
+      heading('Results'),
+      {
+        table: {
+          headerRows: 1,
+          dontBreakRows: true,
+          widths: [28, 58, '*', 58, 58, 50, 42, 40],
+          body: [
+            [
+              { text: 'Note', style: 'th' },
+              { text: 'Target fundamental', style: 'th', alignment: 'right' },
+              { text: 'Partial', style: 'th' },
+              { text: 'Target', style: 'th', alignment: 'right' },
+              { text: 'Measured', style: 'th', alignment: 'right' },
+              { text: 'Deviation Δ', style: 'th', alignment: 'right' },
+              { text: 'Tolerance', style: 'th', alignment: 'right' },
+              { text: 'Verdict', style: 'th' },
+            ],
+            ...content.pieces.map(pieceRow),
+          ],
+        },
+        layout: {
+          hLineWidth: (row: number) => (row <= 1 ? 0.8 : 0.4),
+          vLineWidth: () => 0,
+          hLineColor: (row: number) => (row <= 1 ? INK : LINE),
+          paddingTop: () => 3,
+          paddingBottom: () => 3,
+        },
+      },
+      { text: 'Deviation Δ = 1200 · log2(measured ÷ target), in cents (¢). Marks: filled circle within the tolerance, up triangle sharp and down triangle flat outside it, hollow square not found.', style: 'small', margin: [0, 4, 0, 0] },
+      {
+        unbreakable: true,
+        stack: [
+          heading('Decision rule'),
+          { text: content.decisionRule },
+          heading('Measurement uncertainty'),
+          { text: content.uncertainty },
+          heading('Signature'),
+          {
+            columns: [
+              { stack: [{ text: 'Signed by', style: 'th' }, { text: content.signer.name, bold: true, fontSize: 11 }, { text: content.signer.role, color: SOFT }] },
+              { stack: [{ text: 'Signed at', style: 'th' }, { text: signedText, font: 'PlexMono' }] },
+              { stack: [{ text: 'Verification', style: 'th' }, { text: content.verificationUrl, link: content.verificationUrl, color: BRASS, fontSize: 8 }] },
+            ],
+            columnGap: 16,
+          },
+          { text: content.scope, margin: [0, 14, 0, 0], bold: true },
+        ],
+      },
+    ],
+  }
+}
+
+/** Renders a certificate to PDF bytes with the embedded Plex fonts. */
+export async function renderCertificatePdf(content: CertificateContent, status: string, paper: Paper = 'A4'): Promise<Uint8Array> {
+  configure()
+  const doc = await certificateDocument(content, status, paper)
+  const buffer = await pdfmake.createPdf(doc).getBuffer()
+  return new Uint8Array(buffer)
+}

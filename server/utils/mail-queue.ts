@@ -1,0 +1,128 @@
+import { and, eq, isNull } from 'drizzle-orm'
+import PgBoss from 'pg-boss'
+import { mailMessages } from '../database/schema'
+import type { Database } from '../database/client'
+import { deliverMessage, unscheduledMail, type SmtpConfig } from './mail'
+import type { BlobStorage } from './storage'
+
+export const MAIL_QUEUE = 'mail-send'
+
+export interface MailQueueOptions {
+  db: Database
+  storage: BlobStorage
+  databaseUrl: string
+  smtp: SmtpConfig
+  retryLimit: number
+  retryDelayS: number
+  /** How often queued messages without a job are picked up, in ms. */
+  sweepMs?: number
+  log?: (line: string) => void
+}
+
+/**
+ * The mail worker. The outbox table is the source of truth: a request only adds
+ * a row; this process (on any app instance) turns rows into pg-boss jobs and
+ * delivers them with retries. If the queue cannot start, rows wait in the outbox
+ * and are picked up once it does.
+ */
+export class MailQueue {
+  private boss: PgBoss | null = null
+  private sweepTimer: NodeJS.Timeout | null = null
+  private restartTimer: NodeJS.Timeout | null = null
+  private sweeping = false
+  private stopped = false
+  constructor(private readonly options: MailQueueOptions) {}
+
+  get running() {
+    return this.boss !== null
+  }
+
+  private log(line: string) {
+    (this.options.log ?? console.log)(line)
+  }
+
+  async start(): Promise<boolean> {
+    const o = this.options
+    const boss = new PgBoss({ connectionString: o.databaseUrl, max: 4, application_name: 'tonewright-mail' })
+    boss.on('error', error => this.log(`Tonewright mail queue: ${error.message}`))
+    try {
+      await boss.start()
+      if (!(await boss.getQueue(MAIL_QUEUE))) {
+        try {
+          await boss.createQueue(MAIL_QUEUE, { name: MAIL_QUEUE, retryLimit: o.retryLimit, retryDelay: o.retryDelayS, retryBackoff: true })
+        }
+        catch (error) {
+          // Another instance may have created it a moment ago.
+          if (!(await boss.getQueue(MAIL_QUEUE))) throw error
+        }
+      }
+      await boss.work<{ messageId: string }>(MAIL_QUEUE, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
+        if (!job) return
+        const final = job.retryCount >= job.retryLimit
+        const outcome = await deliverMessage(o.db, o.storage, o.smtp, job.data.messageId, final)
+        if (outcome instanceof Error) {
+          this.log(`Tonewright mail: message ${job.data.messageId} not delivered (attempt ${job.retryCount + 1} of ${job.retryLimit + 1}): ${outcome.message}`)
+          throw outcome
+        }
+      })
+    }
+    catch (error) {
+      this.log(`Tonewright: the mail queue could not start (${(error as Error).message}). The app keeps serving; e-mails stay queued in the outbox and go out once the queue starts (next try in 30 s).`)
+      await boss.stop({ graceful: false, wait: false }).catch(() => {})
+      if (!this.stopped) this.restartTimer = setTimeout(() => void this.start(), 30_000)
+      return false
+    }
+    this.boss = boss
+    this.log('Tonewright: mail queue started.')
+    this.sweepTimer = setInterval(() => void this.sweep(), o.sweepMs ?? 2000)
+    void this.sweep()
+    return true
+  }
+
+  /** Turns outbox rows without a job into jobs. The claim (job_id set from null) keeps two instances from doubling a job. */
+  async sweep() {
+    if (!this.boss || this.sweeping) return
+    this.sweeping = true
+    try {
+      const o = this.options
+      for (const { id } of await unscheduledMail(o.db)) {
+        const [claimed] = await o.db.update(mailMessages).set({ jobId: 'claimed' })
+          .where(and(eq(mailMessages.id, id), eq(mailMessages.status, 'queued'), isNull(mailMessages.jobId))).returning({ id: mailMessages.id })
+        if (!claimed) continue
+        try {
+          const jobId = await this.boss.send(MAIL_QUEUE, { messageId: id }, { retryLimit: o.retryLimit, retryDelay: o.retryDelayS, retryBackoff: true })
+          await o.db.update(mailMessages).set({ jobId: jobId ?? 'claimed' }).where(eq(mailMessages.id, id))
+        }
+        catch (error) {
+          await o.db.update(mailMessages).set({ jobId: null }).where(eq(mailMessages.id, id))
+          throw error
+        }
+      }
+    }
+    catch (error) {
+      this.log(`Tonewright mail queue: could not schedule queued messages (${(error as Error).message}); will try again.`)
+    }
+    finally {
+      this.sweeping = false
+    }
+  }
+
+  async stop() {
+    this.stopped = true
+    if (this.sweepTimer) clearInterval(this.sweepTimer)
+    if (this.restartTimer) clearTimeout(this.restartTimer)
+    if (this.boss) await this.boss.stop({ graceful: true, timeout: 5000 }).catch(() => {})
+    this.boss = null
+  }
+}
+
+let instance: MailQueue | null = null
+
+export function setMailQueue(queue: MailQueue | null) {
+  instance = queue
+}
+
+/** Schedules queued messages now instead of at the next sweep (no-op when the queue is not running). */
+export function kickMailQueue() {
+  void instance?.sweep()
+}

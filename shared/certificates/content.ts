@@ -1,0 +1,197 @@
+import type { PartialMatch } from '../analysis/types'
+
+/** One tuned partial of one piece as frozen on a certificate. */
+export interface CertificatePartial {
+  label: string
+  targetHz: number
+  measuredHz: number | null
+  /** Signed deviation used for the verdict (normalised to the reference temperature where a coefficient is set). */
+  cents: number | null
+  toleranceCents: number
+  required: boolean
+  within: boolean
+  missing: boolean
+}
+
+export interface CertificatePiece {
+  position: number
+  note: string
+  targetHz: number
+  template: string
+  lot: string | null
+  temperatureC: number | null
+  humidityPct: number | null
+  partials: CertificatePartial[]
+  verdict: 'within' | 'outside' | 'incomplete'
+  /** The supervisor's reason when a piece was approved although its strike was not within. */
+  overrideReason: string | null
+}
+
+export interface Range { min: number, max: number }
+
+/** The frozen content of a certificate; its canonical JSON is what the hash covers. */
+export interface CertificateContent {
+  format: 'tonewright-certificate/1'
+  number: string
+  verificationUrl: string
+  supersedes: string | null
+  workshop: { name: string, address: string }
+  buyer: { name: string, organisation: string, email: string }
+  instrument: {
+    name: string
+    model: string
+    serial: string
+    range: string
+    pieceCount: number
+    scrappedCount: number
+    lots: { code: string, material: string, species: string }[]
+  }
+  referenceHz: number
+  temperament: string
+  conditions: {
+    temperatureC: Range | null
+    humidityPct: Range | null
+    strikeCount: number
+    normalisation: { template: string, referenceTemperatureC: number, coefficientCentsPerC: number }[]
+    statement: string
+  }
+  method: string
+  decisionRule: string
+  uncertainty: string
+  engineVersions: string[]
+  pieces: CertificatePiece[]
+  signer: { name: string, role: string }
+  signedAt: string
+  scope: string
+}
+
+/** The set's columns a certificate reads (kept here so shared/ does not import the database schema). */
+interface InstrumentSetFields {
+  name: string
+  model: string
+  serial: string
+  fromNote: string
+  toNote: string
+  chromatic: boolean
+  buyerName: string
+  buyerOrganisation: string
+  buyerEmail: string
+  referenceHz: number
+  temperament: string
+}
+
+export interface ContentInput {
+  number: string
+  verificationUrl: string
+  supersedes: string | null
+  signedAt: Date
+  signer: { name: string, role: string }
+  workshop: { name: string, address: string }
+  set: Pick<InstrumentSetFields, 'name' | 'model' | 'serial' | 'fromNote' | 'toNote' | 'chromatic' | 'buyerName' | 'buyerOrganisation' | 'buyerEmail' | 'referenceHz' | 'temperament'>
+  scrappedCount: number
+  lots: { id: string, code: string, material: string, species: string }[]
+  pieces: {
+    position: number
+    note: string
+    targetHz: number
+    lotId: string | null
+    template: { name: string, version: number, referenceTemperatureC: number, temperatureCoefficientCentsPerC: number }
+    strike: { temperatureC: number | null, humidityPct: number | null, verdict: string | null, engineVersion: string, matches: PartialMatch[] }
+    overrideReason: string | null
+  }[]
+}
+
+const round = (value: number, digits: number) => Number(value.toFixed(digits))
+const roundOrNull = (value: number | null | undefined, digits: number) =>
+  value === null || value === undefined || !Number.isFinite(value) ? null : round(value, digits)
+
+function rangeOf(values: (number | null)[]): Range | null {
+  const present = values.filter((v): v is number => v !== null && Number.isFinite(v))
+  if (!present.length) return null
+  return { min: round(Math.min(...present), 1), max: round(Math.max(...present), 1) }
+}
+
+const signed = (n: number) => (n < 0 ? `−${Math.abs(n)}` : `+${n}`)
+
+/** The method in two sentences: what is measured and how. */
+export function methodText(engineVersions: string[]): string {
+  return `Each piece was struck on the bench and recorded, and the recording was analysed by the Tonewright measurement engine (version ${engineVersions.join(', ')}): `
+    + 'after the attack transient, a zero-padded short-time Fourier transform with a Blackman–Harris window finds the partials, whose frequencies are refined by parabolic interpolation and a long-window fit. '
+    + 'Each tuned partial is compared with its target, the ratio of the piece\'s template times the target fundamental from the reference pitch, as a deviation in cents, 1200 · log2(measured ÷ target).'
+}
+
+export const DECISION_RULE = 'A piece passes when every required partial of its ratio template is found and its deviation is within the tolerance (|Δ| ≤ tolerance, in cents); partials marked "reported" are shown but do not decide the verdict. No allowance for measurement uncertainty is added to or taken from the tolerance (simple acceptance).'
+
+export const UNCERTAINTY = 'The engine measures the frequency of a partial to ±0.1 ¢ (its benchmark on synthetic strikes with known partials, npm run bench:analysis). Above that, the uncertainty of the bench temperature dominates: every 1 °C of error in the recorded temperature moves a normalised deviation by the template\'s temperature coefficient.'
+
+export const SCOPE = 'These results relate only to the instrument measured, at the time and under the conditions stated.'
+
+/** Freezes what a certificate says, from the records at the moment of signing. */
+export function buildCertificateContent(input: ContentInput): CertificateContent {
+  const lotById = new Map(input.lots.map(l => [l.id, l]))
+  const usedLots = [...new Set(input.pieces.map(p => p.lotId).filter((id): id is string => Boolean(id)))]
+    .map(id => lotById.get(id)).filter(l => l !== undefined)
+    .map(l => ({ code: l.code, material: l.material, species: l.species }))
+    .sort((a, b) => a.code.localeCompare(b.code))
+  const templates = new Map<string, { template: string, referenceTemperatureC: number, coefficientCentsPerC: number }>()
+  for (const p of input.pieces) {
+    const key = `${p.template.name} (v${p.template.version})`
+    templates.set(key, { template: key, referenceTemperatureC: p.template.referenceTemperatureC, coefficientCentsPerC: p.template.temperatureCoefficientCentsPerC })
+  }
+  const normalisation = [...templates.values()]
+  const temperatureC = rangeOf(input.pieces.map(p => p.strike.temperatureC))
+  const humidityPct = rangeOf(input.pieces.map(p => p.strike.humidityPct))
+  const withCoefficient = normalisation.filter(n => n.coefficientCentsPerC !== 0)
+  const statement = !temperatureC
+    ? 'No bench temperature was recorded: deviations are as measured.'
+    : withCoefficient.length
+      ? `Deviations are normalised to the template's reference temperature: ${withCoefficient.map(n => `${n.referenceTemperatureC} °C at ${signed(n.coefficientCentsPerC)} ¢/°C for ${n.template}`).join('; ')}.`
+      : 'The templates set no temperature coefficient: deviations are as measured.'
+  const engineVersions = [...new Set(input.pieces.map(p => p.strike.engineVersion))].sort()
+  const range = input.set.fromNote === input.set.toNote
+    ? input.set.fromNote
+    : `${input.set.fromNote}–${input.set.toNote}${input.set.chromatic ? ', chromatic' : ', naturals'}`
+  return {
+    format: 'tonewright-certificate/1',
+    number: input.number,
+    verificationUrl: input.verificationUrl,
+    supersedes: input.supersedes,
+    workshop: { name: input.workshop.name, address: input.workshop.address },
+    buyer: { name: input.set.buyerName, organisation: input.set.buyerOrganisation, email: input.set.buyerEmail },
+    instrument: {
+      name: input.set.name, model: input.set.model, serial: input.set.serial, range,
+      pieceCount: input.pieces.length, scrappedCount: input.scrappedCount, lots: usedLots,
+    },
+    referenceHz: input.set.referenceHz,
+    temperament: input.set.temperament === 'equal' ? 'equal temperament' : input.set.temperament,
+    conditions: { temperatureC, humidityPct, strikeCount: input.pieces.length, normalisation, statement },
+    method: methodText(engineVersions),
+    decisionRule: DECISION_RULE,
+    uncertainty: UNCERTAINTY,
+    engineVersions,
+    pieces: [...input.pieces].sort((a, b) => a.position - b.position).map(p => ({
+      position: p.position,
+      note: p.note,
+      targetHz: round(p.targetHz, 3),
+      template: `${p.template.name} (v${p.template.version})`,
+      lot: p.lotId ? lotById.get(p.lotId)?.code ?? null : null,
+      temperatureC: roundOrNull(p.strike.temperatureC, 1),
+      humidityPct: roundOrNull(p.strike.humidityPct, 0),
+      partials: p.strike.matches.map(m => ({
+        label: m.label,
+        targetHz: round(m.targetHz, 3),
+        measuredHz: roundOrNull(m.measuredHz, 3),
+        cents: roundOrNull(m.cents, 1),
+        toleranceCents: m.toleranceCents,
+        required: m.required,
+        within: m.within,
+        missing: m.missing,
+      })),
+      verdict: (p.strike.verdict ?? 'incomplete') as CertificatePiece['verdict'],
+      overrideReason: p.overrideReason,
+    })),
+    signer: input.signer,
+    signedAt: input.signedAt.toISOString(),
+    scope: SCOPE,
+  }
+}

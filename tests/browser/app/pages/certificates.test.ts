@@ -1,0 +1,58 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { api } from '../../../integration/support/http'
+import { approveAll, approvedSet } from '../../../integration/support/certified-set'
+import { BASE_URL, launch, screenshot, signInAs } from '../../support/browser'
+
+let session: Awaited<ReturnType<typeof launch>>
+let ctx: Awaited<ReturnType<typeof approvedSet>>
+let cert: { id: string, number: string, code: string }
+const OFFICE_PASSWORD = 'dispatch-desk-password'
+
+beforeAll(async () => {
+  session = await launch()
+  ctx = await approvedSet({ from: 'C5', to: 'G5' })
+  await approveAll(ctx)
+  cert = (await api(`/api/sets/${ctx.set.id}/certificates`, { method: 'POST', token: ctx.supervisor.token })).body
+  // The office member's temporary password is changed first, as the app asks at first sign-in.
+  const changed = await api('/api/auth/password', { method: 'POST', token: ctx.office.token, body: { currentPassword: 'temporary-pass-123', newPassword: OFFICE_PASSWORD } })
+  if (changed.status !== 200) throw new Error(`password change: ${changed.status} ${JSON.stringify(changed.body)}`)
+})
+afterAll(async () => {
+  await session?.close()
+})
+
+describe('certificate screens', () => {
+  it('the office sees the certificate, queues the e-mail and finds it in the Mailbox', async () => {
+    const page = await session.newPage()
+    await signInAs(page, ctx.office.email, OFFICE_PASSWORD)
+    await page.goto(`${BASE_URL}/certificates`)
+    await page.getByText(cert.number).first().waitFor()
+    expect(await page.getByRole('button', { name: 'Revoke…' }).count()).toBe(0)
+    await page.getByRole('button', { name: 'Send…' }).click()
+    await page.getByRole('button', { name: 'Queue e-mail' }).click()
+    await page.getByRole('status').filter({ hasText: 'Queued for' }).waitFor()
+    await screenshot(page, 'certificates-office')
+    await page.goto(`${BASE_URL}/mailbox`)
+    const subject = page.getByText(`Tuning certificate ${cert.number}`).first()
+    for (let i = 0; i < 20 && !(await subject.isVisible()); i++) {
+      await page.waitForTimeout(500)
+      await page.getByRole('button', { name: 'Refresh' }).click()
+    }
+    expect(await page.getByRole('link', { name: new RegExp(`${cert.number}\\.pdf`) }).first().isVisible()).toBe(true)
+    await screenshot(page, 'mailbox')
+    await page.close()
+  })
+
+  it('anyone can open the verification page without signing in', async () => {
+    const page = await session.newPage()
+    await page.goto(`${BASE_URL}/verify/${cert.code}`)
+    await page.getByRole('heading', { name: cert.number }).waitFor()
+    expect(await page.getByText('Valid', { exact: true }).isVisible()).toBe(true)
+    expect(await page.getByText('Fernhill Community School').isVisible()).toBe(true)
+    expect(await page.content()).not.toContain(ctx.buyerEmail)
+    await screenshot(page, 'verify-valid')
+    await page.goto(`${BASE_URL}/verify/AAAAAAAAAAAAAAAA`)
+    await page.getByRole('heading', { name: 'No such certificate' }).waitFor()
+    await page.close()
+  })
+})
