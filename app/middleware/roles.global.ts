@@ -8,7 +8,8 @@ export default defineNuxtRouteMiddleware((to) => {
   const { data, status } = useAuth()
   if (status.value !== 'authenticated') return
   // A temporary password from the owner is changed before anything else.
-  if (data.value?.mustChangePassword && to.path !== '/account/password') return navigateTo('/account/password')
+  // Public pages (the certificate check) stay open whatever the account's state.
+  if (data.value?.mustChangePassword && to.path !== '/account/password' && to.meta.auth !== false) return navigateTo('/account/password')
   const permission = permissionForPath(to.path)
   if (permission && !can((data.value?.role ?? null) as Role | null, permission)) {
     return navigateTo({ path: '/', query: { denied: to.path } })
