@@ -71,7 +71,8 @@ ensure_poppler() {
 
 # Run a command as the PostgreSQL system user (PostgreSQL refuses to run as root).
 as_pg() {
-  if is_root; then runuser -u "$PG_USER" -- "$@"; else "$@"; fi
+  # From /, which the PostgreSQL user can always enter (the checkout may be private).
+  if is_root; then (cd / && runuser -u "$PG_USER" -- "$@"); else "$@"; fi
 }
 
 # Where a cluster named NAME lives: .data/NAME when the PostgreSQL user can reach
