@@ -1,4 +1,4 @@
-import { and, eq, gt, isNull } from 'drizzle-orm'
+import { and, count, eq, gt, isNull } from 'drizzle-orm'
 import { passwordResets, sessions, users } from '../database/schema'
 import type { Database } from '../database/client'
 import { findUserByEmail } from './accounts'
@@ -8,6 +8,7 @@ import { hashPassword } from './passwords'
 import { hashToken, newToken } from './sessions'
 
 export const RESET_MINUTES = 60
+export const RESETS_PER_HOUR = 3
 export const RESET_ANSWER = 'If an account uses that address, we have sent it a link to reset the password. The link works once, for an hour.'
 
 /** Queues a reset link for a known address; says the same, in about the same time, for an unknown one. */
@@ -15,6 +16,10 @@ export async function requestPasswordReset(db: Database, email: string, siteUrl:
   await db.transaction(async (tx) => {
     const user = await findUserByEmail(tx, email)
     if (!user) return
+    // At most three links an hour per account, so nobody can flood someone's inbox; the answer stays the same.
+    const [recent] = await tx.select({ n: count() }).from(passwordResets)
+      .where(and(eq(passwordResets.userId, user.id), gt(passwordResets.createdAt, new Date(Date.now() - 3600_000))))
+    if ((recent?.n ?? 0) >= RESETS_PER_HOUR) return
     const token = newToken()
     const expiresAt = new Date(Date.now() + RESET_MINUTES * 60 * 1000)
     // One live link at a time: an older unused one stops working.

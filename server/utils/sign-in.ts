@@ -29,3 +29,18 @@ export async function signIn(event: H3Event, input: SignInInput): Promise<{ toke
   const token = await createSession(db, { userId: user.id, workshopId, secret: config.authSecret, maxAgeS: Number(config.sessionMaxAgeS) })
   return { token }
 }
+
+/**
+ * Reset requests share the sign-in counters (kept per "reset:" + e-mail and per
+ * address), so one address cannot send requests without end; known and unknown
+ * e-mails are limited alike.
+ */
+export async function limitResetRequests(event: H3Event, email: string) {
+  const db = useDatabase()
+  const config = useRuntimeConfig()
+  const ip = getRequestIP(event) ?? 'unknown'
+  const key = `reset:${email}`
+  const limits = { ...DEFAULT_SIGN_IN_LIMITS, maxPerAddress: Number(config.signInMaxPerAddress) || DEFAULT_SIGN_IN_LIMITS.maxPerAddress }
+  if (await isSignInBlocked(db, ip, key, limits)) fail(429, 'Too many requests from here. Wait 15 minutes and try again.')
+  await recordFailedSignIn(db, ip, key)
+}

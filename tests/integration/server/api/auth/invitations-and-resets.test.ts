@@ -94,3 +94,29 @@ describe('password reset', () => {
     await signIn(owner.email, 'a-brand-new-password')
   })
 })
+
+describe('password reset limits', () => {
+  it('sends at most three links an hour to one account, answering the same every time', async () => {
+    const owner = await newWorkshop()
+    const answers = []
+    for (let i = 0; i < 5; i++) answers.push(await api('/api/auth/forgot-password', { method: 'POST', body: { email: owner.email } }))
+    expect(answers.map(a => a.status)).toEqual([200, 200, 200, 200, 200])
+    expect(new Set(answers.map(a => JSON.stringify(a.body))).size).toBe(1)
+    const [{ n }] = await testSql()`select count(*)::int as n from password_resets r join users u on u.id = r.user_id where u.email = ${owner.email}`
+    expect(n).toBe(3)
+  })
+
+  it('refuses the ninth request for one address within 15 minutes, known or not', async () => {
+    const owner = await newWorkshop()
+    const nobody = uniqueEmail('nobody')
+    const known: number[] = []
+    const unknown: number[] = []
+    for (let i = 0; i < 9; i++) {
+      known.push((await api('/api/auth/forgot-password', { method: 'POST', body: { email: owner.email } })).status)
+      unknown.push((await api('/api/auth/forgot-password', { method: 'POST', body: { email: nobody } })).status)
+    }
+    // 8 per e-mail in 15 minutes (server/utils/rate-limit.ts), the same for both.
+    expect(known).toEqual([...Array(8).fill(200), 429])
+    expect(unknown).toEqual(known)
+  })
+})
