@@ -45,6 +45,23 @@ describe('signing in', () => {
     await page.close()
   })
 
+  it('lets the owner add a member with a role from the Team screen', async () => {
+    const page = await session.newPage()
+    await signInAs(page, 'owner@tonewright.test')
+    await page.goto(`${BASE_URL}/team`)
+    const form = page.locator('form', { has: page.getByRole('heading', { name: 'Add a member' }) })
+    const email = `new-office-${Date.now()}@example.test`
+    await form.getByLabel('Name').fill('Wren Ashby')
+    await form.getByLabel('E-mail').fill(email)
+    await form.getByLabel('Role').selectOption('office')
+    await form.getByLabel('Temporary password').fill('temporary-pass-456')
+    await form.getByRole('button', { name: 'Add member' }).click()
+    const row = page.getByTestId('team-row').filter({ hasText: email })
+    await row.waitFor()
+    expect(await row.getByRole('combobox').inputValue()).toBe('office')
+    await page.close()
+  })
+
   it('hides owner-only controls and screens from a benchmaker', async () => {
     const page = await session.newPage()
     await signInAs(page, 'bench@tonewright.test')
