@@ -2,7 +2,7 @@ import { and, asc, count, desc, eq, ilike, inArray, isNull, or, sql, type SQL } 
 import { lots, pieces, reviews, sets, strikes, templateVersions, users } from '../database/schema'
 import type { Database, Executor } from '../database/client'
 import type { PieceQuery } from '../../shared/schemas/records'
-import { stageMoveProblem, type PieceStage } from '../../shared/records/stages'
+import { stageMoveProblem, stageMoveRoleProblem, type PieceStage } from '../../shared/records/stages'
 import type { Member } from './auth'
 import { audit } from './audit'
 import { fail } from './http-errors'
@@ -103,8 +103,11 @@ async function movePiece(tx: Executor, member: Member, pieceId: string, to: Piec
     .where(and(eq(pieces.id, pieceId), eq(pieces.workshopId, member.workshopId))).for('update')
   if (!piece) fail(404, 'No such piece in this workshop.')
   const label = `${piece.note} (piece ${piece.position})`
+  // What the role may never do is a 403; a move the piece's stage does not allow is a 409.
+  const roleProblem = stageMoveRoleProblem(member.role, to)
+  if (roleProblem) fail(403, `${label}: ${roleProblem}`)
   const problem = stageMoveProblem(member.role, piece.stage, to)
-  if (problem) fail(member.role === 'office' || (member.role === 'benchmaker' && to === 'scrapped') ? 403 : 409, `${label}: ${problem}`)
+  if (problem) fail(409, `${label}: ${problem}`)
   if (member.role === 'benchmaker' && piece.assigneeId && piece.assigneeId !== member.userId) {
     fail(403, `${label} is assigned to someone else.`)
   }

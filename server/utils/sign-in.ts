@@ -9,16 +9,18 @@ import { createSession } from './sessions'
 const WRONG = 'That e-mail and password do not match an account.'
 const SLOW_DOWN = 'Too many sign-in attempts. Wait 15 minutes and try again.'
 
+/** The limits in force: the per-address count can be raised by runtime config (the tests do). */
+function signInLimits() {
+  const perAddress = Number(useRuntimeConfig().signInMaxPerAddress)
+  return { ...DEFAULT_SIGN_IN_LIMITS, maxPerAddress: perAddress || DEFAULT_SIGN_IN_LIMITS.maxPerAddress }
+}
+
 /** Checks the credentials (rate-limited per address and per account) and opens a session. */
 export async function signIn(event: H3Event, input: SignInInput): Promise<{ token: string }> {
   const db = useDatabase()
   const config = useRuntimeConfig()
   const ip = getRequestIP(event) ?? 'unknown'
-  const limits = {
-    ...DEFAULT_SIGN_IN_LIMITS,
-    maxPerAddress: Number(config.signInMaxPerAddress) || DEFAULT_SIGN_IN_LIMITS.maxPerAddress,
-  }
-  if (await isSignInBlocked(db, ip, input.email, limits)) fail(429, SLOW_DOWN)
+  if (await isSignInBlocked(db, ip, input.email, signInLimits())) fail(429, SLOW_DOWN)
   const user = await verifyCredentials(db, input.email, input.password)
   if (!user) {
     await recordFailedSignIn(db, ip, input.email)
@@ -37,10 +39,8 @@ export async function signIn(event: H3Event, input: SignInInput): Promise<{ toke
  */
 export async function limitResetRequests(event: H3Event, email: string) {
   const db = useDatabase()
-  const config = useRuntimeConfig()
   const ip = getRequestIP(event) ?? 'unknown'
   const key = `reset:${email}`
-  const limits = { ...DEFAULT_SIGN_IN_LIMITS, maxPerAddress: Number(config.signInMaxPerAddress) || DEFAULT_SIGN_IN_LIMITS.maxPerAddress }
-  if (await isSignInBlocked(db, ip, key, limits)) fail(429, 'Too many requests from here. Wait 15 minutes and try again.')
+  if (await isSignInBlocked(db, ip, key, signInLimits())) fail(429, 'Too many requests from here. Wait 15 minutes and try again.')
   await recordFailedSignIn(db, ip, key)
 }

@@ -40,6 +40,16 @@ export function allowedMoves(from: PieceStage): readonly PieceStage[] {
 }
 
 /**
+ * Why this role may never make a move to `to`, or null: the office does not change
+ * stages, and scrapping is a supervisor's or owner's call. (The server answers 403.)
+ */
+export function stageMoveRoleProblem(role: Role, to: PieceStage): string | null {
+  if (role === 'office') return 'The office does not change piece stages.'
+  if (role === 'benchmaker' && to === 'scrapped') return 'Only a supervisor or the owner can scrap a piece.'
+  return null
+}
+
+/**
  * Why a role may not move a piece from one stage to another, or null when it may.
  * Benchmakers move between blank, roughed, tuning and review (and take rework back
  * to tuning); scrapping is a supervisor's or owner's call.
@@ -51,9 +61,7 @@ export function stageMoveProblem(role: Role, from: PieceStage, to: PieceStage): 
     if (from === 'approved') return 'An approved piece can only be reopened by a supervisor, with a reason.'
     return `A piece cannot go from ${STAGE_LABELS[from].toLowerCase()} to ${STAGE_LABELS[to].toLowerCase()}.`
   }
-  if (role === 'office') return 'The office does not change piece stages.'
-  if (role === 'benchmaker' && to === 'scrapped') return 'Only a supervisor or the owner can scrap a piece.'
-  return null
+  return stageMoveRoleProblem(role, to)
 }
 
 /** Stages in which a strike may be recorded. */

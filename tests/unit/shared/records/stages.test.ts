@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { allowedMoves, stageMoveProblem, STRIKEABLE_STAGES } from '../../../../shared/records/stages'
+import { allowedMoves, stageMoveProblem, stageMoveRoleProblem, STRIKEABLE_STAGES } from '../../../../shared/records/stages'
 
 // The stage order and side exits of the product notes (shared/product.md):
 // blank → roughed → tuning → review → approved → certified → shipped; rework back to tuning; scrapped.
@@ -23,6 +23,11 @@ describe('piece stages', () => {
     expect(stageMoveProblem('benchmaker', 'tuning', 'scrapped')).toMatch(/supervisor/)
     expect(stageMoveProblem('supervisor', 'tuning', 'scrapped')).toBeNull()
     expect(stageMoveProblem('office', 'blank', 'roughed')).toMatch(/office/)
+    // The role's own refusals, which the server answers with 403 rather than 409.
+    expect(stageMoveRoleProblem('office', 'roughed')).toMatch(/office/)
+    expect(stageMoveRoleProblem('benchmaker', 'scrapped')).toMatch(/supervisor/)
+    expect(stageMoveRoleProblem('benchmaker', 'review')).toBeNull()
+    expect(stageMoveRoleProblem('supervisor', 'scrapped')).toBeNull()
   })
 
   it('refuses a move to the same stage and unknown jumps', () => {
