@@ -244,7 +244,8 @@ describe('pieces', () => {
     await page.getByLabel('Move to stage').selectOption('roughed')
     await page.getByRole('button', { name: 'Change stage' }).click()
     await expectText(page.getByRole('alert').filter({ hasText: 'Nothing was changed' }), /C6.*approved/)
-    const f6 = page.getByTestId('piece-row').filter({ hasText: 'F6' })
+    // By its checkbox, not its text: the set's random suffix can itself contain "f6".
+    const f6 = page.getByTestId('piece-row').filter({ has: page.getByLabel(`Select F6 of ${fixture.setName}`) })
     expect(await f6.locator('[data-stage]').getAttribute('data-stage')).toBe('blank')
     await page.getByLabel(`Select C6 of ${fixture.setName}`).uncheck()
     await page.getByRole('button', { name: 'Change stage' }).click()
