@@ -22,6 +22,8 @@ export default defineNuxtConfig({
     authSecret: '',
     sessionMaxAgeS: 60 * 60 * 24 * 7,
     signInMaxPerAddress: 30,
+    // Reverse proxies whose X-Forwarded-For is believed (addresses or CIDR ranges, comma-separated); none by default.
+    trustedProxies: '',
     storage: { driver: 'fs', dir: '.data/storage' },
     smtp: { host: '127.0.0.1', port: 2525, user: '', pass: '', from: 'Tonewright <certificates@tonewright.test>' },
     // Where links in certificates and e-mails point (the public address of this app).

@@ -308,8 +308,15 @@ export const invitations = pgTable('invitations', {
   invitedBy: uuid('invited_by').references(() => users.id, { onDelete: 'set null' }),
   expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
   usedAt: timestamp('used_at', { withTimezone: true }),
+  // Revoked from the Team screen, replaced by a newer invitation, or because the inviter lost the right to invite.
+  revokedAt: timestamp('revoked_at', { withTimezone: true }),
+  revokedBy: uuid('revoked_by').references(() => users.id, { onDelete: 'set null' }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, t => [uniqueIndex('invitations_token_hash_key').on(t.tokenHash), index('invitations_workshop_idx').on(t.workshopId)])
+}, t => [
+  uniqueIndex('invitations_token_hash_key').on(t.tokenHash),
+  index('invitations_workshop_idx').on(t.workshopId),
+  index('invitations_inviter_idx').on(t.workshopId, t.invitedBy),
+])
 
 /** A single-use password reset link; accounts span workshops, so no workshop here. */
 export const passwordResets = pgTable('password_resets', {

@@ -3,7 +3,7 @@ import { memberships, users, workshops } from '../database/schema'
 import type { Database, Executor } from '../database/client'
 import type { Role } from '../../shared/auth/roles'
 import { audit } from './audit'
-import { fail } from './http-errors'
+import { conflictOnDuplicate, fail } from './http-errors'
 import { checkPassword, hashPassword } from './passwords'
 
 export async function findUserByEmail(db: Executor, email: string) {
@@ -24,6 +24,8 @@ export async function firstWorkshopOf(db: Executor, userId: string): Promise<str
   return row?.id ?? null
 }
 
+const SIGN_UP_TAKEN = 'That e-mail address cannot be used to sign up. If you already have an account, sign in and add a workshop from the workshop menu.'
+
 /**
  * Sign-up: a new user and a new workshop they own, in one transaction. `onCreated`
  * runs inside it, so the workshop's starter data lands with it or not at all.
@@ -34,15 +36,13 @@ export async function signUp(
   onCreated?: (tx: Executor, workshopId: string, userId: string) => Promise<void>,
 ) {
   const passwordHash = await hashPassword(input.password)
-  return db.transaction(async (tx) => {
+  return conflictOnDuplicate(() => db.transaction(async (tx) => {
     const existing = await findUserByEmail(tx, input.email)
-    if (existing) {
-      fail(409, 'That e-mail address cannot be used to sign up. If you already have an account, sign in and add a workshop from the workshop menu.')
-    }
+    if (existing) fail(409, SIGN_UP_TAKEN)
     const [user] = await tx.insert(users).values({ name: input.name, email: input.email, passwordHash }).returning()
     const workshop = await createWorkshopFor(tx, user!.id, input.workshopName, onCreated)
     return { user: user!, workshop }
-  })
+  }), SIGN_UP_TAKEN, 'users_email_key')
 }
 
 /** A workshop owned by an existing user. */

@@ -31,3 +31,32 @@ export function validateInput<S extends ZodTypeAny>(schema: S, data: unknown): z
   if (!result.success) fail(400, plainSentence(result.error))
   return result.data
 }
+
+/** The PostgreSQL error behind a failed query (Drizzle wraps it in `cause`). */
+function databaseErrorOf(error: unknown): { code?: string, constraint_name?: string } | null {
+  for (let e = error, depth = 0; e && typeof e === 'object' && depth < 5; e = (e as { cause?: unknown }).cause, depth++) {
+    if (typeof (e as { code?: unknown }).code === 'string') return e as { code: string, constraint_name?: string }
+  }
+  return null
+}
+
+/** True for a unique violation (SQLSTATE 23505), of the named constraint when one is given. */
+export function isUniqueViolation(error: unknown, constraint?: string): boolean {
+  const db = databaseErrorOf(error)
+  return db?.code === '23505' && (!constraint || db.constraint_name === constraint)
+}
+
+/**
+ * Runs `work` (typically a whole transaction) and turns a unique violation into
+ * 409 with the caller's sentence. Checking first is not enough: two requests can
+ * both pass the check, and the database's constraint decides which one wins.
+ */
+export async function conflictOnDuplicate<T>(work: () => Promise<T>, sentence: string, constraint?: string): Promise<T> {
+  try {
+    return await work()
+  }
+  catch (error) {
+    if (isUniqueViolation(error, constraint)) fail(409, sentence)
+    throw error
+  }
+}

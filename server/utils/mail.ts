@@ -37,10 +37,12 @@ export function certificateMail(content: CertificateContent, status: string): Ma
   ])
 }
 
-export function invitationMail(input: { workshopName: string, inviterName: string, role: string, link: string, expiresAt: Date }): MailBody {
+export function invitationMail(input: { workshopName: string, inviterName: string, role: string, link: string, expiresAt: Date, hasAccount?: boolean }): MailBody {
   return mail(`Join ${input.workshopName} on Tonewright`, `${input.inviterName} invites you to ${input.workshopName} on Tonewright`, [
     `${input.inviterName} invites you to join ${input.workshopName} on Tonewright as ${input.role.toLowerCase()}.`,
-    `Accept the invitation and choose your password here: ${input.link}`,
+    input.hasAccount
+      ? `You already have a Tonewright account with this address: sign in with it, then accept the invitation here: ${input.link}`
+      : `Accept the invitation and choose your password here: ${input.link}`,
     `The link works once and expires on ${input.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC. If you did not expect it, ignore this e-mail.`,
   ])
 }

@@ -16,6 +16,8 @@ export async function requestPasswordReset(db: Database, email: string, siteUrl:
   await db.transaction(async (tx) => {
     const user = await findUserByEmail(tx, email)
     if (!user) return
+    // Parallel requests for one account queue here, so the count below cannot be outrun.
+    await tx.select({ id: users.id }).from(users).where(eq(users.id, user.id)).for('update')
     // At most three links an hour per account, so nobody can flood someone's inbox; the answer stays the same.
     const [recent] = await tx.select({ n: count() }).from(passwordResets)
       .where(and(eq(passwordResets.userId, user.id), gt(passwordResets.createdAt, new Date(Date.now() - 3600_000))))
@@ -33,12 +35,13 @@ export async function requestPasswordReset(db: Database, email: string, siteUrl:
 
 /** Sets a new password with a live link, once; every session of the account ends. */
 export async function resetPassword(db: Database, input: { token: string, password: string }, secret: string) {
-  const passwordHash = await hashPassword(input.password)
   return db.transaction(async (tx) => {
     const [reset] = await tx.select().from(passwordResets)
       .where(and(eq(passwordResets.tokenHash, hashToken(input.token, secret)), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, new Date())))
       .for('update')
     if (!reset) fail(400, 'This reset link has expired or was already used. Ask for a new one.')
+    // Hashed only for a live link, so a made-up token costs the server no hashing.
+    const passwordHash = await hashPassword(input.password)
     await tx.update(passwordResets).set({ usedAt: new Date() }).where(eq(passwordResets.id, reset.id))
     await tx.update(users).set({ passwordHash, mustChangePassword: false }).where(eq(users.id, reset.userId))
     await tx.delete(sessions).where(eq(sessions.userId, reset.userId))

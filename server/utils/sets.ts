@@ -5,7 +5,7 @@ import type { CreateSetInput } from '../../shared/schemas/records'
 import { noteToFrequencyHz } from '../../shared/analysis/noteToFrequencyHz'
 import { expandNoteRange, noteToMidi } from '../../shared/records/noteRange'
 import { audit } from './audit'
-import { fail } from './http-errors'
+import { conflictOnDuplicate, fail } from './http-errors'
 import { currentVersionOf } from './templates'
 
 /** The target fundamental of a note in a set: equal temperament from the set's A4, plus any per-note offset. */
@@ -23,9 +23,11 @@ export async function createSet(db: Database, workshopId: string, actorId: strin
     fail(400, (error as Error).message)
   }
   if (notes.length === 0) fail(400, 'The range holds no notes.')
-  return db.transaction(async (tx) => {
+  const duplicate = `A set with serial number ${input.serial} already exists.`
+  // The check gives the usual answer; the unique index decides when two requests race.
+  return conflictOnDuplicate(() => db.transaction(async (tx) => {
     const [dup] = await tx.select({ id: sets.id }).from(sets).where(and(eq(sets.workshopId, workshopId), eq(sets.serial, input.serial)))
-    if (dup) fail(409, `A set with serial number ${input.serial} already exists.`)
+    if (dup) fail(409, duplicate)
     const defaultVersion = await currentVersionOf(tx, workshopId, input.templateId)
     const registerVersions: { from: number, to: number, version: TemplateVersion }[] = []
     for (const r of input.registers) {
@@ -50,7 +52,7 @@ export async function createSet(db: Database, workshopId: string, actorId: strin
     await tx.insert(pieces).values(rows)
     await audit(tx, { workshopId, actorId, action: 'set.create', subjectType: 'set', subjectId: set!.id, details: { pieces: rows.length } })
     return { ...set!, pieceCount: rows.length }
-  })
+  }), duplicate, 'sets_workshop_serial_key')
 }
 
 /** Sets with their pieces counted by stage. */

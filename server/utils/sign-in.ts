@@ -1,9 +1,9 @@
 import type { H3Event } from 'h3'
-import { getRequestIP } from 'h3'
 import type { SignInInput } from '../../shared/schemas/auth'
 import { firstWorkshopOf, verifyCredentials } from './accounts'
+import { clientAddress } from './client-address'
 import { fail } from './http-errors'
-import { clearFailedSignIns, DEFAULT_SIGN_IN_LIMITS, isSignInBlocked, recordFailedSignIn } from './rate-limit'
+import { clearFailedSignIns, DEFAULT_SIGN_IN_LIMITS, releaseAttempt, reserveAttempt } from './rate-limit'
 import { createSession } from './sessions'
 
 const WRONG = 'That e-mail and password do not match an account.'
@@ -15,17 +15,19 @@ function signInLimits() {
   return { ...DEFAULT_SIGN_IN_LIMITS, maxPerAddress: perAddress || DEFAULT_SIGN_IN_LIMITS.maxPerAddress }
 }
 
-/** Checks the credentials (rate-limited per address and per account) and opens a session. */
+/**
+ * Checks the credentials (rate-limited per address and per account) and opens a
+ * session. The attempt is counted before the password is checked, under a lock
+ * (reserveAttempt), so parallel guesses cannot slip past the limit.
+ */
 export async function signIn(event: H3Event, input: SignInInput): Promise<{ token: string }> {
   const db = useDatabase()
   const config = useRuntimeConfig()
-  const ip = getRequestIP(event) ?? 'unknown'
-  if (await isSignInBlocked(db, ip, input.email, signInLimits())) fail(429, SLOW_DOWN)
+  const attempt = await reserveAttempt(db, clientAddress(event), input.email, signInLimits())
+  if (!attempt) fail(429, SLOW_DOWN)
   const user = await verifyCredentials(db, input.email, input.password)
-  if (!user) {
-    await recordFailedSignIn(db, ip, input.email)
-    fail(401, WRONG)
-  }
+  if (!user) fail(401, WRONG)
+  // Success forgets this account's failures, the reserved attempt among them.
   await clearFailedSignIns(db, input.email)
   const workshopId = await firstWorkshopOf(db, user.id)
   const token = await createSession(db, { userId: user.id, workshopId, secret: config.authSecret, maxAgeS: Number(config.sessionMaxAgeS) })
@@ -35,12 +37,26 @@ export async function signIn(event: H3Event, input: SignInInput): Promise<{ toke
 /**
  * Reset requests share the sign-in counters (kept per "reset:" + e-mail and per
  * address), so one address cannot send requests without end; known and unknown
- * e-mails are limited alike.
+ * e-mails are limited alike. Every request counts.
  */
 export async function limitResetRequests(event: H3Event, email: string) {
+  if (!(await reserveAttempt(useDatabase(), clientAddress(event), `reset:${email}`, signInLimits()))) {
+    fail(429, 'Too many requests from here. Wait 15 minutes and try again.')
+  }
+}
+
+/**
+ * The routes that take a link's token (opening or accepting an invitation,
+ * resetting with a password) are limited like sign-in: failures are counted per
+ * address, 8 per kind and the address's sign-in allowance in all, in 15 minutes.
+ * A request that succeeds is not counted.
+ */
+export async function withTokenAttemptLimit<T>(event: H3Event, kind: 'invitation' | 'password-reset', work: () => Promise<T>): Promise<T> {
   const db = useDatabase()
-  const ip = getRequestIP(event) ?? 'unknown'
-  const key = `reset:${email}`
-  if (await isSignInBlocked(db, ip, key, signInLimits())) fail(429, 'Too many requests from here. Wait 15 minutes and try again.')
-  await recordFailedSignIn(db, ip, key)
+  const ip = clientAddress(event)
+  const attempt = await reserveAttempt(db, ip, `${kind}:${ip}`, signInLimits())
+  if (!attempt) fail(429, 'Too many tries with links from here. Wait 15 minutes and try again.')
+  const result = await work()
+  await releaseAttempt(db, attempt)
+  return result
 }

@@ -5,7 +5,9 @@ import type { Role } from '../../shared/auth/roles'
 import type { AddMemberInput } from '../../shared/schemas/auth'
 import { audit } from './audit'
 import { findUserByEmail } from './accounts'
-import { fail } from './http-errors'
+import type { Member } from './auth'
+import { conflictOnDuplicate, fail, isUniqueViolation } from './http-errors'
+import { ALREADY_MEMBER, inviteInTransaction, lockAddress, revokeInvitationsFrom } from './invitations'
 import { hashPassword } from './passwords'
 
 export interface TeamMember {
@@ -29,23 +31,44 @@ export async function listTeam(db: Executor, workshopId: string): Promise<TeamMe
     .orderBy(asc(users.name))
 }
 
+/** The answer to an add: the same for a new address and one that already has an account. */
+export interface AddMemberReply { email: string, name: string, role: Role, message: string }
+
+export const ADD_MEMBER_ANSWER = 'Done. A new address can sign in now with the temporary password and chooses its own at first sign-in; '
+  + 'an address that already has a Tonewright account gets an invitation to accept instead, and keeps its own password.'
+
 /**
  * Adds a member. A new e-mail gets an account with the temporary password (to be
- * changed at first sign-in); an existing account simply joins this workshop and
- * keeps its own password.
+ * changed at first sign-in) and joins at once. An address that already has an
+ * account is never linked silently: it gets an invitation to accept while signed
+ * in. The reply is the same in both cases and shows nothing of the account (its
+ * name, its id); see DEVELOPERS.md, "Adding members", for what an owner can still infer.
  */
-export async function addMember(db: Database, workshopId: string, actorId: string, input: AddMemberInput): Promise<TeamMember> {
+export async function addMember(db: Database, member: Member, input: AddMemberInput, siteUrl: string, secret: string): Promise<AddMemberReply> {
+  const { workshopId, userId: actorId } = member
+  // Hashed in both cases, so the answer takes about as long either way.
   const passwordHash = await hashPassword(input.temporaryPassword)
-  return db.transaction(async (tx) => {
-    const user = await findUserByEmail(tx, input.email)
-      ?? (await tx.insert(users).values({ name: input.name, email: input.email, passwordHash, mustChangePassword: true }).returning())[0]
-    const [existing] = await tx.select({ id: memberships.id }).from(memberships)
-      .where(and(eq(memberships.workshopId, workshopId), eq(memberships.userId, user!.id)))
-    if (existing) fail(409, 'That person is already a member of this workshop.')
-    const [membership] = await tx.insert(memberships).values({ workshopId, userId: user!.id, role: input.role }).returning()
+  const add = () => db.transaction(async (tx) => {
+    await lockAddress(tx, workshopId, input.email)
+    if (await findUserByEmail(tx, input.email)) {
+      await inviteInTransaction(tx, member, { name: input.name, email: input.email, role: input.role }, siteUrl, secret)
+      return
+    }
+    const [user] = await tx.insert(users).values({ name: input.name, email: input.email, passwordHash, mustChangePassword: true }).returning()
+    await tx.insert(memberships).values({ workshopId, userId: user!.id, role: input.role })
     await audit(tx, { workshopId, actorId, action: 'member.add', subjectType: 'user', subjectId: user!.id, toState: input.role })
-    return { userId: user!.id, name: user!.name, email: user!.email, role: input.role, mustChangePassword: user!.mustChangePassword, since: membership!.createdAt }
   })
+  await conflictOnDuplicate(async () => {
+    try {
+      await add()
+    }
+    catch (error) {
+      // Someone else (another workshop, a sign-up) created this account a moment ago: now it gets an invitation.
+      if (!isUniqueViolation(error, 'users_email_key')) throw error
+      await add()
+    }
+  }, ALREADY_MEMBER)
+  return { email: input.email, name: input.name, role: input.role, message: ADD_MEMBER_ANSWER }
 }
 
 /** Locks the workshop's memberships so two owners cannot demote each other at once. */
@@ -64,6 +87,7 @@ export async function changeRole(db: Database, workshopId: string, actorId: stri
     const owners = rows.filter(r => r.role === 'owner').length
     if (target.role === 'owner' && owners <= 1) fail(409, 'A workshop needs at least one owner: make someone else owner first.')
     await tx.update(memberships).set({ role }).where(and(eq(memberships.workshopId, workshopId), eq(memberships.userId, userId)))
+    await revokeInvitationsFrom(tx, workshopId, actorId, userId, role, 'The inviter may no longer give this role.')
     await audit(tx, { workshopId, actorId, action: 'member.role', subjectType: 'user', subjectId: userId, fromState: target.role, toState: role })
     return { userId, role }
   })
@@ -77,6 +101,7 @@ export async function removeMember(db: Database, workshopId: string, actorId: st
     const owners = rows.filter(r => r.role === 'owner').length
     if (target.role === 'owner' && owners <= 1) fail(409, 'The last owner cannot be removed: make someone else owner first.')
     await tx.delete(memberships).where(and(eq(memberships.workshopId, workshopId), eq(memberships.userId, userId)))
+    await revokeInvitationsFrom(tx, workshopId, actorId, userId, null, 'The inviter left the workshop.')
     await audit(tx, { workshopId, actorId, action: 'member.remove', subjectType: 'user', subjectId: userId, fromState: target.role })
     return { userId, removed: true }
   })

@@ -46,6 +46,15 @@ export function can(role: Role | null | undefined, permission: Permission): bool
   return (PERMISSIONS[permission] as readonly Role[]).includes(role)
 }
 
+/**
+ * The roles a member may give others, by adding or inviting them: whoever manages
+ * the team gives any role, everyone else none. An invitation is only as good as
+ * this answer for its inviter at the moment it is accepted.
+ */
+export function rolesAssignableBy(role: Role | null | undefined): readonly Role[] {
+  return can(role, 'team:manage') ? ROLES : []
+}
+
 export interface NavItem {
   label: string
   to: string

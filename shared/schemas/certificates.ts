@@ -20,10 +20,11 @@ export const InviteSchema = z.object({
 })
 export const TokenSchema = z.string({ required_error: 'The link is incomplete' }).regex(/^[\w-]{20,100}$/, 'The link is incomplete or damaged')
 export const InvitationLookupSchema = z.object({ token: TokenSchema })
+// Name and password are for a new account; an existing one accepts while signed in and sends neither.
 export const AcceptInvitationSchema = z.object({
   token: TokenSchema,
-  name: z.string({ required_error: 'Enter your name' }).trim().min(1, 'Enter your name').max(120, 'That name is too long'),
-  password: PasswordSchema,
+  name: z.string().trim().min(1, 'Enter your name').max(120, 'That name is too long').optional(),
+  password: PasswordSchema.optional(),
 })
 export const PasswordResetRequestSchema = z.object({ email: EmailSchema })
 export const PasswordResetSchema = z.object({ token: TokenSchema, password: PasswordSchema })

@@ -50,5 +50,8 @@ export async function memberWithRole(ownerToken: string, role: string) {
   const temporaryPassword = 'temporary-pass-123'
   const added = await api('/api/team', { method: 'POST', token: ownerToken, body: { name: `A ${role}`, email, role, temporaryPassword } })
   if (added.status !== 201) throw new Error(`add member failed: ${added.status} ${JSON.stringify(added.body)}`)
-  return { token: await signIn(email, temporaryPassword), userId: added.body.userId as string, email }
+  // The answer to an add does not carry the account's id (it is the same for an existing account); the session does.
+  const token = await signIn(email, temporaryPassword)
+  const session = await api('/api/auth/session', { token })
+  return { token, userId: session.body.id as string, email }
 }
