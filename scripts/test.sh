@@ -51,6 +51,9 @@ export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT="$SMTP_PORT"
 export NUXT_PUBLIC_DEV_MAILBOX=true
 # Every test request comes from 127.0.0.1: the per-address limit is tested against the database directly.
 export NUXT_SIGN_IN_MAX_PER_ADDRESS=1000
+# The test server sits "behind" a local proxy, so tests can speak for other client addresses with
+# X-Forwarded-For (tests/integration/security/accounts-parallel-limits.test.ts); production trusts none by default.
+export NUXT_TRUSTED_PROXIES=127.0.0.1
 export NUXT_MAIL_CATCHER_DIR="$MAIL_DIR" NUXT_SITE_URL="http://127.0.0.1:$APP_PORT"
 rm -rf "$NUXT_STORAGE_DIR"
 mail_catcher_stop "$MAIL_DIR"

@@ -9,7 +9,7 @@ import { conflictOnDuplicate, fail } from './http-errors'
 import { hashPassword } from './passwords'
 import { hashToken, type SessionMember } from './sessions'
 
-const GONE = 'This invitation link has expired, was revoked or was already used. Ask the workshop owner for a new one.'
+const GONE = 'This invitation link has expired or was already used, or it was revoked. Ask the workshop owner for a new one.'
 
 async function openInvitation(db: Executor, token: string, secret: string, lock: boolean) {
   const query = db.select({ invitation: invitations, workshopName: workshops.name }).from(invitations)

@@ -47,15 +47,18 @@ export async function limitResetRequests(event: H3Event, email: string) {
 
 /**
  * The routes that take a link's token (opening or accepting an invitation,
- * resetting with a password) are limited like sign-in: failures are counted per
- * address, 8 per kind and the address's sign-in allowance in all, in 15 minutes.
- * A request that succeeds is not counted.
+ * resetting with a password) are limited like sign-in: each failure counts
+ * against the client address's allowance (the same 30 in 15 minutes that failed
+ * sign-ins and reset requests use), before any password is hashed. A request
+ * that succeeds is not counted.
  */
 export async function withTokenAttemptLimit<T>(event: H3Event, kind: 'invitation' | 'password-reset', work: () => Promise<T>): Promise<T> {
   const db = useDatabase()
   const ip = clientAddress(event)
-  const attempt = await reserveAttempt(db, ip, `${kind}:${ip}`, signInLimits())
-  if (!attempt) fail(429, 'Too many tries with links from here. Wait 15 minutes and try again.')
+  const limits = signInLimits()
+  // Keyed by the address: a link failure has no account to count against.
+  const attempt = await reserveAttempt(db, ip, `${kind}:${ip}`, { ...limits, maxPerAccount: limits.maxPerAddress })
+  if (!attempt) fail(429, 'Too many tries from here. Wait 15 minutes and try again.')
   const result = await work()
   await releaseAttempt(db, attempt)
   return result

@@ -44,14 +44,28 @@ export async function signIn(email: string, password: string) {
   return reply.body.token as string
 }
 
-/** Adds a member with a role to the owner's workshop and signs them in. */
-export async function memberWithRole(ownerToken: string, role: string) {
+export const TEMPORARY_PASSWORD = 'temporary-pass-123'
+export const MEMBER_PASSWORD = 'members-own-password-1'
+
+/**
+ * Adds a member (a new address) with a role and a temporary password and signs them
+ * in, still on the temporary password: the server lets them read the session and
+ * change the password, nothing else.
+ */
+export async function memberOnTemporaryPassword(ownerToken: string, role: string) {
   const email = uniqueEmail(role)
-  const temporaryPassword = 'temporary-pass-123'
-  const added = await api('/api/team', { method: 'POST', token: ownerToken, body: { name: `A ${role}`, email, role, temporaryPassword } })
+  const added = await api('/api/team', { method: 'POST', token: ownerToken, body: { name: `A ${role}`, email, role, temporaryPassword: TEMPORARY_PASSWORD } })
   if (added.status !== 201) throw new Error(`add member failed: ${added.status} ${JSON.stringify(added.body)}`)
   // The answer to an add does not carry the account's id (it is the same for an existing account); the session does.
-  const token = await signIn(email, temporaryPassword)
+  const token = await signIn(email, TEMPORARY_PASSWORD)
   const session = await api('/api/auth/session', { token })
-  return { token, userId: session.body.id as string, email }
+  return { token, userId: session.body.id as string, email, temporaryPassword: TEMPORARY_PASSWORD }
+}
+
+/** Adds a member with a role, signs them in and chooses their own password (MEMBER_PASSWORD), as the app asks first. */
+export async function memberWithRole(ownerToken: string, role: string) {
+  const member = await memberOnTemporaryPassword(ownerToken, role)
+  const changed = await api('/api/auth/password', { method: 'POST', token: member.token, body: { currentPassword: TEMPORARY_PASSWORD, newPassword: MEMBER_PASSWORD } })
+  if (changed.status !== 200) throw new Error(`password change failed: ${changed.status} ${JSON.stringify(changed.body)}`)
+  return { token: member.token, userId: member.userId, email: member.email, password: MEMBER_PASSWORD }
 }

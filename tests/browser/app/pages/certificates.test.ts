@@ -13,8 +13,8 @@ beforeAll(async () => {
   ctx = await approvedSet({ from: 'C5', to: 'G5' })
   await approveAll(ctx)
   cert = (await api(`/api/sets/${ctx.set.id}/certificates`, { method: 'POST', token: ctx.supervisor.token })).body
-  // The office member's temporary password is changed first, as the app asks at first sign-in.
-  const changed = await api('/api/auth/password', { method: 'POST', token: ctx.office.token, body: { currentPassword: 'temporary-pass-123', newPassword: OFFICE_PASSWORD } })
+  // The office member chose a password of their own at first sign-in (memberWithRole); here a second change.
+  const changed = await api('/api/auth/password', { method: 'POST', token: ctx.office.token, body: { currentPassword: ctx.office.password, newPassword: OFFICE_PASSWORD } })
   if (changed.status !== 200) throw new Error(`password change: ${changed.status} ${JSON.stringify(changed.body)}`)
 })
 afterAll(async () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { api, memberWithRole, newWorkshop, uniqueEmail } from '../../../support/http'
+import { api, memberOnTemporaryPassword, memberWithRole, newWorkshop, uniqueEmail } from '../../../support/http'
 
 describe('team', () => {
   it('lists the members of the current workshop', async () => {
@@ -69,7 +69,7 @@ describe('team', () => {
 describe('temporary passwords', () => {
   it('flags a member added with a temporary password until they choose their own', async () => {
     const owner = await newWorkshop()
-    const bench = await memberWithRole(owner.token, 'benchmaker')
+    const bench = await memberOnTemporaryPassword(owner.token, 'benchmaker')
     expect((await api('/api/auth/session', { token: bench.token })).body.mustChangePassword).toBe(true)
     const wrong = await api('/api/auth/password', { method: 'POST', token: bench.token, body: { currentPassword: 'not-it-at-all', newPassword: 'my-own-password-1' } })
     expect(wrong.status).toBe(400)
