@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { newWorkshop, uniqueEmail } from '../../../integration/support/http'
+import { api, newWorkshop, uniqueEmail } from '../../../integration/support/http'
 import { waitForMailTo } from '../../../integration/support/mail'
 import { BASE_URL, launch, screenshot, signInAs } from '../../support/browser'
 
@@ -38,6 +38,61 @@ describe('invitation and password reset screens', () => {
     await page.waitForURL(url => url.pathname === '/', { timeout: 20_000 })
     await page.getByText('Tomas Reyling').first().waitFor({ timeout: 15_000 })
     await screenshot(page, 'joined')
+    await page.close()
+  })
+
+  it('the owner sees a pending invitation on the Team screen and revokes it', async () => {
+    const email = uniqueEmail('revoked')
+    const workshop = await newWorkshop('Tidemill Chimes')
+    const page = await session.newPage()
+    page.on('dialog', dialog => dialog.accept())
+    await signInAs(page, workshop.email, workshop.password)
+    await page.goto(`${BASE_URL}/team`)
+    const form = page.locator('form', { has: page.getByRole('heading', { name: 'Invite by e-mail' }) })
+    await form.getByLabel('E-mail').fill(email)
+    await form.getByRole('button', { name: 'Send invitation' }).click()
+    const row = page.getByTestId('invitation-row').filter({ hasText: email })
+    await row.waitFor()
+    await screenshot(page, 'team-pending-invitations')
+    await row.getByRole('button', { name: `Revoke the invitation to ${email}` }).click()
+    await page.getByText(`The invitation to ${email} was revoked.`).waitFor()
+    expect(await page.getByTestId('invitation-row').filter({ hasText: email }).count()).toBe(0)
+    await page.close()
+
+    const link = /https?:\/\/\S+\/join\?token=[\w-]+/.exec((await waitForMailTo(email)).text)![0]
+    const invited = await session.newPage()
+    await invited.goto(link)
+    await invited.getByRole('heading', { name: 'Invitation not valid' }).waitFor()
+    await invited.close()
+  })
+
+  it('a person who already has an account signs in and then joins from the link', async () => {
+    const workshop = await newWorkshop('Harrowfield Bells')
+    const person = await newWorkshop('Their Own Bench')
+    const owner = await session.newPage()
+    await signInAs(owner, workshop.email, workshop.password)
+    await owner.goto(`${BASE_URL}/team`)
+    const form = owner.locator('form', { has: owner.getByRole('heading', { name: 'Invite by e-mail' }) })
+    await form.getByLabel('E-mail').fill(person.email)
+    await form.getByLabel('Role').selectOption('supervisor')
+    await form.getByRole('button', { name: 'Send invitation' }).click()
+    await owner.getByText(`An invitation is on its way to ${person.email}`).waitFor()
+    await owner.close()
+
+    const link = /https?:\/\/\S+\/join\?token=[\w-]+/.exec((await waitForMailTo(person.email)).text)![0]
+    const page = await session.newPage()
+    await page.goto(link)
+    await page.getByRole('heading', { name: 'Join Harrowfield Bells' }).waitFor()
+    await page.getByRole('link', { name: `Sign in as ${person.email}` }).click()
+    await page.getByLabel('E-mail').fill(person.email)
+    await page.getByLabel('Password').fill(person.password)
+    await page.getByRole('button', { name: 'Sign in' }).click()
+    await page.waitForURL(url => url.pathname === '/join', { timeout: 20_000 })
+    await screenshot(page, 'join-signed-in')
+    await page.getByRole('button', { name: 'Join the workshop' }).click()
+    await page.waitForURL(url => url.pathname === '/', { timeout: 20_000 })
+    const session2 = await api('/api/auth/session', { token: person.token })
+    expect(session2.body.workshops).toContainEqual(expect.objectContaining({ name: 'Harrowfield Bells', role: 'supervisor' }))
     await page.close()
   })
 
