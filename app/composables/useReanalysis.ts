@@ -40,7 +40,7 @@ export function useReanalysis(scope: 'set' | 'piece', id: string, onFinished: ()
 
   async function load() {
     try {
-      run.value = await api<ReanalysisRunView | null>('/api/reanalysis', { query: { [scope]: id } })
+      run.value = (await api<{ run: ReanalysisRunView | null }>('/api/reanalysis', { query: { [scope]: id } })).run
       follow()
     }
     catch (error) {

@@ -84,10 +84,14 @@ export async function getReanalysisRun(db: Executor, workshopId: string, runId: 
   return runView(run)
 }
 
-/** The latest run of a set (any scope within it) or of a piece, or null. */
+/** The latest run of a set (any scope within it) or of a piece, as `{ run }` (null when there was none); 404 for another workshop's. */
 export async function latestReanalysis(db: Executor, workshopId: string, query: LatestReanalysisInput) {
+  const [owned] = query.piece
+    ? await db.select({ id: pieces.id }).from(pieces).where(and(eq(pieces.id, query.piece), eq(pieces.workshopId, workshopId)))
+    : await db.select({ id: sets.id }).from(sets).where(and(eq(sets.id, query.set!), eq(sets.workshopId, workshopId)))
+  if (!owned) fail(404, query.piece ? 'No such piece in this workshop.' : 'No such set in this workshop.')
   const [run] = await db.select().from(reanalysisRuns)
     .where(and(eq(reanalysisRuns.workshopId, workshopId), query.piece ? eq(reanalysisRuns.pieceId, query.piece) : eq(reanalysisRuns.setId, query.set!)))
     .orderBy(desc(reanalysisRuns.createdAt)).limit(1)
-  return run ? runView(run) : null
+  return { run: run ? runView(run) : null }
 }

@@ -75,9 +75,11 @@ describe('re-measurement: who may, and whose', () => {
     expect((await api(`/api/sets/${set.id}/reanalyze`, { method: 'POST', token: other.token, body: {} })).status).toBe(404)
     expect((await api(`/api/pieces/${set.pieces[0]!.id}/reanalyze`, { method: 'POST', token: other.token, body: {} })).status).toBe(404)
     expect(await runsOf(set.id)).toHaveLength(0)
-    const latest = await api(`/api/reanalysis?set=${set.id}`, { token: other.token })
-    expect(latest.status).toBe(200)
-    expect(latest.body).toBeNull()
+    expect((await api(`/api/reanalysis?set=${set.id}`, { token: other.token })).status).toBe(404)
+    expect((await api(`/api/reanalysis?piece=${set.pieces[0]!.id}`, { token: other.token })).status).toBe(404)
+    const none = await api(`/api/reanalysis?set=${set.id}`, { token: owner.token })
+    expect(none.status).toBe(200)
+    expect(none.body).toEqual({ run: null })
   })
 
   it('answers 400 with a sentence for malformed requests', async () => {
@@ -150,7 +152,10 @@ describe('re-measuring a set', () => {
     const audits = await sql<{ action: string }[]>`select action from audit_events where workshop_id = ${owner.workshopId} and action like 'reanalysis.%' or (workshop_id = ${owner.workshopId} and action = 'piece.reanalyze')`
     expect(audits.map(a => a.action)).toEqual(expect.arrayContaining(['reanalysis.request', 'reanalysis.done', 'piece.reanalyze']))
     const latest = await api(`/api/reanalysis?set=${set.id}`, { token: benchmaker })
-    expect(latest.body.id).toBe(done.id)
+    expect(latest.body.run.id).toBe(done.id)
+    // Another workshop cannot read the run.
+    const other = await newWorkshop('Curious neighbour')
+    expect((await api(`/api/reanalysis/${done.id}`, { token: other.token })).status).toBe(404)
   })
 })
 
