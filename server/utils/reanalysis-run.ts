@@ -104,19 +104,23 @@ export async function executeReanalysis(db: Database, storage: BlobStorage, runI
   const [run] = await db.update(reanalysisRuns).set({ status: 'running', startedAt: sql`coalesce(${reanalysisRuns.startedAt}, now())` })
     .where(and(eq(reanalysisRuns.id, runId), inArray(reanalysisRuns.status, ['queued', 'running']))).returning()
   if (!run) return null
-  const rows = await db.select({ strike: strikes, piece: pieces, set: sets, template: templateVersions }).from(strikes)
-    .innerJoin(pieces, eq(pieces.id, strikes.pieceId))
-    .innerJoin(sets, eq(sets.id, pieces.setId))
-    .innerJoin(templateVersions, eq(templateVersions.id, sql`coalesce(${strikes.templateVersionId}, ${pieces.templateVersionId})`))
-    .where(and(eq(strikes.workshopId, run.workshopId), run.pieceId ? eq(pieces.id, run.pieceId) : eq(pieces.setId, run.setId), ne(pieces.stage, 'scrapped')))
-    .orderBy(asc(pieces.position), asc(strikes.createdAt))
-  const byPiece = new Map<string, typeof rows>()
-  for (const row of rows) byPiece.set(row.piece.id, [...(byPiece.get(row.piece.id) ?? []), row])
+  const scope = and(eq(strikes.workshopId, run.workshopId), run.pieceId ? eq(pieces.id, run.pieceId) : eq(pieces.setId, run.setId), ne(pieces.stage, 'scrapped'))
+  // Ids first; each piece's strikes (with their stored results) are read when their turn comes, to keep memory bounded.
+  const ids = await db.select({ pieceId: pieces.id }).from(strikes).innerJoin(pieces, eq(pieces.id, strikes.pieceId))
+    .where(scope).orderBy(asc(pieces.position), asc(strikes.createdAt))
+  const pieceIds = [...new Set(ids.map(r => r.pieceId))]
   const started = run.result as unknown as ReanalysisResult
   const done = new Set(started.pieces.map(p => p.pieceId))
-  await db.update(reanalysisRuns).set({ result: { ...started, pieceCount: byPiece.size, strikeCount: rows.length } }).where(eq(reanalysisRuns.id, runId))
-  for (const [pieceId, pieceRows] of byPiece) {
+  await db.update(reanalysisRuns).set({ result: sql`${reanalysisRuns.result} || jsonb_build_object('pieceCount', ${pieceIds.length}::int, 'strikeCount', ${ids.length}::int)` })
+    .where(eq(reanalysisRuns.id, runId))
+  for (const pieceId of pieceIds) {
     if (done.has(pieceId)) continue
+    const pieceRows = await db.select({ strike: strikes, piece: pieces, set: sets, template: templateVersions }).from(strikes)
+      .innerJoin(pieces, eq(pieces.id, strikes.pieceId))
+      .innerJoin(sets, eq(sets.id, pieces.setId))
+      .innerJoin(templateVersions, eq(templateVersions.id, sql`coalesce(${strikes.templateVersionId}, ${pieces.templateVersionId})`))
+      .where(and(eq(strikes.workshopId, run.workshopId), eq(strikes.pieceId, pieceId)))
+      .orderBy(asc(strikes.createdAt))
     const measured: Measured[] = []
     for (const { strike, piece, set, template } of pieceRows) {
       const bytes = await storage.get(strike.audioKey)

@@ -1,5 +1,5 @@
-import { and, count, desc, eq, ne } from 'drizzle-orm'
-import { pieces, reanalysisRuns, sets, strikes, type ReanalysisRun } from '../database/schema'
+import { and, asc, count, desc, eq, ne } from 'drizzle-orm'
+import { pieces, reanalysisRuns, sets, strikeAnalyses, strikes, type ReanalysisRun } from '../database/schema'
 import type { Database, Executor } from '../database/client'
 import { ENGINE_VERSION } from '../../shared/analysis/version'
 import { MAX_REANALYSIS_STRIKES, type LatestReanalysisInput } from '../../shared/schemas/reanalysis'
@@ -94,4 +94,16 @@ export async function latestReanalysis(db: Executor, workshopId: string, query: 
     .where(and(eq(reanalysisRuns.workshopId, workshopId), query.piece ? eq(reanalysisRuns.pieceId, query.piece) : eq(reanalysisRuns.setId, query.set!)))
     .orderBy(desc(reanalysisRuns.createdAt)).limit(1)
   return { run: run ? runView(run) : null }
+}
+
+/** Every result a strike has had, oldest first; 404 for another workshop's strike. */
+export async function strikeHistory(db: Executor, workshopId: string, strikeId: string) {
+  const [strike] = await db.select({ id: strikes.id }).from(strikes).where(and(eq(strikes.id, strikeId), eq(strikes.workshopId, workshopId)))
+  if (!strike) fail(404, 'No such strike in this workshop.')
+  return db.select({
+    id: strikeAnalyses.id, engineVersion: strikeAnalyses.engineVersion, verdict: strikeAnalyses.verdict, worstCents: strikeAnalyses.worstCents,
+    fundamentalHz: strikeAnalyses.fundamentalHz, applied: strikeAnalyses.applied, reason: strikeAnalyses.reason, runId: strikeAnalyses.runId,
+    createdBy: strikeAnalyses.createdBy, createdAt: strikeAnalyses.createdAt,
+  }).from(strikeAnalyses).where(and(eq(strikeAnalyses.strikeId, strikeId), eq(strikeAnalyses.workshopId, workshopId)))
+    .orderBy(asc(strikeAnalyses.createdAt), asc(strikeAnalyses.id))
 }

@@ -153,9 +153,13 @@ describe('re-measuring a set', () => {
     expect(audits.map(a => a.action)).toEqual(expect.arrayContaining(['reanalysis.request', 'reanalysis.done', 'piece.reanalyze']))
     const latest = await api(`/api/reanalysis?set=${set.id}`, { token: benchmaker })
     expect(latest.body.run.id).toBe(done.id)
-    // Another workshop cannot read the run.
+    const listed = await api(`/api/strikes/${strikeIds[0]![1]}/analyses`, { token: office })
+    expect(listed.status).toBe(200)
+    expect(listed.body.map((h: { reason: string, engineVersion: string }) => `${h.reason} ${h.engineVersion}`)).toEqual([`recorded ${ENGINE_VERSION}`, `reanalyze ${ENGINE_VERSION}`])
+    // Another workshop cannot read the run nor the history.
     const other = await newWorkshop('Curious neighbour')
     expect((await api(`/api/reanalysis/${done.id}`, { token: other.token })).status).toBe(404)
+    expect((await api(`/api/strikes/${strikeIds[0]![1]}/analyses`, { token: other.token })).status).toBe(404)
   })
 })
 
@@ -178,7 +182,7 @@ describe('re-measuring a signed piece', () => {
     expect(after.body.latestVerdict).toBe('outside')
     const [s] = await sql<{ engine_version: string }[]>`select engine_version from strikes where id = ${strikeIds[1]![0]!}`
     expect(s!.engine_version).toBe('0.9.0')
-    const [h] = await sql<{ applied: boolean }[]>`select applied from strike_analyses where strike_id = ${strikeIds[1]![0]!} and reason = 'reanalyze'`
+    const [h] = await sql<{ applied: boolean }[]>`select applied from strike_analyses where strike_id = ${strikeIds[1]![0]!} and run_id = ${run.id}`
     expect(h!.applied).toBe(false)
   })
 })
