@@ -17,7 +17,7 @@ beforeAll(async () => {
   const piece = set.pieces[0]!
   const strike = await postStrike(owner.token, piece.id, strikeWav(piece.targetHz, [1, 4], [0.3, 0]))
   // As if an older engine had read the fundamental 6 ¢ sharp.
-  await sql`update strikes set engine_version = '0.9.0', verdict = 'outside',
+  await sql`update strikes set engine_version = '0.9.0', verdict = 'outside', worst_cents = worst_cents + 6,
     analysis = jsonb_set(analysis, '{matches,0,cents}', to_jsonb((analysis #>> '{matches,0,cents}')::float8 + 6)) where id = ${strike.body.id}`
 })
 afterAll(async () => {
