@@ -185,7 +185,12 @@ export const pieces = pgTable('pieces', {
   index('pieces_workshop_assignee_idx').on(t.workshopId, t.assigneeId),
 ])
 
-/** One recording of one blow on one piece, with the engine's full result. Never changed after it is saved. */
+/**
+ * One recording of one blow on one piece, with the engine's current result. The audio and
+ * conditions never change; a re-measurement with a newer engine moves the result columns
+ * (engine_version, analysis, fundamental_hz, worst_cents, verdict) to the newest result,
+ * and every result, old and new, stays in `strike_analyses`.
+ */
 export const strikes = pgTable('strikes', {
   id: uuid('id').primaryKey().defaultRandom(),
   workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
@@ -210,6 +215,61 @@ export const strikes = pgTable('strikes', {
   index('strikes_workshop_user_idx').on(t.workshopId, t.userId, t.createdAt),
 ])
 
+export const VERDICT_VALUES = ['within', 'outside', 'incomplete'] as const
+export const REANALYSIS_STATUSES = ['queued', 'running', 'done', 'failed'] as const
+export type ReanalysisStatus = (typeof REANALYSIS_STATUSES)[number]
+
+/**
+ * A request to re-measure the stored strikes of a piece or a set with the current
+ * engine, run as a background job. At most one run per set is queued or running.
+ */
+export const reanalysisRuns = pgTable('reanalysis_runs', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  setId: uuid('set_id').notNull().references(() => sets.id, { onDelete: 'cascade' }),
+  pieceId: uuid('piece_id').references(() => pieces.id, { onDelete: 'cascade' }),
+  scope: text('scope', { enum: ['piece', 'set'] }).notNull(),
+  status: text('status', { enum: REANALYSIS_STATUSES }).notNull().default('queued'),
+  reason: text('reason').notNull().default(''),
+  /** The engine version that measured the run (set when it finishes). */
+  engineVersion: text('engine_version'),
+  jobId: text('job_id'),
+  result: jsonb('result').$type<Record<string, unknown>>(),
+  error: text('error'),
+  requestedBy: uuid('requested_by').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  startedAt: timestamp('started_at', { withTimezone: true }),
+  finishedAt: timestamp('finished_at', { withTimezone: true }),
+}, t => [
+  uniqueIndex('reanalysis_runs_active_set_key').on(t.setId).where(sql`status in ('queued', 'running')`),
+  index('reanalysis_runs_workshop_idx').on(t.workshopId, t.createdAt),
+  index('reanalysis_runs_status_idx').on(t.status, t.jobId),
+])
+
+/**
+ * Every result a strike has had, oldest first: the first measurement ('recorded') and
+ * each re-measurement ('reanalyze'). `applied` says whether the result became the
+ * strike's current one (a signed piece's strikes keep the result they were signed on).
+ */
+export const strikeAnalyses = pgTable('strike_analyses', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  strikeId: uuid('strike_id').notNull().references(() => strikes.id, { onDelete: 'cascade' }),
+  engineVersion: text('engine_version').notNull(),
+  analysis: jsonb('analysis').notNull(),
+  verdict: text('verdict', { enum: VERDICT_VALUES }),
+  worstCents: doublePrecision('worst_cents'),
+  fundamentalHz: doublePrecision('fundamental_hz'),
+  applied: boolean('applied').notNull().default(true),
+  reason: text('reason', { enum: ['recorded', 'reanalyze'] }).notNull(),
+  runId: uuid('run_id').references(() => reanalysisRuns.id, { onDelete: 'set null' }),
+  createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [
+  index('strike_analyses_strike_idx').on(t.strikeId, t.createdAt),
+  index('strike_analyses_workshop_idx').on(t.workshopId, t.createdAt),
+])
+
 /** A supervisor's decision on a piece: approve, return for rework, or reopen an approval. */
 export const reviews = pgTable('reviews', {
   id: uuid('id').primaryKey().defaultRandom(),
@@ -230,6 +290,8 @@ export type InstrumentSet = typeof sets.$inferSelect
 export type Piece = typeof pieces.$inferSelect
 export type Strike = typeof strikes.$inferSelect
 export type Review = typeof reviews.$inferSelect
+export type ReanalysisRun = typeof reanalysisRuns.$inferSelect
+export type StrikeAnalysis = typeof strikeAnalyses.$inferSelect
 
 // ---------------------------------------------------------------- certificates and mail
 

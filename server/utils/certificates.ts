@@ -8,6 +8,7 @@ import type { PartialMatch } from '../../shared/analysis/types'
 import { ROLE_LABELS } from '../../shared/auth/roles'
 import { canonicalJson } from '../../shared/certificates/canonicalJson'
 import { buildCertificateContent, type CertificateContent } from '../../shared/certificates/content'
+import type { StoredPartial } from '../../shared/certificates/uncertaintyText'
 import type { Member } from './auth'
 import { audit } from './audit'
 import { renderCertificatePdf, type Paper } from './certificate-pdf'
@@ -81,10 +82,10 @@ export async function signCertificate(db: Database, storage: BlobStorage, member
       pieces: live.map(({ piece, template }) => {
         const strike = strikeById.get(piece.approvedStrikeId!)
         if (!strike) fail(409, `The approved strike of ${piece.note} is missing.`)
-        const analysis = strike.analysis as { matches?: PartialMatch[] }
+        const analysis = strike.analysis as { matches?: PartialMatch[], partials?: StoredPartial[] }
         return {
           position: piece.position, note: piece.note, targetHz: piece.targetHz, lotId: piece.lotId, template,
-          strike: { temperatureC: strike.temperatureC, humidityPct: strike.humidityPct, verdict: strike.verdict, engineVersion: strike.engineVersion, matches: analysis.matches ?? [] },
+          strike: { temperatureC: strike.temperatureC, humidityPct: strike.humidityPct, verdict: strike.verdict, engineVersion: strike.engineVersion, matches: analysis.matches ?? [], partials: analysis.partials ?? [] },
           overrideReason: overrideByStrike.get(strike.id) ?? null,
         }
       }),

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import { and, eq, sql } from 'drizzle-orm'
-import { pieces, sets, strikes, templateVersions } from '../database/schema'
+import { pieces, sets, strikeAnalyses, strikes, templateVersions } from '../database/schema'
 import type { Database } from '../database/client'
 import type { AnalysisResult } from '../../shared/analysis/types'
 import { STAGE_LABELS, STRIKEABLE_STAGES } from '../../shared/records/stages'
@@ -82,6 +82,11 @@ export async function recordStrike(
         engineVersion: analysis.engineVersion, analysis, templateVersionId: template.id,
         fundamentalHz: analysis.fundamentalHz, worstCents: worst, verdict,
       }).returning()
+      // The first entry of the strike's result history.
+      await tx.insert(strikeAnalyses).values({
+        workshopId: member.workshopId, strikeId, engineVersion: analysis.engineVersion, analysis, verdict, worstCents: worst,
+        fundamentalHz: analysis.fundamentalHz, applied: true, reason: 'recorded', createdBy: member.userId, createdAt: strike!.createdAt,
+      })
       // A blank or returned piece is being tuned as soon as it is struck; a strike while
       // roughing or in review leaves the stage alone.
       const stage = current.stage === 'rework' || current.stage === 'blank' ? 'tuning' : current.stage

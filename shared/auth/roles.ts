@@ -25,6 +25,8 @@ export const PERMISSIONS = {
   'pieces:assign': ['owner', 'supervisor'],
   'bench:strike': ['owner', 'supervisor', 'benchmaker'],
   'review:decide': ['owner', 'supervisor'],
+  /** Re-measure stored strikes with the current engine (keeps every old result). */
+  'strikes:reanalyze': ['owner', 'supervisor'],
   'sets:read': ['owner', 'supervisor', 'benchmaker', 'office'],
   'sets:manage': ['owner', 'office'],
   'sets:ship': ['owner', 'office'],

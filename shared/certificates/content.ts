@@ -1,4 +1,5 @@
 import type { PartialMatch } from '../analysis/types'
+import { uncertaintyText, type StoredPartial } from './uncertaintyText'
 
 /** One tuned partial of one piece as frozen on a certificate. */
 export interface CertificatePartial {
@@ -96,7 +97,15 @@ export interface ContentInput {
     targetHz: number
     lotId: string | null
     template: { name: string, version: number, referenceTemperatureC: number, temperatureCoefficientCentsPerC: number }
-    strike: { temperatureC: number | null, humidityPct: number | null, verdict: string | null, engineVersion: string, matches: PartialMatch[] }
+    strike: {
+      temperatureC: number | null
+      humidityPct: number | null
+      verdict: string | null
+      engineVersion: string
+      matches: PartialMatch[]
+      /** The strike's measured partials; from engine 2 on they carry `uncertaintyCents`. */
+      partials?: StoredPartial[]
+    }
     overrideReason: string | null
   }[]
 }
@@ -121,8 +130,6 @@ export function methodText(engineVersions: string[]): string {
 }
 
 export const DECISION_RULE = 'A piece passes when every required partial of its ratio template is found and its deviation is within the tolerance (|Δ| ≤ tolerance, in cents); partials marked "reported" are shown but do not decide the verdict. No allowance for measurement uncertainty is added to or taken from the tolerance (simple acceptance).'
-
-export const UNCERTAINTY = 'The engine measures the frequency of a partial to ±0.1 ¢ (its benchmark on synthetic strikes with known partials, npm run bench:analysis). Above that, the uncertainty of the bench temperature dominates: every 1 °C of error in the recorded temperature moves a normalised deviation by the template\'s temperature coefficient.'
 
 export const SCOPE = 'These results relate only to the instrument measured, at the time and under the conditions stated.'
 
@@ -167,7 +174,7 @@ export function buildCertificateContent(input: ContentInput): CertificateContent
     conditions: { temperatureC, humidityPct, strikeCount: input.pieces.length, normalisation, statement },
     method: methodText(engineVersions),
     decisionRule: DECISION_RULE,
-    uncertainty: UNCERTAINTY,
+    uncertainty: uncertaintyText(input.pieces.map(p => ({ engineVersion: p.strike.engineVersion, matches: p.strike.matches, partials: p.strike.partials ?? [] }))),
     engineVersions,
     pieces: [...input.pieces].sort((a, b) => a.position - b.position).map(p => ({
       position: p.position,

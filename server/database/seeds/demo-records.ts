@@ -1,6 +1,6 @@
 import { eq, sql } from 'drizzle-orm'
 import type { Database, Executor } from '../client'
-import { lots, pieces, reviews, strikes, templateVersions, users } from '../schema'
+import { lots, pieces, reviews, strikeAnalyses, strikes, templateVersions, users } from '../schema'
 import { analyzeSamples } from '../../../shared/analysis/analyzeSamples'
 import { encodeWav } from '../../../shared/analysis/encodeWav'
 import type { AnalysisResult } from '../../../shared/analysis/types'
@@ -101,6 +101,10 @@ async function seedSetStrikes(
           temperatureC, humidityPct: 38 + random.uniform() * 12, audioKey, audioBytes: 44 + samples.length * 2, audioType: 'audio/wav',
           audioName: `${piece.note}-${k + 1}.wav`, engineVersion: result.engineVersion, analysis: result, templateVersionId: template.id,
           fundamentalHz: result.fundamentalHz, worstCents: worstCents(result), verdict: result.verdict, createdAt: at,
+        })
+        await tx.insert(strikeAnalyses).values({
+          workshopId, strikeId: id, engineVersion: result.engineVersion, analysis: result, verdict: result.verdict, worstCents: worstCents(result),
+          fundamentalHz: result.fundamentalHz, applied: true, reason: 'recorded', createdAt: at,
         })
         last = { id, result, at }
       }

@@ -16,6 +16,8 @@ const expected: Record<Permission, Role[]> = {
   'pieces:assign': ['owner', 'supervisor'],
   'bench:strike': ['owner', 'supervisor', 'benchmaker'],
   'review:decide': ['owner', 'supervisor'],
+  // Re-measuring stored strikes is a supervisor's call (issue 10: "a supervisor can re-measure"), and the owner's.
+  'strikes:reanalyze': ['owner', 'supervisor'],
   'sets:read': ['owner', 'supervisor', 'benchmaker', 'office'],
   'sets:manage': ['owner', 'office'],
   'sets:ship': ['owner', 'office'],

@@ -68,10 +68,21 @@ describe('buildCertificateContent', () => {
   it('carries the decision rule, the uncertainty, the scope line and the method in two sentences', () => {
     const c = buildCertificateContent(input())
     expect(c.decisionRule).toMatch(/every required partial/)
-    expect(c.uncertainty).toContain('±0.1 ¢')
+    // Engine 1.0.0 strikes carry no per-partial uncertainty: the paragraph says so instead of a figure.
+    expect(c.uncertainty).toContain('did not yet estimate the uncertainty')
+    expect(c.uncertainty).not.toContain('npm')
     expect(c.scope).toMatch(/relate only to the instrument measured/)
     expect(c.method.split(/\.\s/).length).toBe(2)
     expect(c.method).toContain('1.0.0')
+  })
+
+  it('computes the uncertainty paragraph from the partials of the strikes it rests on', () => {
+    const pieces = input().pieces.map(p => ({
+      ...p,
+      strike: { ...p.strike, engineVersion: '2.0.0', partials: p.strike.matches.map(m => ({ frequencyHz: m.measuredHz, uncertaintyCents: 0.15 })) },
+    }))
+    // U = k · u = 2 × 0.15 ¢. source: JCGM 100:2008 (GUM) §6.2.1
+    expect(buildCertificateContent(input({ pieces })).uncertainty).toContain('±0.30 ¢')
   })
 })
 

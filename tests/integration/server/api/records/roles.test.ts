@@ -29,6 +29,9 @@ const MATRIX: { route: string, allowed: Role[], call: (token: string, c: Ctx) =>
   { route: 'POST /api/lots', allowed: ['owner', 'office'], call: t => api('/api/lots', { method: 'POST', token: t, body: { code: `L-${Math.random()}`, material: 'rosewood' } }) },
   { route: 'GET /api/strikes/:id', allowed: ROLES, call: (t, c) => api(`/api/strikes/${c.strikeId}`, { token: t }) },
   { route: 'GET /api/dashboard', allowed: ROLES, call: t => api('/api/dashboard', { token: t }) },
+  { route: 'POST /api/sets/:id/reanalyze', allowed: ['owner', 'supervisor'], call: (t, c) => api(`/api/sets/${c.setId}/reanalyze`, { method: 'POST', token: t, body: {} }) },
+  { route: 'POST /api/pieces/:id/reanalyze', allowed: ['owner', 'supervisor'], call: (t, c) => api(`/api/pieces/${c.pieceId}/reanalyze`, { method: 'POST', token: t, body: {} }) },
+  { route: 'GET /api/strikes/:id/analyses', allowed: ROLES, call: (t, c) => api(`/api/strikes/${c.strikeId}/analyses`, { token: t }) },
   { route: 'POST /api/sets/:id/ship', allowed: ['owner', 'office'], call: (t, c) => api(`/api/sets/${c.setId}/ship`, { method: 'POST', token: t }) },
   { route: 'POST /api/team', allowed: ['owner'], call: t => api('/api/team', { method: 'POST', token: t, body: { name: 'N', email: `n-${Math.random()}@example.test`, role: 'office', temporaryPassword: 'temporary-pass-123' } }) },
 ]
@@ -72,6 +75,8 @@ describe('tenant isolation', () => {
     (c: Ctx) => `/api/pieces/${c.pieceId}`,
     (c: Ctx) => `/api/strikes/${c.strikeId}`,
     (c: Ctx) => `/api/strikes/${c.strikeId}/audio`,
+    (c: Ctx) => `/api/strikes/${c.strikeId}/analyses`,
+    (c: Ctx) => `/api/reanalysis?set=${c.setId}`,
     (c: Ctx) => `/api/templates/${c.templateId}`,
   ]
   for (const path of reads) {

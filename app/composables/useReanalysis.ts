@@ -1,0 +1,71 @@
+import type { ReanalysisResult } from '#shared/reanalysis/types'
+
+export interface ReanalysisRunView {
+  id: string
+  scope: 'piece' | 'set'
+  setId: string
+  pieceId: string | null
+  status: 'queued' | 'running' | 'done' | 'failed'
+  engineVersion: string
+  requestedAt: string
+  finishedAt: string | null
+  error: string | null
+  statusUrl: string
+  result: ReanalysisResult | null
+}
+
+/** A set's or a piece's latest re-measurement: start one, follow it until it ends, then tell the page. */
+export function useReanalysis(scope: 'set' | 'piece', id: string, onFinished: () => void) {
+  const api = useApiFetch()
+  const run = ref<ReanalysisRunView | null>(null)
+  const problem = ref<string | null>(null)
+  const busy = ref(false)
+  let timer: ReturnType<typeof setTimeout> | null = null
+  const active = computed(() => run.value?.status === 'queued' || run.value?.status === 'running')
+
+  function follow() {
+    if (timer) clearTimeout(timer)
+    if (!active.value || !run.value) return
+    timer = setTimeout(async () => {
+      try {
+        run.value = await api<ReanalysisRunView>(run.value!.statusUrl)
+        if (!active.value) onFinished()
+      }
+      catch (error) {
+        problem.value = apiErrorMessage(error)
+      }
+      follow()
+    }, 1000)
+  }
+
+  async function load() {
+    try {
+      run.value = (await api<{ run: ReanalysisRunView | null }>('/api/reanalysis', { query: { [scope]: id } })).run
+      follow()
+    }
+    catch (error) {
+      problem.value = apiErrorMessage(error)
+    }
+  }
+
+  async function start() {
+    busy.value = true
+    problem.value = null
+    try {
+      run.value = await api<ReanalysisRunView>(`/api/${scope === 'set' ? 'sets' : 'pieces'}/${id}/reanalyze`, { method: 'POST', body: {} })
+      follow()
+    }
+    catch (error) {
+      problem.value = apiErrorMessage(error)
+    }
+    finally {
+      busy.value = false
+    }
+  }
+
+  onMounted(load)
+  onBeforeUnmount(() => {
+    if (timer) clearTimeout(timer)
+  })
+  return { run, problem, busy, active, start }
+}
