@@ -92,7 +92,9 @@ describe('start script operations (class: operations)', () => {
     const cmdline = readFileSync(`/proc/${pid}/cmdline`, 'utf8').split('\0').join(' ')
     expect(cmdline).toContain(join(ROOT, '.data/test-output/server/index.mjs'))
     expect(cmdline).not.toContain('/.output/')
-    // The PDF worker is built beside that server.
-    await run('test', ['-f', join(ROOT, '.data/test-output/server/workers/certificate-pdf.mjs')])
+    // The PDF worker is built beside that server and does not load the server itself (which would listen a second time).
+    const worker = readFileSync(join(ROOT, '.data/test-output/server/workers/certificate-pdf.mjs'), 'utf8')
+    expect(worker).toMatch(/export \{ render as default \}/)
+    expect(worker).not.toMatch(/chunks\/nitro\//)
   })
 })
