@@ -41,7 +41,9 @@ STARTED_PG=0
 STARTED_MAIL=0
 APP_PID=""
 cleanup() {
-  trap - INT TERM EXIT
+  # A second Ctrl-C must not cut the clean-up short.
+  trap "" INT TERM
+  trap - EXIT
   if [ -n "$APP_PID" ] && kill -0 "$APP_PID" 2>/dev/null; then kill "$APP_PID" 2>/dev/null || true; wait "$APP_PID" 2>/dev/null || true; fi
   rm -f "$RUN_DIR/app.pid"
   if [ "$STARTED_MAIL" = 1 ]; then mail_catcher_stop "$MAIL_DIR"; fi
@@ -49,7 +51,9 @@ cleanup() {
   if [ "$(cat "$RUN_DIR/start.pid" 2>/dev/null)" = $$ ]; then rm -f "$RUN_DIR/start.pid"; fi
   log "Stopped."
 }
-trap cleanup INT TERM EXIT
+trap "cleanup; exit 130" INT
+trap "cleanup; exit 143" TERM
+trap cleanup EXIT
 
 if pg_running_in "$PG_DIR"; then
   log "Taking over the PostgreSQL left running by an earlier start."
