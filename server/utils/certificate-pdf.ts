@@ -139,10 +139,7 @@ export async function certificateDocument(content: CertificateContent, status: s
       margin: [48, 24, 48, 0],
       columns: [
         { text: currentPage === 1 ? content.workshop.name : `Tuning certificate · ${content.workshop.name}`, color: SOFT, fontSize: 8 },
-        {
-          text: [`Certificate No. ${content.number}`, ...(status !== 'valid' ? [{ text: ` · ${status.toUpperCase()}`, color: KILN }] : [])],
-          alignment: 'right', bold: true, fontSize: 9,
-        },
+        { text: [`Certificate No. ${content.number}`, ...(status !== 'valid' ? [{ text: ` · ${status.toUpperCase()}`, color: KILN }] : [])], alignment: 'right', bold: true, fontSize: 9 },
       ],
     }),
     footer: (currentPage: number, pageCount: number) => ({
