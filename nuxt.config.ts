@@ -1,5 +1,7 @@
 // Nuxt 4 configuration. Every setting that differs between machines comes from
 // runtime config, overridden by NUXT_* environment variables at start.
+import { addWorkerEntries } from './server/workers/entries'
+
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', '@sidebase/nuxt-auth', '@nuxt/eslint'],
   devtools: { enabled: false },
@@ -30,11 +32,19 @@ export default defineNuxtConfig({
     siteUrl: 'http://127.0.0.1:3000',
     // Delivery retries of the mail queue: attempts after the first, and the first delay (doubling).
     mailRetry: { limit: 6, delayS: 3 },
+    // How long a mail worker's claim on a message holds (s): longer than any SMTP conversation.
+    mailLeaseS: 300,
     // Folder of the local SMTP catcher, read by the development Mailbox screen.
     mailCatcherDir: '.data/mail',
     public: { devMailbox: false },
   },
   compatibilityDate: '2025-07-15',
+  // `npm test` builds into its own folder so that it never replaces a running `npm start`'s files.
+  nitro: {
+    output: { dir: process.env.TONEWRIGHT_OUTPUT_DIR || '.output' },
+    // Worker-thread entries (PDF rendering) are built beside the server.
+    hooks: { 'rollup:before': (nitro, config) => addWorkerEntries(config, nitro.options.rootDir) },
+  },
   typescript: { strict: true },
   telemetry: false,
   auth: {

@@ -28,6 +28,9 @@ export function useCertificateActions() {
     sign: (setId: string) => run(
       () => api<{ id: string, number: string, code: string }>(`/api/sets/${setId}/certificates`, { method: 'POST' }),
       r => `Certificate ${r.number} signed.`),
+    reissue: (id: string, reason: string) => run(
+      () => api<{ id: string, number: string }>(`/api/certificates/${id}/reissue`, { method: 'POST', body: { reason } }),
+      r => `Certificate ${r.number} issued; it supersedes the earlier one.`),
     send: (id: string, to?: string) => run(
       () => api<{ to: string }>(`/api/certificates/${id}/send`, { method: 'POST', body: to ? { to } : {} }),
       r => `Queued for ${r.to}; the status below shows when it is sent.`),

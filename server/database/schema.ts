@@ -297,6 +297,7 @@ export type StrikeAnalysis = typeof strikeAnalyses.$inferSelect
 
 export const CERTIFICATE_STATUSES = ['valid', 'superseded', 'revoked'] as const
 export type CertificateStatus = (typeof CERTIFICATE_STATUSES)[number]
+export const CERTIFICATE_PDF_STATUSES = ['pending', 'ready'] as const
 
 /**
  * A signed tuning certificate. `content` is frozen at signing; `contentHash` is the
@@ -312,6 +313,12 @@ export const certificates = pgTable('certificates', {
   content: jsonb('content').$type<Record<string, unknown>>().notNull(),
   contentHash: text('content_hash').notNull(),
   pdfKey: text('pdf_key').notNull(),
+  // The PDF is rendered by a job after the signing transaction commits, and again when
+  // the status changes (with a REVOKED or SUPERSEDED mark): `pending` until it is stored.
+  pdfStatus: text('pdf_status', { enum: CERTIFICATE_PDF_STATUSES }).notNull().default('ready'),
+  pdfJobId: text('pdf_job_id'),
+  pdfRequestedAt: timestamp('pdf_requested_at', { withTimezone: true }),
+  reissueReason: text('reissue_reason'),
   signerId: uuid('signer_id').references(() => users.id, { onDelete: 'set null' }),
   signerName: text('signer_name').notNull(),
   signedAt: timestamp('signed_at', { withTimezone: true }).notNull(),
@@ -326,6 +333,9 @@ export const certificates = pgTable('certificates', {
   uniqueIndex('certificates_workshop_number_key').on(t.workshopId, t.number),
   index('certificates_workshop_idx').on(t.workshopId, t.signedAt),
   index('certificates_set_idx').on(t.setId),
+  // At most one valid certificate per set: a second signing races into this and answers 409.
+  uniqueIndex('certificates_set_valid_key').on(t.setId).where(sql`${t.status} = 'valid'`),
+  index('certificates_pdf_pending_idx').on(t.pdfStatus, t.pdfJobId),
 ])
 
 export const MAIL_KINDS = ['certificate', 'invitation', 'password-reset'] as const
@@ -347,6 +357,10 @@ export const mailMessages = pgTable('mail_messages', {
   attempts: integer('attempts').notNull().default(0),
   lastError: text('last_error'),
   jobId: text('job_id'),
+  // The delivery lease: a worker claims a message until `claimed_until`; a claim of a
+  // worker that died expires and the message is delivered by another one.
+  claimedBy: text('claimed_by'),
+  claimedUntil: timestamp('claimed_until', { withTimezone: true }),
   certificateId: uuid('certificate_id').references(() => certificates.id, { onDelete: 'set null' }),
   setId: uuid('set_id').references(() => sets.id, { onDelete: 'set null' }),
   requestedBy: uuid('requested_by').references(() => users.id, { onDelete: 'set null' }),

@@ -133,11 +133,13 @@ export async function certificateDocument(content: CertificateContent, status: s
       th: { bold: true, color: SOFT, fontSize: 8 },
       small: { fontSize: 8, color: SOFT },
     },
+    // A revoked or superseded certificate says so across every page and in every header.
+    ...(status !== 'valid' ? { watermark: { text: status.toUpperCase(), color: KILN, opacity: 0.18, bold: true, angle: -40 } } : {}),
     header: (currentPage: number) => ({
       margin: [48, 24, 48, 0],
       columns: [
         { text: currentPage === 1 ? content.workshop.name : `Tuning certificate · ${content.workshop.name}`, color: SOFT, fontSize: 8 },
-        { text: `Certificate No. ${content.number}`, alignment: 'right', bold: true, fontSize: 9 },
+        { text: [`Certificate No. ${content.number}`, ...(status !== 'valid' ? [{ text: ` · ${status.toUpperCase()}`, color: KILN }] : [])], alignment: 'right', bold: true, fontSize: 9 },
       ],
     }),
     footer: (currentPage: number, pageCount: number) => ({

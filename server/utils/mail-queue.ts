@@ -1,8 +1,11 @@
-import { and, eq, isNull } from 'drizzle-orm'
+import { randomUUID } from 'node:crypto'
+import { hostname } from 'node:os'
+import { and, eq } from 'drizzle-orm'
 import PgBoss from 'pg-boss'
 import { mailMessages } from '../database/schema'
 import type { Database } from '../database/client'
-import { deliverMessage, unscheduledMail, type SmtpConfig } from './mail'
+import type { BackgroundJob } from './certificate-pdf-job'
+import { deliverMessage, needsJob, unscheduledMail, type DeliveryLease, type SmtpConfig } from './mail'
 import type { BlobStorage } from './storage'
 
 export const MAIL_QUEUE = 'mail-send'
@@ -14,6 +17,10 @@ export interface MailQueueOptions {
   smtp: SmtpConfig
   retryLimit: number
   retryDelayS: number
+  /** How long a worker's claim on a message holds; a claim of a worker that died is taken over after it. */
+  leaseS: number
+  /** Other jobs run on the same pg-boss instance (the certificate PDF job). */
+  jobs?: BackgroundJob[]
   /** How often queued messages without a job are picked up, in ms. */
   sweepMs?: number
   log?: (line: string) => void
@@ -31,7 +38,10 @@ export class MailQueue {
   private restartTimer: NodeJS.Timeout | null = null
   private sweeping = false
   private stopped = false
-  constructor(private readonly options: MailQueueOptions) {}
+  private readonly lease: DeliveryLease
+  constructor(private readonly options: MailQueueOptions) {
+    this.lease = { workerId: `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`, leaseS: options.leaseS }
+  }
 
   get running() {
     return this.boss !== null
@@ -59,12 +69,13 @@ export class MailQueue {
       await boss.work<{ messageId: string }>(MAIL_QUEUE, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
         if (!job) return
         const final = job.retryCount >= job.retryLimit
-        const outcome = await deliverMessage(o.db, o.storage, o.smtp, job.data.messageId, final)
+        const outcome = await deliverMessage(o.db, o.storage, o.smtp, job.data.messageId, final, this.lease)
         if (outcome instanceof Error) {
           this.log(`Tonewright mail: message ${job.data.messageId} not delivered (attempt ${job.retryCount + 1} of ${job.retryLimit + 1}): ${outcome.message}`)
           throw outcome
         }
       })
+      for (const job of o.jobs ?? []) await job.start(boss)
     }
     catch (error) {
       this.log(`Tonewright: the mail queue could not start (${(error as Error).message}). The app keeps serving; e-mails stay queued in the outbox and go out once the queue starts (next try in 30 s).`)
@@ -79,15 +90,22 @@ export class MailQueue {
     return true
   }
 
-  /** Turns outbox rows without a job into jobs. The claim (job_id set from null) keeps two instances from doubling a job. */
+  /**
+   * Turns outbox rows that need a job into jobs (see needsJob: also those whose
+   * worker died mid-send), then runs the other jobs' sweeps. The claim (job_id set
+   * while the row still needs a job) keeps two instances from doubling a job.
+   */
   async sweep() {
     if (!this.boss || this.sweeping) return
     this.sweeping = true
     try {
       const o = this.options
+      for (const job of o.jobs ?? []) {
+        await job.sweep(this.boss).catch(error => this.log(`Tonewright background jobs: could not schedule (${(error as Error).message}); will try again.`))
+      }
       for (const { id } of await unscheduledMail(o.db)) {
-        const [claimed] = await o.db.update(mailMessages).set({ jobId: 'claimed' })
-          .where(and(eq(mailMessages.id, id), eq(mailMessages.status, 'queued'), isNull(mailMessages.jobId))).returning({ id: mailMessages.id })
+        const [claimed] = await o.db.update(mailMessages).set({ jobId: 'claimed', claimedBy: null, claimedUntil: null })
+          .where(and(eq(mailMessages.id, id), needsJob())).returning({ id: mailMessages.id })
         if (!claimed) continue
         try {
           const jobId = await this.boss.send(MAIL_QUEUE, { messageId: id }, { retryLimit: o.retryLimit, retryDelay: o.retryDelayS, retryBackoff: true })

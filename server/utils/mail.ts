@@ -1,4 +1,4 @@
-import { and, desc, eq, isNull } from 'drizzle-orm'
+import { and, desc, eq, isNull, lt, or, sql } from 'drizzle-orm'
 import nodemailer, { type Transporter } from 'nodemailer'
 import { certificates, mailMessages, type MailMessage } from '../database/schema'
 import type { Database, Executor } from '../database/client'
@@ -87,10 +87,19 @@ export async function retryMail(db: Database, workshopId: string, id: string) {
   fail(409, existing.status === 'sent' ? 'This message was already sent.' : 'This message is already queued.')
 }
 
-/** Queued messages that have no job yet (queued while the queue was down, or put back by a retry). */
+/**
+ * Queued messages that need a job: none yet (queued while the queue was down, put
+ * back by a retry, or waiting for a PDF that is now ready), or claimed by a worker
+ * whose lease ran out (it died mid-send). Certificate e-mails wait for their PDF.
+ */
+export const needsJob = () => and(
+  eq(mailMessages.status, 'queued'),
+  or(isNull(mailMessages.jobId), lt(mailMessages.claimedUntil, sql`now()`)),
+  sql`not exists (select 1 from ${certificates} where ${certificates.id} = ${mailMessages.certificateId} and ${certificates.status} = 'valid' and ${certificates.pdfStatus} = 'pending')`,
+)
+
 export async function unscheduledMail(db: Executor, limit = 100) {
-  return db.select({ id: mailMessages.id }).from(mailMessages)
-    .where(and(eq(mailMessages.status, 'queued'), isNull(mailMessages.jobId))).limit(limit)
+  return db.select({ id: mailMessages.id }).from(mailMessages).where(needsJob()).limit(limit)
 }
 
 let transport: Transporter | undefined
@@ -116,42 +125,82 @@ export function mailTransport(config: SmtpConfig): Transporter {
   return transport
 }
 
-export type DeliveryOutcome = 'sent' | 'already-sent' | 'missing' | Error
+export type DeliveryOutcome = 'sent' | 'already-sent' | 'not-queued' | 'missing' | 'claimed-elsewhere' | 'waiting-for-pdf' | 'refused' | Error
+
+/** Who delivers, and for how long a claim holds (longer than any SMTP conversation may take). */
+export interface DeliveryLease { workerId: string, leaseS: number }
+
+type Claim = { message: MailMessage, certificate: { number: string, pdfKey: string } | null }
 
 /**
- * Delivers one outbox message. The row stays locked while the SMTP server talks,
- * so two workers can never send it twice; a message already sent is skipped, which
- * makes a retried job harmless. On failure the attempt and the reason are saved
- * (status stays queued while retries remain, then failed) and the error returned
- * for the queue to retry.
+ * Claims one outbox message for this worker: under the row lock, a message already
+ * sent is skipped, one claimed by another worker whose lease has not run out is
+ * left to it, and a certificate e-mail waits for its PDF (and is refused when the
+ * certificate stopped being valid). The lease is written and committed before any
+ * SMTP talk, so a worker that dies mid-send leaves a claim that expires.
  */
-export async function deliverMessage(db: Database, storage: BlobStorage, smtp: SmtpConfig, messageId: string, finalAttempt: boolean): Promise<DeliveryOutcome> {
+export async function claimMessage(db: Database, messageId: string, lease: DeliveryLease): Promise<Claim | Exclude<DeliveryOutcome, 'sent' | Error>> {
   return db.transaction(async (tx) => {
     const [message] = await tx.select().from(mailMessages).where(eq(mailMessages.id, messageId)).for('update')
     if (!message) return 'missing'
     if (message.status === 'sent') return 'already-sent'
-    try {
-      const attachments = []
-      if (message.certificateId) {
-        const [cert] = await tx.select({ number: certificates.number, pdfKey: certificates.pdfKey }).from(certificates).where(eq(certificates.id, message.certificateId))
-        const bytes = cert ? await storage.get(cert.pdfKey) : null
-        if (!cert || !bytes) throw new Error('The certificate PDF is missing from storage.')
-        attachments.push({ filename: `${cert.number}.pdf`, content: Buffer.from(bytes), contentType: 'application/pdf' })
+    if (message.status !== 'queued') return 'not-queued'
+    if (message.claimedBy && message.claimedBy !== lease.workerId && message.claimedUntil && message.claimedUntil > new Date()) return 'claimed-elsewhere'
+    let certificate: Claim['certificate'] = null
+    if (message.certificateId) {
+      const [cert] = await tx.select({ number: certificates.number, status: certificates.status, pdfStatus: certificates.pdfStatus, pdfKey: certificates.pdfKey })
+        .from(certificates).where(eq(certificates.id, message.certificateId))
+      if (!cert || cert.status !== 'valid') {
+        // Decided: only a valid certificate is mailed; a superseded or revoked one is never attached.
+        const lastError = cert ? `Certificate ${cert.number} was ${cert.status} before this e-mail went out, so it was not sent.` : 'The certificate of this e-mail no longer exists.'
+        await tx.update(mailMessages).set({ status: 'failed', lastError, claimedBy: null, claimedUntil: null, updatedAt: new Date() }).where(eq(mailMessages.id, messageId))
+        return 'refused'
       }
-      const info = await mailTransport(smtp).sendMail({
-        from: smtp.from, to: message.to, subject: message.subject, text: message.text, html: message.html, attachments,
-        // A fixed Message-ID lets a receiving server recognise a repeat.
-        messageId: `<${message.id}@tonewright.mail>`,
-      })
-      await tx.update(mailMessages).set({ status: 'sent', attempts: message.attempts + 1, sentAt: new Date(), updatedAt: new Date(), lastError: info.rejected?.length ? `Rejected: ${info.rejected.join(', ')}` : null })
-        .where(eq(mailMessages.id, messageId))
-      return 'sent'
+      if (cert.pdfStatus !== 'ready') {
+        // Back to the outbox without a job: the sweep schedules it once the PDF is stored.
+        await tx.update(mailMessages).set({ jobId: null, claimedBy: null, claimedUntil: null }).where(eq(mailMessages.id, messageId))
+        return 'waiting-for-pdf'
+      }
+      certificate = { number: cert.number, pdfKey: cert.pdfKey }
     }
-    catch (error) {
-      const reason = (error as Error).message?.slice(0, 500) || 'Unknown error'
-      await tx.update(mailMessages).set({ status: finalAttempt ? 'failed' : 'queued', attempts: message.attempts + 1, lastError: reason, updatedAt: new Date() })
-        .where(eq(mailMessages.id, messageId))
-      return error instanceof Error ? error : new Error(reason)
-    }
+    await tx.update(mailMessages).set({ claimedBy: lease.workerId, claimedUntil: sql`now() + make_interval(secs => ${lease.leaseS})` })
+      .where(eq(mailMessages.id, messageId))
+    return { message, certificate }
   })
+}
+
+/**
+ * Delivers one outbox message: claim (see claimMessage), talk SMTP without holding
+ * a transaction open, then record the outcome and drop the claim. A retried job for
+ * a sent message is harmless. On failure the attempt and the reason are saved
+ * (queued while retries remain, then failed) and the error returned for the queue.
+ */
+export async function deliverMessage(db: Database, storage: BlobStorage, smtp: SmtpConfig, messageId: string, finalAttempt: boolean, lease: DeliveryLease): Promise<DeliveryOutcome> {
+  const claim = await claimMessage(db, messageId, lease)
+  if (typeof claim === 'string') return claim
+  const { message, certificate } = claim
+  try {
+    const attachments = []
+    if (certificate) {
+      const bytes = await storage.get(certificate.pdfKey)
+      if (!bytes) throw new Error('The certificate PDF is missing from storage.')
+      attachments.push({ filename: `${certificate.number}.pdf`, content: Buffer.from(bytes), contentType: 'application/pdf' })
+    }
+    const info = await mailTransport(smtp).sendMail({
+      from: smtp.from, to: message.to, subject: message.subject, text: message.text, html: message.html, attachments,
+      // A fixed Message-ID lets a receiving server recognise a repeat.
+      messageId: `<${message.id}@tonewright.mail>`,
+    })
+    await db.update(mailMessages).set({
+      status: 'sent', attempts: sql`${mailMessages.attempts} + 1`, sentAt: new Date(), updatedAt: new Date(), claimedBy: null, claimedUntil: null,
+      lastError: info.rejected?.length ? `Rejected: ${info.rejected.join(', ')}` : null,
+    }).where(eq(mailMessages.id, messageId))
+    return 'sent'
+  }
+  catch (error) {
+    const reason = (error as Error).message?.slice(0, 500) || 'Unknown error'
+    await db.update(mailMessages).set({ status: finalAttempt ? 'failed' : 'queued', attempts: sql`${mailMessages.attempts} + 1`, lastError: reason, updatedAt: new Date(), claimedBy: null, claimedUntil: null })
+      .where(and(eq(mailMessages.id, messageId), eq(mailMessages.claimedBy, lease.workerId), eq(mailMessages.status, 'queued')))
+    return error instanceof Error ? error : new Error(reason)
+  }
 }

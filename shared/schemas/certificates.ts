@@ -5,6 +5,9 @@ export const SendCertificateSchema = z.object({ to: EmailSchema.optional() }).de
 export const RevokeCertificateSchema = z.object({
   reason: z.string({ required_error: 'Give the reason for revoking' }).trim().min(5, 'Give a reason of at least 5 characters').max(500, 'A reason is at most 500 characters'),
 })
+export const ReissueCertificateSchema = z.object({
+  reason: z.string({ required_error: 'Give the reason for re-issuing' }).trim().min(5, 'Give a reason of at least 5 characters').max(500, 'A reason is at most 500 characters'),
+})
 export const PdfQuerySchema = z.object({
   paper: z.enum(['a4', 'letter'], { errorMap: () => ({ message: 'Choose the paper: a4 or letter' }) }).default('a4'),
   download: z.enum(['0', '1']).optional(),

@@ -1,11 +1,13 @@
 import { IdParams } from '#shared/schemas/params'
 import { parseWith } from '#shared/validation'
 
-/** POST /api/sets/:id/certificates: sign (or re-issue) the certificate of a set whose pieces are all approved. */
+/** POST /api/sets/:id/certificates: sign the certificate of a set whose pieces are all approved (409 if it has a valid one). */
 export default defineEventHandler(async (event) => {
   const member = await requireMember(event, 'certificates:sign')
   const { id } = await getValidatedRouterParams(event, parseWith(IdParams))
-  const signed = await signCertificate(useDatabase(), useBlobStorage(), member, id, siteUrlOf(event))
+  const signed = await signCertificate(useDatabase(), member, id, siteUrlOf(event))
+  // The PDF job picks the new certificate up now rather than at the next sweep.
+  kickMailQueue()
   setResponseStatus(event, 201)
   return signed
 })

@@ -27,6 +27,8 @@ describe('certificate screens', () => {
     await signInAs(page, ctx.office.email, OFFICE_PASSWORD)
     await page.goto(`${BASE_URL}/certificates`)
     await page.getByText(cert.number).first().waitFor()
+    // "PDF pending" until the job has stored it; the list asks again by itself.
+    await page.getByRole('link', { name: 'PDF (A4)' }).first().waitFor({ timeout: 60_000 })
     expect(await page.getByRole('button', { name: 'Revoke…' }).count()).toBe(0)
     await page.getByRole('button', { name: 'Send…' }).click()
     await page.getByRole('button', { name: 'Queue e-mail' }).click()

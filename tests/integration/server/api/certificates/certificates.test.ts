@@ -47,6 +47,8 @@ describe('certificates', () => {
     expect(cert.number).toMatch(/^TW-\d{4}-0001$/)
     // 16 base64url characters carry 96 bits, above the 80 the issue asks for.
     expect(cert.code).toMatch(/^[\w-]{16}$/)
+    // The PDF is rendered by a job after the transaction.
+    expect(signed.body.pdfStatus).toBe('pending')
     const set = (await api(`/api/sets/${ctx.set.id}`, { token: ctx.office.token })).body
     expect(new Set(set.pieces.map((p: { stage: string }) => p.stage))).toEqual(new Set(['certified']))
     const [row] = await testSql()`select count(*)::int as n from audit_events where subject_id = ${cert.id} and action = 'certificate.sign'`
@@ -177,8 +179,9 @@ describe('certificates', () => {
     expect(await mailTo(address)).toHaveLength(1)
   })
 
-  it('re-issuing makes a new number that supersedes the old one', async () => {
-    const again = await api(`/api/sets/${ctx.set.id}/certificates`, { method: 'POST', token: ctx.owner.token })
+  it('re-issuing (with a reason) makes a new number that supersedes the old one', async () => {
+    expect((await api(`/api/sets/${ctx.set.id}/certificates`, { method: 'POST', token: ctx.owner.token })).status).toBe(409)
+    const again = await api(`/api/certificates/${cert.id}/reissue`, { method: 'POST', token: ctx.owner.token, body: { reason: 'Buyer address corrected' } })
     expect(again.status).toBe(201)
     expect(again.body.number).toMatch(/-0002$/)
     const old = await api(`/api/verify/${cert.code}`)
@@ -217,7 +220,7 @@ describe('certificates', () => {
     await testSql()`update certificates set content = jsonb_set(content, '{pieces,0,partials,0,cents}', ${nudged}::jsonb) where id = ${signed.body.id}`
     const changed = await api(`/api/verify/${signed.body.code}`)
     expect(changed.body.hashMatches).toBe(false)
-    const fourth = await api(`/api/sets/${ctx.set.id}/certificates`, { method: 'POST', token: ctx.supervisor.token })
+    const fourth = await api(`/api/certificates/${signed.body.id}/reissue`, { method: 'POST', token: ctx.supervisor.token, body: { reason: 'Checking the hash again' } })
     await testSql()`update certificates set content_hash = repeat('0', 64) where id = ${fourth.body.id}`
     expect((await api(`/api/verify/${fourth.body.code}`)).body.hashMatches).toBe(false)
     expect((await caughtMail()).length).toBeGreaterThan(0)
