@@ -1,3 +1,5 @@
+import { buildAnalysisWorker } from './scripts/build-analysis-worker'
+
 // Nuxt 4 configuration. Every setting that differs between machines comes from
 // runtime config, overridden by NUXT_* environment variables at start.
 export default defineNuxtConfig({
@@ -23,6 +25,9 @@ export default defineNuxtConfig({
     sessionMaxAgeS: 60 * 60 * 24 * 7,
     signInMaxPerAddress: 30,
     storage: { driver: 'fs', dir: '.data/storage' },
+    // Worker threads that decode and measure strikes (0: the machine's available
+    // parallelism), tasks that may wait (0: twice the threads) and the Retry-After of a full queue.
+    analysis: { threads: 0, maxQueue: 0, retryAfterS: 5 },
     smtp: { host: '127.0.0.1', port: 2525, user: '', pass: '', from: 'Tonewright <certificates@tonewright.test>' },
     // Where links in certificates and e-mails point (the public address of this app).
     siteUrl: 'http://127.0.0.1:3000',
@@ -33,6 +38,15 @@ export default defineNuxtConfig({
     public: { devMailbox: false },
   },
   compatibilityDate: '2025-07-15',
+  nitro: {
+    hooks: {
+      // The analysis pool's worker is its own bundle beside the built server (.output/server/workers).
+      async compiled(nitro) {
+        if (nitro.options.dev) return
+        await buildAnalysisWorker(nitro.options.output.serverDir)
+      },
+    },
+  },
   typescript: { strict: true },
   telemetry: false,
   auth: {
