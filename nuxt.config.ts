@@ -28,6 +28,8 @@ export default defineNuxtConfig({
     // Worker threads that decode and measure strikes (0: the machine's available
     // parallelism), tasks that may wait (0: twice the threads) and the Retry-After of a full queue.
     analysis: { threads: 0, maxQueue: 0, retryAfterS: 5 },
+    // Strike audio whose row never committed is removed after olderThanS, checked every intervalS.
+    strikeUploadSweep: { intervalS: 300, olderThanS: 600 },
     smtp: { host: '127.0.0.1', port: 2525, user: '', pass: '', from: 'Tonewright <certificates@tonewright.test>' },
     // Where links in certificates and e-mails point (the public address of this app).
     siteUrl: 'http://127.0.0.1:3000',

@@ -13,7 +13,7 @@ export default defineNitroPlugin((nitroApp) => {
   console.info(`Tonewright: analysis ${pool.mode === 'pool' ? `in ${pool.threads} worker threads` : 'on the request thread'}, at most ${pool.maxQueue} waiting.`)
   nitroApp.hooks.hook('error', (error, { event }) => {
     const data = (error as { data?: { retryAfterS?: unknown } }).data
-    if (event && typeof data?.retryAfterS === 'number') setResponseHeader(event, 'retry-after', String(data.retryAfterS))
+    if (event && typeof data?.retryAfterS === 'number') setResponseHeader(event, 'retry-after', data.retryAfterS)
   })
   nitroApp.hooks.hook('close', async () => {
     setAnalysisPool(undefined)
