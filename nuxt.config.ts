@@ -26,8 +26,9 @@ export default defineNuxtConfig({
     signInMaxPerAddress: 30,
     storage: { driver: 'fs', dir: '.data/storage' },
     // Worker threads that decode and measure strikes (0: the machine's available
-    // parallelism), tasks that may wait (0: twice the threads) and the Retry-After of a full queue.
-    analysis: { threads: 0, maxQueue: 0, retryAfterS: 5 },
+    // parallelism), tasks that may wait (0: twice the threads), the Retry-After of a full queue,
+    // and a worker file other than the bundle beside the built server (empty: that bundle).
+    analysis: { threads: 0, maxQueue: 0, retryAfterS: 5, workerFile: '' },
     // Strike audio whose row never committed is removed after olderThanS, checked every intervalS.
     strikeUploadSweep: { intervalS: 300, olderThanS: 600 },
     smtp: { host: '127.0.0.1', port: 2525, user: '', pass: '', from: 'Tonewright <certificates@tonewright.test>' },

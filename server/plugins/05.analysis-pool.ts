@@ -7,8 +7,11 @@ import { createAnalysisPool, setAnalysisPool } from '../utils/analysis-pool'
  * threads when the server closes.
  */
 export default defineNitroPlugin((nitroApp) => {
-  const config = useRuntimeConfig().analysis as { threads: number | string, maxQueue: number | string, retryAfterS: number | string }
-  const pool = createAnalysisPool({ threads: Number(config.threads), maxQueue: Number(config.maxQueue), retryAfterS: Number(config.retryAfterS) })
+  const config = useRuntimeConfig().analysis as { threads: number | string, maxQueue: number | string, retryAfterS: number | string, workerFile: string }
+  const pool = createAnalysisPool({
+    threads: Number(config.threads), maxQueue: Number(config.maxQueue), retryAfterS: Number(config.retryAfterS),
+    workerFile: config.workerFile || undefined,
+  })
   setAnalysisPool(pool)
   console.info(`Tonewright: analysis ${pool.mode === 'pool' ? `in ${pool.threads} worker threads` : 'on the request thread'}, at most ${pool.maxQueue} waiting.`)
   nitroApp.hooks.hook('error', (error, { event }) => {

@@ -43,15 +43,21 @@ export interface AnalysisPool {
 }
 
 /**
- * Where the worker is: the bundle beside the built server (found upward from this
- * module, which Nitro places under `.output/server`), else the TypeScript source run
- * through tsx's loader (tests, scripts, `nuxt dev`). A production process never
- * loads TypeScript: without the bundle it has no worker.
+ * Where the worker is: the bundle beside the built server (found upward from the entry
+ * script `.output/server/index.mjs` and from this module), else the TypeScript source run
+ * through tsx's loader (tests, scripts, `nuxt dev`). A production process never loads
+ * TypeScript: without the bundle it has no worker.
  */
 export function locateWorker(production = process.env.NODE_ENV === 'production'): { file: string, typescript: boolean } | null {
-  let dir = dirname(fileURLToPath(import.meta.url))
-  for (let i = 0; i < 4; i++, dir = dirname(dir)) {
-    if (existsSync(join(dir, BUILT_WORKER))) return { file: join(dir, BUILT_WORKER), typescript: false }
+  // Nitro rewrites import.meta.url to the entry's URL, which is not yet set while plugins
+  // load; the entry script's path (argv[1]) is.
+  const starts = [process.argv[1] ? dirname(resolve(process.argv[1])) : null, dirname(fileURLToPath(import.meta.url))]
+  for (const start of starts) {
+    if (!start) continue
+    let dir = start
+    for (let i = 0; i < 4; i++, dir = dirname(dir)) {
+      if (existsSync(join(dir, BUILT_WORKER))) return { file: join(dir, BUILT_WORKER), typescript: false }
+    }
   }
   if (production) return null
   for (const root of [resolve(dirname(fileURLToPath(import.meta.url)), '../..'), process.cwd()]) {

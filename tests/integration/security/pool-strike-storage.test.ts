@@ -65,7 +65,7 @@ describe('class: nothing is half-saved or left dangling (strike audio)', () => {
   it('a strike that commits is stored under its final key and nothing stays pending', async () => {
     const { owner, piece, wav } = await workshopWithPiece('Commit workshop')
     const reply = await postStrike(owner.token, piece.id, wav)
-    expect(reply.status).toBe(200)
+    expect(reply.status).toBe(201)
     const [row] = await sql`select audio_key from strikes where id = ${reply.body.id}`
     expect(existsSync(join(STORAGE, row!.audio_key))).toBe(true)
     expect(filesUnder(STORAGE, `pending/strikes/${owner.workshopId}`)).toEqual([])
@@ -97,7 +97,7 @@ describe('class: nothing is half-saved or left dangling (strike audio)', () => {
         const form = new FormData()
         form.set('file', new Blob([wav], { type: 'audio/wav' }), 'strike.wav')
         const again = await fetch(`${second.baseUrl}/api/pieces/${piece.id}/strikes`, { method: 'POST', headers: { authorization: `Bearer ${owner.token}` }, body: form })
-        expect(again.status).toBe(200)
+        expect(again.status).toBe(201)
         expect(filesUnder(storage, `workshops/${owner.workshopId}`)).toHaveLength(1)
       }
       finally {
@@ -130,7 +130,7 @@ describe('class: races — recording a strike never overwrites a change made whi
       void request
     })
     await until(() => reply !== undefined, 'the strike answers')
-    expect(reply!.status).toBe(200)
+    expect(reply!.status).toBe(201)
     const [row] = await sql`select assignee_id, strike_count, latest_strike_id from pieces where id = ${piece.id}`
     expect(row).toEqual({ assignee_id: bench.userId, strike_count: 1, latest_strike_id: reply!.body.id })
   }, 60_000)
