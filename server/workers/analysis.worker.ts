@@ -12,9 +12,9 @@ export interface AnalysisTask {
  * What comes back. A refusal crosses the thread boundary as plain data (status, code,
  * sentence) because class identity does not survive structured cloning.
  */
-export type AnalysisReply =
-  | { ok: true, result: AnalysisResult }
-  | { ok: false, status: AnalysisErrorStatus, code: string, message: string }
+export type AnalysisReply
+  = | { ok: true, result: AnalysisResult }
+    | { ok: false, status: AnalysisErrorStatus, code: string, message: string }
 
 /** The pool's task: decode and measure one strike off the request thread. */
 export default async function analyze(task: AnalysisTask): Promise<AnalysisReply> {

@@ -49,7 +49,9 @@ describe('class: nothing is half-saved or left dangling (strike audio)', () => {
     const pending = `pending/strikes/${owner.workshopId}`
     let reply: Awaited<ReturnType<typeof postStrike>> | undefined
     await holdingPiece(piece.id, async (tx) => {
-      const request = postStrike(owner.token, piece.id, wav).then((r) => { reply = r })
+      const request = postStrike(owner.token, piece.id, wav).then((r) => {
+        reply = r
+      })
       await until(() => filesUnder(STORAGE, pending).length === 1, 'the pending audio is written')
       await tx`update pieces set stage = 'approved' where id = ${piece.id}`
       void request
@@ -123,7 +125,9 @@ describe('class: races — recording a strike never overwrites a change made whi
     const piece = set.pieces[0] as { id: string, targetHz: number }
     let reply: Awaited<ReturnType<typeof postStrike>> | undefined
     await holdingPiece(piece.id, async (tx) => {
-      const request = postStrike(owner.token, piece.id, strikeWav(piece.targetHz, [1, 4], [0, 0])).then((r) => { reply = r })
+      const request = postStrike(owner.token, piece.id, strikeWav(piece.targetHz, [1, 4], [0, 0])).then((r) => {
+        reply = r
+      })
       await until(() => filesUnder(STORAGE, `pending/strikes/${owner.workshopId}`).length === 1, 'the strike is measured')
       // The assignment commits while the strike waits with its first read (unassigned) in hand.
       await tx`update pieces set assignee_id = ${bench.userId} where id = ${piece.id}`
@@ -141,7 +145,9 @@ describe('class: races — recording a strike never overwrites a change made whi
     const other = await memberWithRole(owner.token, 'benchmaker')
     let reply: Awaited<ReturnType<typeof postStrike>> | undefined
     await holdingPiece(piece.id, async (tx) => {
-      const request = postStrike(bench.token, piece.id, strikeWav(piece.targetHz, [1, 4], [0, 0])).then((r) => { reply = r })
+      const request = postStrike(bench.token, piece.id, strikeWav(piece.targetHz, [1, 4], [0, 0])).then((r) => {
+        reply = r
+      })
       await until(() => filesUnder(STORAGE, `pending/strikes/${owner.workshopId}`).length === 1, 'the strike is measured')
       await tx`update pieces set assignee_id = ${other.userId} where id = ${piece.id}`
       void request
@@ -153,4 +159,3 @@ describe('class: races — recording a strike never overwrites a change made whi
     expect(filesUnder(STORAGE, `pending/strikes/${owner.workshopId}`)).toEqual([])
   }, 60_000)
 })
-

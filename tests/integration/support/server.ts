@@ -32,8 +32,11 @@ export async function startServer(env: Record<string, string>, port?: number): P
     stdio: ['ignore', 'pipe', 'pipe'],
   })
   let output = ''
-  child.stdout!.on('data', (d: Buffer) => { output += d.toString() })
-  child.stderr!.on('data', (d: Buffer) => { output += d.toString() })
+  const collect = (d: Buffer) => {
+    output += d.toString()
+  }
+  child.stdout!.on('data', collect)
+  child.stderr!.on('data', collect)
   const baseUrl = `http://127.0.0.1:${listen}`
   const stop = async (signal: NodeJS.Signals = 'SIGTERM') => {
     if (child.exitCode !== null || child.signalCode !== null) return
