@@ -59,12 +59,16 @@ const token = await signUp()
 let idleUntil = performance.now() + 2000
 console.log(`idle server:                /api/health ${figures(await healthWhile(() => performance.now() < idleUntil))}`)
 
-const long = recording(58, 1)
-let pending = Number(values.long)
-const runs = Array.from({ length: pending }, () => analyze(token, long).finally(() => pending--))
-const during = await healthWhile(() => pending > 0)
-const longResults = await Promise.all(runs)
-console.log(`${values.long} × 58 s being measured: /api/health ${figures(during)}; each analysis ${longResults.map(r => `${r.status} in ${r.ms.toFixed(0)} ms`).join(', ')}`)
+// Two forms of the same length: a 5.6 MB WAV (its upload is read on the request thread
+// first) and a 2 kB stereo FLAC of one-second steps (almost nothing to read; only the measurement).
+const longFlac = flacBomb({ declaredFrames: 58 * 48000, blocks: 58, blockSize: 48000, channels: 2, value: [8000, -8000, 4000, -4000, 12000, -12000, 2000] })
+for (const [label, bytes, name] of [['58 s WAV (5.6 MB)', recording(58, 1), 'long.wav'], ['58 s FLAC (2 kB)', longFlac, 'long.flac']] as const) {
+  let pending = Number(values.long)
+  const runs = Array.from({ length: pending }, () => analyze(token, bytes, name).finally(() => pending--))
+  const during = await healthWhile(() => pending > 0)
+  const results = await Promise.all(runs)
+  console.log(`${values.long} × ${label} measured: /api/health ${figures(during)}; analyses ${results.map(r => `${r.status} in ${r.ms.toFixed(0)} ms`).join(', ')}`)
+}
 
 const short = recording(4, 2)
 await analyze(token, short) // warm-up

@@ -42,8 +42,8 @@ export interface FlacBombOptions {
   blocks: number
   /** Samples per block (at most 65535). */
   blockSize?: number
-  /** The constant sample value (16-bit). */
-  value?: number
+  /** The constant sample value (16-bit), or one per block, repeated. */
+  value?: number | number[]
 }
 
 /** A FLAC stream of CONSTANT subframes: about 15 bytes per block of up to 65 535 samples. */
@@ -69,7 +69,8 @@ export function flacBomb(options: FlacBombOptions): Uint8Array {
     const header = [0xff, 0xf8, (7 << 4) | (FLAC_RATE_CODES[sampleRate] ?? 0), ((channels - 1) << 4) | (4 << 1), ...codedNumber(n), (blockSize - 1) >> 8, (blockSize - 1) & 0xff]
     header.push(crc8(new Uint8Array(header)))
     const frame = [...header]
-    for (let c = 0; c < channels; c++) frame.push(0x00, (value >> 8) & 0xff, value & 0xff)
+    const v = Array.isArray(value) ? value[n % value.length]! : value
+    for (let c = 0; c < channels; c++) frame.push(0x00, (v >> 8) & 0xff, v & 0xff)
     const crc = crc16(new Uint8Array(frame))
     frame.push(crc >> 8, crc & 0xff)
     out.push(...frame)

@@ -1,18 +1,21 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { encodeWav } from '../../../shared/analysis/encodeWav'
 import { synthStrike } from '../../../shared/synthesis/synthStrike'
+import { flacBomb } from '../../support/audioBombs'
 import { api, BASE_URL, memberWithRole, newWorkshop } from '../support/http'
 import { startServer, type ExtraServer } from '../support/server'
 
-/** A 58 s recording of a slowly decaying bar: the longest the engine takes (limit 60 s). */
-const LONG = encodeWav(synthStrike(
-  [{ frequencyHz: 440, amplitudeDb: -10, decayDbPerS: 1 }, { frequencyHz: 1760, amplitudeDb: -16, decayDbPerS: 2 }],
-  { sampleRate: 48000, durationS: 58, onsetS: 0.05, noiseDb: -75, seed: 3 },
-), 48000)
+/**
+ * A long recording in a small upload: `seconds` of stereo 48 kHz FLAC in steps of one
+ * second (CONSTANT subframes), about 20 bytes a second. A small upload keeps the time spent
+ * reading the request out of the picture, so the test sees only where the measurement runs.
+ */
+const longFlac = (seconds: number) =>
+  flacBomb({ declaredFrames: seconds * 48000, blocks: seconds, blockSize: 48000, channels: 2, value: [8000, -8000, 4000, -4000, 12000, -12000, 2000] })
 
 function analyze(token: string, bytes: Uint8Array, base = BASE_URL) {
   const form = new FormData()
-  form.set('file', new Blob([bytes], { type: 'audio/wav' }), 'long.wav')
+  form.set('file', new Blob([bytes], { type: 'application/octet-stream' }), 'long.flac')
   form.set('target-hz', '440')
   return fetch(`${base}/api/analyze`, { method: 'POST', headers: { authorization: `Bearer ${token}`, accept: 'application/json' }, body: form })
 }
@@ -25,7 +28,7 @@ describe('class: analysis never runs on the thread that answers requests (worker
 
   it('GET /api/health keeps answering while two 58 s recordings are measured', async () => {
     let analysesDone = 0
-    const analyses = [analyze(owner.token, LONG), analyze(owner.token, LONG)].map(p => p.then(async (r) => {
+    const analyses = [analyze(owner.token, longFlac(58)), analyze(owner.token, longFlac(58))].map(p => p.then(async (r) => {
       analysesDone++
       return { status: r.status, body: await r.json() }
     }))
@@ -38,11 +41,8 @@ describe('class: analysis never runs on the thread that answers requests (worker
       if (analysesDone < 2) answeredDuring++
     }
     const results = await Promise.all(analyses)
-    for (const r of results) {
-      expect(r.status).toBe(200)
-      expect(r.body.fundamentalHz).toBeCloseTo(440, 1)
-    }
-    // On the request thread, health would wait for each measurement (about a second each here);
+    for (const r of results) expect(r.status).toBe(200)
+    // On the request thread, health would wait for each measurement (seconds each here);
     // in the pool it answers in milliseconds throughout.
     expect(answeredDuring).toBeGreaterThanOrEqual(5)
   }, 120_000)
@@ -78,10 +78,9 @@ describe('class: a full analysis queue answers 503 with Retry-After, never 500',
   }, 120_000)
   afterAll(() => server?.stop())
 
-  it('with one thread and one waiting place, six simultaneous 20 s recordings: some measured, the rest 503', async () => {
+  it('with one thread and one waiting place, six simultaneous 30 s recordings: some measured, the rest 503', async () => {
     const { token } = await newWorkshop('Busy workshop')
-    const recording = encodeWav(synthStrike([{ frequencyHz: 440, amplitudeDb: -10, decayDbPerS: 3 }], { sampleRate: 48000, durationS: 20, onsetS: 0.05, noiseDb: -75, seed: 5 }), 48000)
-    const replies = await Promise.all(Array.from({ length: 6 }, () => analyze(token, recording, server.baseUrl)))
+    const replies = await Promise.all(Array.from({ length: 6 }, () => analyze(token, longFlac(30), server.baseUrl)))
     const statuses = replies.map(r => r.status)
     const odd = replies.filter(r => r.status !== 200 && r.status !== 503)
     expect(odd.map(r => r.status), await Promise.all(odd.map(r => r.text())).then(t => t.join('\n'))).toEqual([])
@@ -92,7 +91,6 @@ describe('class: a full analysis queue answers 503 with Retry-After, never 500',
       expect(r.headers.get('retry-after')).toBe('7')
       expect((await r.json()).message).toMatch(/^The server is measuring as many strikes as it can right now; send this one again in a few seconds\.$/)
     }
-    for (const r of replies.filter(x => x.status === 200)) expect((await r.json()).fundamentalHz).toBeCloseTo(440, 1)
     // The server still answers afterwards.
     expect((await api('/api/health')).status).toBe(200)
   }, 120_000)
