@@ -1,5 +1,6 @@
 // Nuxt 4 configuration. Every setting that differs between machines comes from
 // runtime config, overridden by NUXT_* environment variables at start.
+import { buildAnalysisWorker } from './scripts/build-analysis-worker'
 import { addWorkerEntries } from './server/workers/entries'
 
 export default defineNuxtConfig({
@@ -27,6 +28,12 @@ export default defineNuxtConfig({
     // Reverse proxies whose X-Forwarded-For is believed (addresses or CIDR ranges, comma-separated); none by default.
     trustedProxies: '',
     storage: { driver: 'fs', dir: '.data/storage' },
+    // Worker threads that decode and measure strikes (0: the machine's available
+    // parallelism), tasks that may wait (0: twice the threads), the Retry-After of a full queue,
+    // and a worker file other than the bundle beside the built server (empty: that bundle).
+    analysis: { threads: 0, maxQueue: 0, retryAfterS: 5, workerFile: '' },
+    // Strike audio whose row never committed is removed after olderThanS, checked every intervalS.
+    strikeUploadSweep: { intervalS: 300, olderThanS: 600 },
     smtp: { host: '127.0.0.1', port: 2525, user: '', pass: '', from: 'Tonewright <certificates@tonewright.test>' },
     // Where links in certificates and e-mails point (the public address of this app).
     siteUrl: 'http://127.0.0.1:3000',
@@ -39,11 +46,18 @@ export default defineNuxtConfig({
     public: { devMailbox: false },
   },
   compatibilityDate: '2025-07-15',
-  // `npm test` builds into its own folder so that it never replaces a running `npm start`'s files.
   nitro: {
+    // `npm test` builds into its own folder so that it never replaces a running `npm start`'s files.
     output: { dir: process.env.TONEWRIGHT_OUTPUT_DIR || '.output' },
-    // Worker-thread entries (PDF rendering) are built beside the server.
-    hooks: { 'rollup:before': (nitro, config) => addWorkerEntries(config, nitro.options.rootDir) },
+    hooks: {
+      // Worker-thread entries (PDF rendering) are built beside the server.
+      'rollup:before': (nitro, config) => addWorkerEntries(config, nitro.options.rootDir),
+      // The analysis pool's worker is its own bundle beside the built server (<output>/server/workers).
+      async compiled(nitro) {
+        if (nitro.options.dev) return
+        await buildAnalysisWorker(nitro.options.output.serverDir)
+      },
+    },
   },
   typescript: { strict: true },
   telemetry: false,

@@ -1,6 +1,6 @@
-/** POST /api/analyze: measure one uploaded strike (multipart `file` plus the CLI's options as fields). */
+/** POST /api/analyze: measure one uploaded strike (multipart `file` plus the CLI's options as fields); members who may record strikes. */
 export default defineEventHandler(async (event) => {
-  await requireMember(event)
+  await requireMember(event, 'bench:strike')
   const { file, fields } = await readUpload(event)
   return analyzeUpload(file.bytes, fields)
 })

@@ -1,16 +1,24 @@
+import { createError } from 'h3'
 import { AnalysisError } from '../../shared/analysis/AnalysisError'
-import { analyzeStrike } from '../../shared/analysis/analyzeStrike'
 import { parseAnalyzeOptions } from '../../shared/analysis/parseAnalyzeOptions'
 import type { AnalysisResult, AnalyzeOptions } from '../../shared/analysis/types'
+import { AnalysisBusyError, useAnalysisPool } from './analysis-pool'
 import { fail } from './http-errors'
 
-/** Runs the engine; its refusals become HTTP errors with the engine's plain sentence. */
+/**
+ * Runs the engine in the worker pool; its refusals become HTTP errors with the engine's
+ * plain sentence, and a full queue answers 503 (the `Retry-After` header is set by the
+ * analysis-pool plugin from `data.retryAfterS`).
+ */
 export async function runAnalysis(bytes: Uint8Array, options: AnalyzeOptions): Promise<AnalysisResult> {
   try {
-    return await analyzeStrike(bytes, options)
+    return await useAnalysisPool().run(bytes, options)
   }
   catch (error) {
     if (error instanceof AnalysisError) fail(error.status, error.message)
+    if (error instanceof AnalysisBusyError) {
+      throw createError({ statusCode: 503, statusMessage: 'Service Unavailable', message: error.message, data: { retryAfterS: error.retryAfterS } })
+    }
     throw error
   }
 }

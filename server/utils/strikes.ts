@@ -3,7 +3,7 @@ import { and, eq, sql } from 'drizzle-orm'
 import { pieces, sets, strikeAnalyses, strikes, templateVersions } from '../database/schema'
 import type { Database } from '../database/client'
 import type { AnalysisResult } from '../../shared/analysis/types'
-import { STAGE_LABELS, STRIKEABLE_STAGES } from '../../shared/records/stages'
+import { STAGE_LABELS, STRIKEABLE_STAGES, type PieceStage } from '../../shared/records/stages'
 import type { Member } from './auth'
 import { runAnalysis } from './analysis'
 import { audit } from './audit'
@@ -28,10 +28,25 @@ function extensionOf(name: string) {
   return EXTENSIONS[ext] ?? 'bin'
 }
 
+/** Where an upload waits until its row commits; the sweep clears what never did. */
+export const PENDING_STRIKE_AUDIO = 'pending/strikes/'
+
+export function pendingAudioKey(workshopId: string, strikeId: string, extension: string) {
+  return `${PENDING_STRIKE_AUDIO}${workshopId}/${strikeId}.${extension}`
+}
+
+/** PostgreSQL's "lock not available" (lock_timeout) and "serialization failure". */
+const BUSY_CODES = new Set(['55P03', '40001'])
+
 /**
  * Measures an uploaded strike against the piece's target and template version,
  * stores the audio and the engine's result, and updates the piece's latest-strike
- * columns, all or nothing: a file the engine refuses leaves no trace.
+ * columns, all or nothing: a file the engine refuses leaves no trace. The audio is
+ * written under a pending key and promoted after the row commits, so a crash or an
+ * aborted transaction leaves at most a pending object, which the sweep
+ * (strike-uploads.ts) removes. Under the piece's lock the row is read again and only
+ * the columns a strike owns are written: a change made while the engine ran (stage,
+ * assignee) is kept, never overwritten from the first read.
  */
 export async function recordStrike(
   db: Database,
@@ -47,10 +62,8 @@ export async function recordStrike(
     .where(and(eq(pieces.id, pieceId), eq(pieces.workshopId, member.workshopId)))
   if (!row) fail(404, 'No such piece in this workshop.')
   const { piece, set, template } = row
-  if (!STRIKEABLE_STAGES.includes(piece.stage)) {
-    fail(409, `This piece is ${STAGE_LABELS[piece.stage].toLowerCase()}; ${piece.stage === 'approved' ? 'a supervisor must reopen it before it is struck again' : 'it takes no more strikes'}.`)
-  }
-  if (member.role === 'benchmaker' && piece.assigneeId && piece.assigneeId !== member.userId) fail(403, 'This piece is assigned to someone else.')
+  checkStrikeable(piece.stage)
+  checkAssignee(member, piece.assigneeId)
 
   const analysis = await runAnalysis(file.bytes, {
     note: piece.note,
@@ -66,13 +79,19 @@ export async function recordStrike(
   })
 
   const strikeId = randomUUID()
-  const audioKey = `workshops/${member.workshopId}/strikes/${pieceId}/${strikeId}.${extensionOf(file.filename)}`
-  await storage.put(audioKey, file.bytes, file.type || 'application/octet-stream')
+  const extension = extensionOf(file.filename)
+  const audioKey = `workshops/${member.workshopId}/strikes/${pieceId}/${strikeId}.${extension}`
+  const pendingKey = pendingAudioKey(member.workshopId, strikeId, extension)
+  await storage.put(pendingKey, file.bytes, file.type || 'application/octet-stream')
+  let saved
   try {
-    return await db.transaction(async (tx) => {
-      // Lock the piece: its stage may have moved while the engine ran.
-      const [current] = await tx.select({ stage: pieces.stage }).from(pieces).where(eq(pieces.id, pieceId)).for('update')
+    saved = await db.transaction(async (tx) => {
+      // A strike never waits long for a busy piece; the pending upload must not outlive the sweep's age.
+      await tx.execute(sql`set local lock_timeout = '20s'`)
+      // Lock the piece and read it again: its stage or assignee may have changed while the engine ran.
+      const [current] = await tx.select({ stage: pieces.stage, assigneeId: pieces.assigneeId }).from(pieces).where(eq(pieces.id, pieceId)).for('update')
       if (!current || !STRIKEABLE_STAGES.includes(current.stage)) fail(409, 'The piece changed stage while the strike was measured; strike it again.')
+      checkAssignee(member, current.assigneeId)
       const verdict = analysis.verdict
       const worst = worstCents(analysis)
       const [strike] = await tx.insert(strikes).values({
@@ -90,10 +109,12 @@ export async function recordStrike(
       // A blank or returned piece is being tuned as soon as it is struck; a strike while
       // roughing or in review leaves the stage alone.
       const stage = current.stage === 'rework' || current.stage === 'blank' ? 'tuning' : current.stage
+      // An unassigned piece struck by a benchmaker becomes theirs; an assignment is never replaced.
+      const claim = current.assigneeId === null && member.role === 'benchmaker' ? { assigneeId: member.userId } : {}
       await tx.update(pieces).set({
         strikeCount: sql`${pieces.strikeCount} + 1`, latestStrikeId: strikeId, latestVerdict: verdict,
         latestWorstCents: worst, latestFundamentalHz: analysis.fundamentalHz, latestStrikeAt: strike!.createdAt,
-        stage, assigneeId: piece.assigneeId ?? (member.role === 'benchmaker' ? member.userId : null), updatedAt: new Date(),
+        stage, ...claim, updatedAt: new Date(),
       }).where(eq(pieces.id, pieceId))
       if (stage !== current.stage) {
         await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.stage', subjectType: 'piece', subjectId: pieceId, fromState: current.stage, toState: stage, reason: 'struck' })
@@ -102,7 +123,28 @@ export async function recordStrike(
     })
   }
   catch (error) {
-    await storage.delete(audioKey).catch(() => {})
+    await storage.delete(pendingKey).catch(() => {})
+    if (BUSY_CODES.has(postgresCode(error) ?? '')) fail(409, 'Someone else is changing this piece right now; strike it again.')
     throw error
   }
+  // Committed: promote the audio. Should this process die first, the sweep promotes it.
+  await storage.move(pendingKey, audioKey)
+  return saved
+}
+
+function checkStrikeable(stage: PieceStage) {
+  if (!STRIKEABLE_STAGES.includes(stage)) {
+    fail(409, `This piece is ${STAGE_LABELS[stage].toLowerCase()}; ${stage === 'approved' ? 'a supervisor must reopen it before it is struck again' : 'it takes no more strikes'}.`)
+  }
+}
+
+function checkAssignee(member: Member, assigneeId: string | null) {
+  if (member.role === 'benchmaker' && assigneeId && assigneeId !== member.userId) fail(403, 'This piece is assigned to someone else.')
+}
+
+function postgresCode(error: unknown): string | undefined {
+  for (let e = error as { code?: unknown, cause?: unknown } | undefined, i = 0; e && i < 4; e = e.cause as typeof e, i++) {
+    if (typeof e.code === 'string') return e.code
+  }
+  return undefined
 }

@@ -14,5 +14,8 @@ export async function analyzeStrike(bytes: Uint8Array, options: AnalyzeOptions =
   // Options first: a typo in a form field should not cost a decode.
   const opts = validateAnalyzeOptions(options)
   const decoded = await decodeAudio(bytes)
-  return analyzeChannels(decoded.channelData, decoded.sampleRate, opts, { lossy: isLossy(detectContainer(bytes)) })
+  const result = await analyzeChannels(decoded.channelData, decoded.sampleRate, opts, { lossy: isLossy(detectContainer(bytes)) })
+  // What decoding found about the file itself (e.g. a truncated WAV) comes first.
+  if (decoded.warnings.length > 0) result.warnings = [...decoded.warnings, ...result.warnings]
+  return result
 }

@@ -1,5 +1,7 @@
 import { spawnSync } from 'node:child_process'
-import { readFileSync } from 'node:fs'
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { analyzeStrike } from '../../../../shared/analysis/index'
@@ -32,6 +34,22 @@ describe('npm run analyze', () => {
     for (const unit of [' Hz', ' dB', ' dB/s', ' s', ' ¢']) expect(run.stdout).toContain(unit)
     expect(run.stdout).toMatch(/440\.000 Hz/)
     expect(run.stdout).toMatch(/Verdict: within/)
+  }, 60_000)
+
+  it('--json measures a WAV cut short and says so in warnings', () => {
+    // A 0.8 s fixture whose data chunk is made to declare 10 s (the file still holds 0.8 s).
+    const bytes = new Uint8Array(readFileSync(`${root}${fixture('strike-48k-16bit.wav')}`))
+    const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength)
+    let at = 12
+    while (String.fromCharCode(...bytes.subarray(at, at + 4)) !== 'data') at += 8 + view.getUint32(at + 4, true)
+    view.setUint32(at + 4, 48000 * 2 * 10, true)
+    const file = join(mkdtempSync(join(tmpdir(), 'tw-cli-')), 'cut.wav')
+    writeFileSync(file, bytes)
+    const run = cli(file, '--target-hz', '440', '--json')
+    expect(run.code).toBe(0)
+    const printed = JSON.parse(run.stdout)
+    expect(printed.warnings[0]).toMatch(/^truncated WAV file: the header declares 10\.00 s of audio but the file holds 0\.8\d s/)
+    expect(printed.fundamentalHz).toBeCloseTo(440, 0)
   }, 60_000)
 
   const refusals: [string[], number, RegExp][] = [

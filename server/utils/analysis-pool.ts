@@ -1,0 +1,160 @@
+import { existsSync } from 'node:fs'
+import { availableParallelism } from 'node:os'
+import { dirname, join, resolve } from 'node:path'
+import { fileURLToPath, pathToFileURL } from 'node:url'
+import { Piscina } from 'piscina'
+import { AnalysisError } from '../../shared/analysis/AnalysisError'
+import type { AnalysisResult, AnalyzeOptions } from '../../shared/analysis/types'
+import type { AnalysisReply, AnalysisTask } from '../workers/analysis.worker'
+
+/** The bundled worker's name beside the built server (`.output/server/workers/`). */
+export const BUILT_WORKER = join('workers', 'analysis.mjs')
+const SOURCE_WORKER = join('server', 'workers', 'analysis.worker.ts')
+
+export interface AnalysisPoolOptions {
+  /** Worker threads; 0 or absent: the machine's available parallelism. */
+  threads?: number
+  /** Tasks that may wait for a thread; 0 or absent: twice the threads. */
+  maxQueue?: number
+  /** A worker file to use instead of the one found beside the build or in the source tree. */
+  workerFile?: string
+  /** Seconds a refused client is told to wait (Retry-After). */
+  retryAfterS?: number
+}
+
+/** The queue is full: answer 503 with Retry-After rather than pile work up. */
+export class AnalysisBusyError extends Error {
+  readonly retryAfterS: number
+  constructor(retryAfterS: number) {
+    super('The server is measuring as many strikes as it can right now; send this one again in a few seconds.')
+    this.name = 'AnalysisBusyError'
+    this.retryAfterS = retryAfterS
+  }
+}
+
+export interface AnalysisPool {
+  readonly threads: number
+  readonly maxQueue: number
+  /** 'pool' runs in worker threads; 'in-thread' is the development fallback. */
+  readonly mode: 'pool' | 'in-thread'
+  readonly workerFile: string | null
+  run(bytes: Uint8Array, options: AnalyzeOptions): Promise<AnalysisResult>
+  close(): Promise<void>
+}
+
+/**
+ * Where the worker is: the bundle beside the built server (found upward from the entry
+ * script `.output/server/index.mjs` and from this module), else the TypeScript source run
+ * through tsx's loader (tests, scripts, `nuxt dev`). A production process never loads
+ * TypeScript: without the bundle it has no worker.
+ */
+export function locateWorker(production = process.env.NODE_ENV === 'production'): { file: string, typescript: boolean } | null {
+  // Nitro rewrites import.meta.url to the entry's URL, which is not yet set while plugins
+  // load; the entry script's path (argv[1]) is.
+  const starts = [process.argv[1] ? dirname(resolve(process.argv[1])) : null, dirname(fileURLToPath(import.meta.url))]
+  for (const start of starts) {
+    if (!start) continue
+    let dir = start
+    for (let i = 0; i < 4; i++, dir = dirname(dir)) {
+      if (existsSync(join(dir, BUILT_WORKER))) return { file: join(dir, BUILT_WORKER), typescript: false }
+    }
+  }
+  if (production) return null
+  for (const root of [resolve(dirname(fileURLToPath(import.meta.url)), '../..'), process.cwd()]) {
+    if (existsSync(join(root, SOURCE_WORKER))) return { file: join(root, SOURCE_WORKER), typescript: true }
+  }
+  return null
+}
+
+function decodeReply(reply: AnalysisReply): AnalysisResult {
+  if (reply.ok) return reply.result
+  throw new AnalysisError(reply.status, reply.code, reply.message)
+}
+
+/**
+ * A bounded pool of worker threads for decoding and measuring strikes, so the thread
+ * that answers requests never does that work. When more than `maxQueue` tasks wait,
+ * `run` rejects at once with AnalysisBusyError.
+ */
+export function createAnalysisPool(options: AnalysisPoolOptions = {}): AnalysisPool {
+  const threads = options.threads && options.threads > 0 ? Math.floor(options.threads) : availableParallelism()
+  const maxQueue = options.maxQueue && options.maxQueue > 0 ? Math.floor(options.maxQueue) : 2 * threads
+  const retryAfterS = options.retryAfterS ?? 5
+  const located = options.workerFile
+    ? { file: resolve(options.workerFile), typescript: options.workerFile.endsWith('.ts') }
+    : locateWorker()
+  if (!located) {
+    if (process.env.NODE_ENV === 'production') {
+      throw new Error(`The analysis worker (${BUILT_WORKER}) is missing beside the built server; rebuild with \`nuxt build\`.`)
+    }
+    console.warn('Tonewright: no analysis worker found; strikes are measured on the request thread (development only).')
+    return inThreadPool(threads, maxQueue, retryAfterS)
+  }
+  const execArgv = located.typescript && !process.execArgv.some(a => a.includes('tsx')) ? [...process.execArgv, '--import', 'tsx'] : process.execArgv
+  const piscina = new Piscina<AnalysisTask, AnalysisReply>({
+    filename: pathToFileURL(located.file).href,
+    minThreads: threads,
+    maxThreads: threads,
+    maxQueue,
+    // A strike takes well under a second; an idle thread stays warm (decoders compiled).
+    idleTimeout: 60_000,
+    execArgv,
+    name: 'default',
+  })
+  return {
+    threads,
+    maxQueue,
+    mode: 'pool',
+    workerFile: located.file,
+    async run(bytes, analyzeOptions) {
+      if (piscina.queueSize >= maxQueue) throw new AnalysisBusyError(retryAfterS)
+      let reply: AnalysisReply
+      try {
+        reply = await piscina.run({ bytes, options: analyzeOptions })
+      }
+      catch (error) {
+        if (error instanceof Error && /queue is at limit|all workers are busy/i.test(error.message)) throw new AnalysisBusyError(retryAfterS)
+        throw error
+      }
+      return decodeReply(reply)
+    },
+    close: () => piscina.close({ force: true }),
+  }
+}
+
+/** Development fallback without a worker: the same bound on waiting tasks, on this thread. */
+function inThreadPool(threads: number, maxQueue: number, retryAfterS: number): AnalysisPool {
+  let waiting = 0
+  return {
+    threads,
+    maxQueue,
+    mode: 'in-thread',
+    workerFile: null,
+    async run(bytes, options) {
+      if (waiting >= maxQueue + threads) throw new AnalysisBusyError(retryAfterS)
+      waiting++
+      try {
+        // Loaded only here, so the server bundle does not carry the engine.
+        const { default: analyze } = await import('../workers/analysis.worker')
+        return decodeReply(await analyze({ bytes, options }))
+      }
+      finally {
+        waiting--
+      }
+    },
+    close: async () => {},
+  }
+}
+
+let current: AnalysisPool | undefined
+
+/** Sets the process's pool (the Nitro plugin does this at start from runtime config). */
+export function setAnalysisPool(pool: AnalysisPool | undefined): void {
+  current = pool
+}
+
+/** The process's pool, created with the defaults when nothing configured one (scripts). */
+export function useAnalysisPool(): AnalysisPool {
+  current ??= createAnalysisPool()
+  return current
+}

@@ -1,0 +1,28 @@
+import { AnalysisError, type AnalysisErrorStatus } from '../../shared/analysis/AnalysisError'
+import { analyzeStrike } from '../../shared/analysis/analyzeStrike'
+import type { AnalysisResult, AnalyzeOptions } from '../../shared/analysis/types'
+
+/** What the request thread sends: the file's bytes and the engine's options. */
+export interface AnalysisTask {
+  bytes: Uint8Array
+  options: AnalyzeOptions
+}
+
+/**
+ * What comes back. A refusal crosses the thread boundary as plain data (status, code,
+ * sentence) because class identity does not survive structured cloning.
+ */
+export type AnalysisReply
+  = | { ok: true, result: AnalysisResult }
+    | { ok: false, status: AnalysisErrorStatus, code: string, message: string }
+
+/** The pool's task: decode and measure one strike off the request thread. */
+export default async function analyze(task: AnalysisTask): Promise<AnalysisReply> {
+  try {
+    return { ok: true, result: await analyzeStrike(task.bytes, task.options) }
+  }
+  catch (error) {
+    if (error instanceof AnalysisError) return { ok: false, status: error.status, code: error.code, message: error.message }
+    throw error
+  }
+}

@@ -1,0 +1,47 @@
+import { readFileSync } from 'node:fs'
+import { fileURLToPath } from 'node:url'
+import { afterAll, describe, expect, it } from 'vitest'
+import { AnalysisError } from '../../../../shared/analysis/AnalysisError'
+import { analyzeStrike } from '../../../../shared/analysis/analyzeStrike'
+import { AnalysisBusyError, createAnalysisPool, locateWorker } from '../../../../server/utils/analysis-pool'
+
+const fixture = (name: string) => new Uint8Array(readFileSync(fileURLToPath(new URL(`../../../fixtures/audio/${name}`, import.meta.url))))
+
+describe('analysis pool (worker threads from the TypeScript source through tsx)', () => {
+  const pool = createAnalysisPool({ threads: 1, maxQueue: 1 })
+  afterAll(() => pool.close())
+
+  it('runs in a worker thread and gives the same result as the engine in this thread', async () => {
+    expect(pool.mode).toBe('pool')
+    expect(pool.workerFile).toMatch(/server\/workers\/analysis\.worker\.ts$/)
+    const bytes = fixture('strike-48k.flac')
+    const options = { targetHz: 440, ratios: [1, 2.7565], tolerances: [5, 10] }
+    expect(await pool.run(bytes, options)).toEqual(await analyzeStrike(bytes, options))
+  }, 60_000)
+
+  it('brings a refusal back as an AnalysisError with its status and sentence', async () => {
+    const error = await pool.run(fixture('not-audio.txt'), {}).catch(e => e)
+    expect(error).toBeInstanceOf(AnalysisError)
+    expect(error).toMatchObject({ status: 415, code: 'not_audio' })
+    expect(error.message).toMatch(/^The file is not audio/)
+  }, 60_000)
+
+  it('refuses at once with AnalysisBusyError when the queue is full (1 thread, 1 waiting)', async () => {
+    const bytes = fixture('strike-48k.flac')
+    const outcomes = await Promise.allSettled([1, 2, 3, 4].map(() => pool.run(bytes, {})))
+    const busy = outcomes.filter(o => o.status === 'rejected' && o.reason instanceof AnalysisBusyError)
+    const done = outcomes.filter(o => o.status === 'fulfilled')
+    expect(busy.length).toBeGreaterThanOrEqual(2)
+    expect(done.length).toBeGreaterThanOrEqual(1)
+    expect(busy.length + done.length).toBe(4)
+    expect((busy[0] as PromiseRejectedResult).reason.retryAfterS).toBe(5)
+  }, 60_000)
+})
+
+describe('locateWorker', () => {
+  it('never offers the TypeScript source to a production process', () => {
+    // No build beside this source tree's server/utils: production finds nothing, development the source.
+    expect(locateWorker(true)).toBeNull()
+    expect(locateWorker(false)).toMatchObject({ typescript: true })
+  })
+})
