@@ -165,7 +165,7 @@ ensure_database() {
 # Build when there is no build or a source file is newer than it.
 build_if_stale() {
   local stamp="$ROOT/.output/nitro.json"
-  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app server shared public nuxt.config.ts tailwind.config.ts package-lock.json -newer "$stamp" -type f -print -quit 2>/dev/null)" ]; then
+  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app server shared public modules nuxt.config.ts tailwind.config.ts package-lock.json -newer "$stamp" -type f -print -quit 2>/dev/null)" ]; then
     return 0
   fi
   log "Building the app…"

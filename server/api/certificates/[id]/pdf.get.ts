@@ -8,7 +8,10 @@ export default defineEventHandler(async (event) => {
   const { id } = await getValidatedRouterParams(event, parseWith(IdParams))
   const query = await getValidatedQuery(event, parseWith(PdfQuerySchema))
   const pdf = await certificatePdf(useDatabase(), useBlobStorage(), member.workshopId, id, query.paper === 'letter' ? 'LETTER' : 'A4')
-  setResponseHeader(event, 'content-type', 'application/pdf')
-  setResponseHeader(event, 'content-disposition', `${query.download === '1' ? 'attachment' : 'inline'}; filename="${pdf.filename}"`)
+  setResponseHeaders(event, {
+    'content-type': 'application/pdf',
+    'content-disposition': `${query.download === '1' ? 'attachment' : 'inline'}; filename="${pdf.filename}"`,
+    'x-content-type-options': 'nosniff',
+  })
   return Buffer.from(pdf.bytes)
 })

@@ -1,0 +1,113 @@
+import { spawn } from 'node:child_process'
+import { request } from 'node:http'
+import { fileURLToPath } from 'node:url'
+import { BASE_URL } from '../support/http'
+
+/** The built server that scripts/test.sh starts. */
+export const SERVER_ENTRY = fileURLToPath(new URL('../../../.output/server/index.mjs', import.meta.url))
+export const OUTPUT_DIR = fileURLToPath(new URL('../../../.output/', import.meta.url))
+
+/** Starts the built server with extra environment and collects what it says until it exits (or `timeoutMs`). */
+export async function startBuiltServer(env: Record<string, string>, timeoutMs = 20_000) {
+  const child = spawn(process.execPath, [SERVER_ENTRY], {
+    env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: '0', NITRO_PORT: '0', ...env },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  })
+  let output = ''
+  child.stdout.on('data', (d: Buffer) => (output += d))
+  child.stderr.on('data', (d: Buffer) => (output += d))
+  const code = await new Promise<number | null>((resolve) => {
+    const timer = setTimeout(() => {
+      child.kill('SIGKILL')
+      resolve(null)
+    }, timeoutMs)
+    child.on('exit', (c) => {
+      clearTimeout(timer)
+      resolve(c)
+    })
+  })
+  return { code, output }
+}
+
+export interface RawReply {
+  status: number
+  headers: Record<string, string | string[] | undefined>
+  body: string
+  /** Body bytes written when the answer's headers arrived. */
+  sentBytes: number
+  /** Body bytes written in all (with `keepSending`, until the server cut the connection). */
+  totalSent: number
+  /** Whether the server closed the connection before the whole body was sent. */
+  cut: boolean
+  /** Milliseconds from the start of the request to the answer's headers. */
+  ms: number
+}
+
+/**
+ * A request through node:http, for what fetch hides: bodies sent piece by piece
+ * (chunked unless `length` is given) and how much of the body had been written when
+ * the answer came. Writing stops at the answer, or with `keepSending` goes on until
+ * the body ends or the server cuts the connection.
+ */
+export function rawRequest(path: string, options: { method?: string, headers?: Record<string, string>, chunks?: Iterable<Uint8Array>, length?: number, keepSending?: boolean } = {}): Promise<RawReply> {
+  const url = new URL(path, BASE_URL)
+  const started = performance.now()
+  return new Promise((resolve, reject) => {
+    let sent = 0
+    let reply: Omit<RawReply, 'totalSent' | 'cut'> | null = null
+    let answered = false
+    let ended = false
+    let cut = false
+    let bodyDone = false
+    const finish = () => {
+      if (reply && (bodyDone || cut || !options.keepSending)) resolve({ ...reply, totalSent: sent, cut })
+    }
+    const headers: Record<string, string> = { ...options.headers }
+    if (options.length !== undefined) headers['content-length'] = String(options.length)
+    const req = request(url, { method: options.method ?? 'POST', headers }, (res) => {
+      answered = true
+      const sentBytes = sent
+      const ms = performance.now() - started
+      let body = ''
+      res.setEncoding('utf8')
+      res.on('data', (d: string) => (body += d))
+      res.on('end', () => {
+        reply = { status: res.statusCode ?? 0, headers: res.headers, body, sentBytes, ms }
+        finish()
+      })
+      res.on('error', () => {})
+    })
+    // The server cuts the connection some time after refusing a body: that ends our writing, not the test.
+    req.on('error', (error) => {
+      cut = true
+      if (!answered) reject(error)
+      else finish()
+    })
+    const iterator = (options.chunks ?? [])[Symbol.iterator]()
+    const pump = () => {
+      while (!cut && !req.destroyed && (!answered || options.keepSending)) {
+        const next = iterator.next()
+        if (next.done) {
+          if (!ended) req.end(() => {
+            bodyDone = true
+            finish()
+          })
+          ended = true
+          return
+        }
+        sent += next.value.byteLength
+        if (!req.write(next.value)) {
+          req.once('drain', pump)
+          return
+        }
+      }
+    }
+    pump()
+  })
+}
+
+/** `count` chunks of `size` bytes each (the same zero-filled buffer). */
+export function* zeroChunks(count: number, size = 64 * 1024): Generator<Uint8Array> {
+  const chunk = new Uint8Array(size)
+  for (let i = 0; i < count; i++) yield chunk
+}
