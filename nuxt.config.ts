@@ -3,6 +3,11 @@
 export default defineNuxtConfig({
   // Local modules in modules/ (the development-only Mailbox) are registered by Nuxt itself.
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', '@sidebase/nuxt-auth', '@nuxt/eslint', 'nuxt-security'],
+  $development: {
+    runtimeConfig: { public: { devMailbox: true } },
+    // `nuxt dev` reloads the page over its own socket.
+    security: { headers: { contentSecurityPolicy: { 'connect-src': ['\'self\'', 'ws:', 'wss:'] } } },
+  },
   devtools: { enabled: false },
   app: {
     head: {
@@ -116,11 +121,6 @@ export default defineNuxtConfig({
     xssValidator: false,
     corsHandler: false,
     removeLoggers: false,
-  },
-  $development: {
-    runtimeConfig: { public: { devMailbox: true } },
-    // `nuxt dev` reloads the page over its own socket.
-    security: { headers: { contentSecurityPolicy: { 'connect-src': ['\'self\'', 'ws:', 'wss:'] } } },
   },
   tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts' },
 })

@@ -19,7 +19,7 @@ function isInternal(event: H3Event) {
  * Reads the request body into one Buffer, counting bytes as they arrive: a
  * declared length over the limit is refused before reading, and a body that
  * passes the limit while streaming (chunked, or longer than it said) is refused
- * at that moment: nothing more is kept, and the connection closes after the 413.
+ * at that moment: nothing more is kept (see refuseTooLarge).
  * The result is also left where h3's readBody/readMultipartFormData look for it.
  */
 export async function readBodyLimited(event: H3Event, maxBytes: number, tooLarge: string): Promise<Buffer> {
@@ -68,28 +68,40 @@ export async function readBodyLimited(event: H3Event, maxBytes: number, tooLarge
   return body
 }
 
-/** After a refusal the connection stays open this long, so the client can read the 413, and is then cut. */
-const LINGER_MS = 1500
+/**
+ * After a refusal, what the client still sends is read and thrown away (never
+ * kept) until the answer is out, then up to this much more or this long; then
+ * the connection is cut.
+ */
+const LINGER_BYTES = 64 * 1024 * 1024
+const LINGER_MS = 10_000
 
 /**
- * 413 now, and nothing more is read: the request is paused (the client's writes
- * stall once the socket buffers fill), the answer goes out, and the connection is
- * cut LINGER_MS after it. Cutting at once would reset the connection under a
- * client still sending, which then might never see the 413 (RFC 9112 §9.6).
+ * 413 now; nothing more of the body is kept. Cutting the connection at once
+ * would reset it under a client still sending, and many clients (fetch among
+ * them) then report a network error instead of the 413 (RFC 9112 §9.6), so the
+ * rest is discarded as it comes, within LINGER_BYTES and LINGER_MS.
  */
 export function refuseTooLarge(event: H3Event, sentence: string): never {
-  stopReading(event)
+  discardRest(event)
   fail(413, sentence)
 }
 
-function stopReading(event: H3Event) {
+function discardRest(event: H3Event) {
   const { req, res } = event.node
-  // A listener marks the body as consumed, so Node does not drain it after the answer; the pause stops the socket.
-  req.on('data', () => {}).on('error', () => {})
-  req.pause()
+  let answered = false
+  let discardedAfterAnswer = 0
+  const cut = () => {
+    if (!req.complete) req.socket?.destroy()
+  }
+  req.on('data', (chunk: Buffer) => {
+    if (!answered) return
+    discardedAfterAnswer += chunk.length
+    if (discardedAfterAnswer > LINGER_BYTES) cut()
+  }).on('error', () => {})
+  req.resume()
   res.once('finish', () => {
-    setTimeout(() => {
-      if (!req.complete) req.socket?.destroy()
-    }, LINGER_MS).unref()
+    answered = true
+    setTimeout(cut, LINGER_MS).unref()
   })
 }

@@ -1,5 +1,5 @@
 import { spawn } from 'node:child_process'
-import { request } from 'node:http'
+import { Agent, request } from 'node:http'
 import { fileURLToPath } from 'node:url'
 import { BASE_URL } from '../support/http'
 
@@ -60,22 +60,27 @@ export function rawRequest(path: string, options: { method?: string, headers?: R
     let cut = false
     let bodyDone = false
     const finish = () => {
-      if (reply && (bodyDone || cut || !options.keepSending)) resolve({ ...reply, totalSent: sent, cut })
+      if (reply && (bodyDone || cut || !options.keepSending)) {
+        agent.destroy()
+        resolve({ ...reply, totalSent: sent, cut })
+      }
     }
-    const headers: Record<string, string> = { ...options.headers }
+    const headers: Record<string, string> = { accept: 'application/json', ...options.headers }
     if (options.length !== undefined) headers['content-length'] = String(options.length)
-    const req = request(url, { method: options.method ?? 'POST', headers }, (res) => {
+    // A connection of its own (kept alive, as browsers do): one whose body was cut short must never carry the next request.
+    const agent = new Agent({ keepAlive: true, maxSockets: 1 })
+    const req = request(url, { method: options.method ?? 'POST', headers, agent }, (res) => {
       answered = true
       const sentBytes = sent
       const ms = performance.now() - started
       let body = ''
       res.setEncoding('utf8')
       res.on('data', (d: string) => (body += d))
-      res.on('end', () => {
-        reply = { status: res.statusCode ?? 0, headers: res.headers, body, sentBytes, ms }
+      const done = () => {
+        reply ??= { status: res.statusCode ?? 0, headers: res.headers, body, sentBytes, ms }
         finish()
-      })
-      res.on('error', () => {})
+      }
+      res.on('end', done).on('close', done).on('error', () => {})
     })
     // The server cuts the connection some time after refusing a body: that ends our writing, not the test.
     req.on('error', (error) => {
@@ -83,24 +88,26 @@ export function rawRequest(path: string, options: { method?: string, headers?: R
       if (!answered) reject(error)
       else finish()
     })
+    req.on('close', () => {
+      if (!bodyDone) cut = true
+      finish()
+    })
     const iterator = (options.chunks ?? [])[Symbol.iterator]()
+    // One chunk per turn of the event loop, so an answer is noticed while sending, as a browser would.
     const pump = () => {
-      while (!cut && !req.destroyed && (!answered || options.keepSending)) {
-        const next = iterator.next()
-        if (next.done) {
-          if (!ended) req.end(() => {
-            bodyDone = true
-            finish()
-          })
-          ended = true
-          return
-        }
-        sent += next.value.byteLength
-        if (!req.write(next.value)) {
-          req.once('drain', pump)
-          return
-        }
+      if (cut || req.destroyed || (answered && !options.keepSending)) return
+      const next = iterator.next()
+      if (next.done) {
+        if (!ended) req.end(() => {
+          bodyDone = true
+          finish()
+        })
+        ended = true
+        return
       }
+      sent += next.value.byteLength
+      if (req.write(next.value)) setImmediate(pump)
+      else req.once('drain', pump)
     }
     pump()
   })
