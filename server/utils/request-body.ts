@@ -55,7 +55,8 @@ export async function readBodyLimited(event: H3Event, maxBytes: number, tooLarge
     }
     const onEnd = () => {
       cleanup()
-      resolve(chunks.length === 1 ? chunks[0]! : Buffer.concat(chunks, received))
+      // Always a fresh buffer holding only the body: a single socket chunk's memory can also hold the request's headers.
+      resolve(Buffer.concat(chunks, received))
     }
     const onError = (error: Error) => {
       cleanup()
