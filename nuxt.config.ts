@@ -4,7 +4,13 @@ import { buildAnalysisWorker } from './scripts/build-analysis-worker'
 import { addWorkerEntries } from './server/workers/entries'
 
 export default defineNuxtConfig({
-  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', '@sidebase/nuxt-auth', '@nuxt/eslint'],
+  // Local modules in modules/ (the development-only Mailbox) are registered by Nuxt itself.
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', '@sidebase/nuxt-auth', '@nuxt/eslint', 'nuxt-security'],
+  $development: {
+    runtimeConfig: { public: { devMailbox: true } },
+    // `nuxt dev` reloads the page over its own socket.
+    security: { headers: { contentSecurityPolicy: { 'connect-src': ['\'self\'', 'ws:', 'wss:'] } } },
+  },
   devtools: { enabled: false },
   app: {
     head: {
@@ -43,6 +49,7 @@ export default defineNuxtConfig({
     mailLeaseS: 300,
     // Folder of the local SMTP catcher, read by the development Mailbox screen.
     mailCatcherDir: '.data/mail',
+    // The Mailbox screen (modules/dev-mailbox.ts) exists only under `nuxt dev`; production refuses to start with this on.
     public: { devMailbox: false },
   },
   compatibilityDate: '2025-07-15',
@@ -99,5 +106,47 @@ export default defineNuxtConfig({
     },
   },
   eslint: { config: { stylistic: true } },
+  // Security headers on every response and a nonce-based Content-Security-Policy on
+  // every page. Request size, content type and origin checks are ours
+  // (server/middleware/request-guard.ts): they count bytes as they arrive, which the
+  // module's Content-Length check does not, and the sign-in limits live in PostgreSQL
+  // (shared by every instance), so the module's in-memory limiter is off.
+  security: {
+    nonce: true,
+    headers: {
+      contentSecurityPolicy: {
+        'default-src': ['\'self\''],
+        'base-uri': ['\'none\''],
+        'object-src': ['\'none\''],
+        'frame-ancestors': ['\'none\''],
+        'form-action': ['\'self\''],
+        // No 'strict-dynamic': it would ignore 'self', which the code-split chunks and the capture worklet need.
+        'script-src': ['\'self\'', '\'nonce-{{nonce}}\''],
+        'script-src-attr': ['\'none\''],
+        'style-src': ['\'self\'', '\'nonce-{{nonce}}\''],
+        // Vue renders :style bindings as style attributes (bar widths, stage colours).
+        'style-src-attr': ['\'unsafe-inline\''],
+        'img-src': ['\'self\'', 'data:'],
+        'font-src': ['\'self\'', 'data:'],
+        'connect-src': ['\'self\''],
+        'media-src': ['\'self\'', 'blob:'],
+        'worker-src': ['\'self\''],
+        'manifest-src': ['\'self\''],
+        'frame-src': ['\'self\''],
+        'upgrade-insecure-requests': false,
+      },
+      xFrameOptions: 'DENY',
+      xContentTypeOptions: 'nosniff',
+      referrerPolicy: 'same-origin',
+      crossOriginEmbedderPolicy: false,
+      // The Bench needs the microphone of its own page; nothing else is used.
+      permissionsPolicy: { 'camera': [], 'display-capture': [], 'fullscreen': ['self'], 'geolocation': [], 'microphone': ['self'], 'payment': [], 'usb': [] },
+    },
+    rateLimiter: false,
+    requestSizeLimiter: false,
+    xssValidator: false,
+    corsHandler: false,
+    removeLoggers: false,
+  },
   tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts' },
 })

@@ -215,7 +215,7 @@ app_database_url() { echo "postgres://$APP_ROLE:$2@127.0.0.1:$1/$3"; }
 build_if_stale() {
   local out="${1:-$ROOT/.output}"
   local stamp="$out/nitro.json" log_file="$DATA/build-$(basename "$out").log"
-  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app server shared public nuxt.config.ts tailwind.config.ts package-lock.json scripts/build-analysis-worker.ts -newer "$stamp" -type f -print -quit 2>/dev/null)" ]; then
+  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app server shared public modules nuxt.config.ts tailwind.config.ts package-lock.json scripts/build-analysis-worker.ts -newer "$stamp" -type f -print -quit 2>/dev/null)" ]; then
     return 0
   fi
   (

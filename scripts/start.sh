@@ -71,7 +71,6 @@ export NUXT_DATABASE_URL="$(app_database_url "$DB_PORT" "$APP_DB_PASSWORD" tonew
 export NUXT_AUTH_SECRET="$AUTH_SECRET"
 export NUXT_STORAGE_DIR="$DATA/storage"
 export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT="$SMTP_PORT"
-export NUXT_PUBLIC_DEV_MAILBOX=true
 export NUXT_MAIL_CATCHER_DIR="$MAIL_DIR" NUXT_SITE_URL="${TONEWRIGHT_SITE_URL:-http://$APP_HOST:$APP_PORT}"
 
 if recorded_pid "$MAIL_DIR/catcher.pid" scripts/mail-catcher.ts >/dev/null; then
@@ -100,7 +99,9 @@ cat <<MSG
     bench@tonewright.test       benchmaker
     office@tonewright.test      office
 
-  Mail goes to the local catcher on 127.0.0.1:$SMTP_PORT; read it on the Mailbox screen.
+  Mail goes to the local catcher on 127.0.0.1:$SMTP_PORT; read it in a second terminal
+  with \`npm run mailbox\` (list), \`npm run mailbox -- show 1\` (newest message) and
+  \`npm run mailbox -- save 1 DIR\` (its attachments).
 
   Press Ctrl-C to stop.
 

@@ -56,7 +56,6 @@ export NUXT_DATABASE_URL="$(app_database_url "$DB_PORT" "$APP_DB_PASSWORD" "$DB_
 export NUXT_AUTH_SECRET="test-secret-$(secret_file test-auth-secret)"
 export NUXT_STORAGE_DIR="$DATA/test-storage"
 export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT="$SMTP_PORT"
-export NUXT_PUBLIC_DEV_MAILBOX=true
 # Every test request comes from 127.0.0.1: the per-address limit is tested against the database directly.
 export NUXT_SIGN_IN_MAX_PER_ADDRESS=1000
 # The test server sits "behind" a local proxy, so tests can speak for other client addresses with
@@ -91,7 +90,7 @@ log "Starting the built server on 127.0.0.1:$APP_PORT…"
 app_start "$OUT_DIR" "$APP_PORT" "$DATA/test-app.pid" "$ROOT/test-results/server.log"
 wait_http "http://127.0.0.1:$APP_PORT/api/health" 60 || { tail -n 30 "$ROOT/test-results/server.log" >&2; die "The test server did not start."; }
 
-export TW_BASE_URL="http://127.0.0.1:$APP_PORT"
+export TW_BASE_URL="http://127.0.0.1:$APP_PORT" TW_OUTPUT_DIR="$OUT_DIR"
 export TW_PG_DIR="$PG_DIR" TW_PG_PORT="$DB_PORT"
 export TW_MAIL_DIR="$MAIL_DIR" TW_SMTP_PORT="$SMTP_PORT"
 if has_suite integration; then

@@ -10,6 +10,7 @@ export function useMember() {
     user: data,
     role,
     can: (permission: Permission) => can(role.value, permission),
-    nav: computed(() => navItemsFor(role.value, { dev: Boolean(config.public.devMailbox) })),
+    // The Mailbox item only under `nuxt dev`: a production build has no such screen.
+    nav: computed(() => navItemsFor(role.value, { dev: import.meta.dev && Boolean(config.public.devMailbox) })),
   }
 }

@@ -1,27 +1,6 @@
-// The capture worklet: copies the first input channel into blocks of 2048 frames and
-// posts them to the page (transferring the buffer). Kept as a string so it needs no
-// separate build step; loaded from a Blob URL.
-const WORKLET = `
-class TwCapture extends AudioWorkletProcessor {
-  constructor() { super(); this.block = new Float32Array(2048); this.fill = 0 }
-  process(inputs) {
-    const ch = inputs[0] && inputs[0][0]
-    if (!ch) return true
-    let i = 0
-    while (i < ch.length) {
-      const n = Math.min(ch.length - i, this.block.length - this.fill)
-      this.block.set(ch.subarray(i, i + n), this.fill)
-      this.fill += n; i += n
-      if (this.fill === this.block.length) {
-        this.port.postMessage(this.block, [this.block.buffer])
-        this.block = new Float32Array(2048); this.fill = 0
-      }
-    }
-    return true
-  }
-}
-registerProcessor('tw-capture', TwCapture)
-`
+// The capture worklet (public/worklets/tw-capture.js) is served from the app's own
+// origin, which the Content-Security-Policy allows for scripts and worklets.
+const WORKLET_URL = '/worklets/tw-capture.js'
 
 /** Level of the last block for the meter, in dB re full scale. */
 export interface InputLevel { peakDb: number, rmsDb: number, clipped: boolean }
@@ -63,13 +42,7 @@ export function useMicrophone() {
     catch {
       context = new AudioContext()
     }
-    const url = URL.createObjectURL(new Blob([WORKLET], { type: 'application/javascript' }))
-    try {
-      await context.audioWorklet.addModule(url)
-    }
-    finally {
-      URL.revokeObjectURL(url)
-    }
+    await context.audioWorklet.addModule(WORKLET_URL)
     node = new AudioWorkletNode(context, 'tw-capture', { numberOfInputs: 1, numberOfOutputs: 1, channelCount: 1, channelCountMode: 'explicit' })
     node.port.onmessage = (e: MessageEvent<Float32Array>) => onBlock(e.data)
     const source = context.createMediaStreamSource(stream)

@@ -1,11 +1,17 @@
 /**
- * Refuses to start a production server without an auth secret: sessions would be
- * signed with an empty key.
+ * Refuses to start a production server that would be unsafe: without an auth
+ * secret (sessions would be signed with an empty key), or with a development-only
+ * feature switched on by the environment.
  */
 export default defineNitroPlugin(() => {
   const config = useRuntimeConfig()
+  const production = process.env.NODE_ENV === 'production'
+  if (production && config.public.devMailbox) {
+    console.error('Tonewright cannot start: the Mailbox is for development only; remove NUXT_PUBLIC_DEV_MAILBOX from the environment of a production start and read caught mail with `npm run mailbox`.')
+    process.exit(1)
+  }
   if (!config.authSecret || String(config.authSecret).length < 16) {
-    if (process.env.NODE_ENV === 'production') {
+    if (production) {
       console.error('Tonewright cannot start: set NUXT_AUTH_SECRET to a random string of at least 16 characters.')
       process.exit(1)
     }

@@ -19,16 +19,23 @@ export async function launch(extraArgs: string[] = []): Promise<{ browser: Brows
     ],
   })
   const contexts: BrowserContext[] = []
+  // Anything the Content-Security-Policy blocked: the app must work within its own policy.
+  const cspViolations: string[] = []
   return {
     browser,
     newPage: async () => {
       const context = await browser.newContext({ viewport: { width: 1280, height: 800 } })
       contexts.push(context)
-      return context.newPage()
+      const page = await context.newPage()
+      page.on('console', (message) => {
+        if (/Content Security Policy/i.test(message.text())) cspViolations.push(`${page.url()}: ${message.text()}`)
+      })
+      return page
     },
     close: async () => {
       for (const c of contexts) await c.close().catch(() => {})
       await browser.close()
+      if (cspViolations.length) throw new Error(`The Content-Security-Policy blocked:\n${[...new Set(cspViolations)].join('\n')}`)
     },
   }
 }

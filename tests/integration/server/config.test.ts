@@ -1,8 +1,8 @@
 import { spawn } from 'node:child_process'
-import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
+import { SERVER_ENTRY } from '../support/output'
 
-const server = fileURLToPath(new URL('../../../.output/server/index.mjs', import.meta.url))
+const server = SERVER_ENTRY
 
 describe('configuration', () => {
   it('refuses to start in production without an auth secret, saying why', async () => {

@@ -2,6 +2,8 @@ import { spawn, type ChildProcess } from 'node:child_process'
 import { createServer } from 'node:net'
 import { fileURLToPath } from 'node:url'
 
+import { SERVER_ENTRY } from './output'
+
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url))
 
 /** A free loopback port, from the kernel. */
@@ -20,13 +22,13 @@ export function freePort(): Promise<number> {
 export interface ExtraServer { baseUrl: string, process: ChildProcess, log: () => string, stop: (signal?: NodeJS.Signals) => Promise<void> }
 
 /**
- * A second instance of the built server (the same .output as the test server, the same
+ * A second instance of the built server (the same build as the test server, the same
  * database and secret from the environment scripts/test.sh exported) with `env` on top,
  * for tests that must kill or reconfigure a server. Answers once /api/health does.
  */
 export async function startServer(env: Record<string, string>, port?: number): Promise<ExtraServer> {
   const listen = port ?? await freePort()
-  const child = spawn(process.execPath, ['.output/server/index.mjs'], {
+  const child = spawn(process.execPath, [SERVER_ENTRY], {
     cwd: ROOT,
     env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(listen), NITRO_HOST: '127.0.0.1', NITRO_PORT: String(listen), ...env },
     stdio: ['ignore', 'pipe', 'pipe'],

@@ -16,7 +16,10 @@ export default defineEventHandler(async (event) => {
     setResponseHeader(event, 'retry-after', 2)
     return { statusCode: 202, pdfStatus: 'pending', message: `The PDF of certificate ${pdf.number} is still being prepared; try again in a few seconds.` }
   }
-  setResponseHeader(event, 'content-type', 'application/pdf')
-  setResponseHeader(event, 'content-disposition', `${query.download === '1' ? 'attachment' : 'inline'}; filename="${pdf.filename}"`)
+  setResponseHeaders(event, {
+    'content-type': 'application/pdf',
+    'content-disposition': `${query.download === '1' ? 'attachment' : 'inline'}; filename="${pdf.filename}"`,
+    'x-content-type-options': 'nosniff',
+  })
   return Buffer.from(pdf.bytes)
 })

@@ -9,13 +9,13 @@ let session: Awaited<ReturnType<typeof launch>>
 
 // What each role may open, from the product notes' role table (owner: everything;
 // supervisor: review and sign-off plus bench rights; benchmaker: the bench; office:
-// sets, buyers, certificates, read everything). Mailbox is the development mail
-// catcher, which the test server turns on.
+// sets, buyers, certificates, read everything). The test server is a production
+// build, so the development-only Mailbox is never among them.
 const ROLES = {
-  owner: { email: 'owner@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team', 'Mailbox'], forbidden: [] },
-  supervisor: { email: 'supervisor@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team', 'Mailbox'], forbidden: [] },
-  benchmaker: { email: 'bench@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Templates', 'Team', 'Mailbox'], forbidden: ['/review', '/certificates'] },
-  office: { email: 'office@tonewright.test', nav: ['Pieces', 'Sets', 'Templates', 'Certificates', 'Team', 'Mailbox'], forbidden: ['/bench', '/review'] },
+  owner: { email: 'owner@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team'], forbidden: [] },
+  supervisor: { email: 'supervisor@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team'], forbidden: [] },
+  benchmaker: { email: 'bench@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Templates', 'Team'], forbidden: ['/review', '/certificates'] },
+  office: { email: 'office@tonewright.test', nav: ['Pieces', 'Sets', 'Templates', 'Certificates', 'Team'], forbidden: ['/bench', '/review'] },
 } as const
 
 /** The screens built here, with the heading each opens with. */
