@@ -110,7 +110,10 @@ export function createAnalysisPool(options: AnalysisPoolOptions = {}): AnalysisP
       if (piscina.queueSize >= maxQueue) throw new AnalysisBusyError(retryAfterS)
       let reply: AnalysisReply
       try {
-        reply = await piscina.run({ bytes, options: analyzeOptions })
+        // The upload is a view into the whole request body: copy just its bytes and hand
+        // that copy over (a plain clone would copy the whole body buffer).
+        const own = bytes.slice()
+        reply = await piscina.run({ bytes: own, options: analyzeOptions }, { transferList: [own.buffer] })
       }
       catch (error) {
         if (error instanceof Error && /queue is at limit|all workers are busy/i.test(error.message)) throw new AnalysisBusyError(retryAfterS)

@@ -44,7 +44,7 @@ describe('accounts: malformed credentials answer 401, never 500', () => {
     // The good token works through the cookie alone (a control for the case above).
     expect((await api('/api/team', { headers: { cookie: `auth.token=Bearer%20${owner.token}` } })).status).toBe(200)
     expect((await api('/api/auth/logout', { method: 'POST', headers: { authorization: 'Bearer %E0%A4%A' } })).status).toBe(200)
-    const accept = await api('/api/invitations/accept', { method: 'POST', headers: { cookie: 'auth.token=%E0%A4%A' }, body: { token: 'A'.repeat(43), name: 'A', password: 'some-password-1' } })
+    const accept = await api('/api/invitations/accept', { method: 'POST', headers: { cookie: 'auth.token=%E0%A4%A', origin: new URL(BASE_URL).origin }, body: { token: 'A'.repeat(43), name: 'A', password: 'some-password-1' } })
     expect(accept.status).toBe(404)
     const page = await fetch(`${BASE_URL}/signin`, { headers: { cookie: 'auth.token=%E0%A4%A' } })
     expect(page.status).toBeLessThan(500)

@@ -38,10 +38,14 @@ function allRoutes(dir = API_DIR): string[] {
   })
 }
 
+const UPLOAD_ROUTES = new Set(['POST /api/analyze', 'POST /api/pieces/:id/strikes'])
+
 function call(route: string, token: string) {
   const [method, path] = route.split(' ') as [string, string]
   const url = path.replace(/:file\b/, 'a.txt').replace(/:(\w+)/g, () => randomUUID())
-  return api(url, { method, token, body: method === 'GET' ? undefined : {} })
+  // Upload routes take multipart only (the request guard answers 415 to anything else first).
+  const body = method === 'GET' ? undefined : UPLOAD_ROUTES.has(route) ? new FormData() : {}
+  return api(url, { method, token, body })
 }
 
 describe('accounts: a temporary password must be changed before anything else, on the server', () => {
