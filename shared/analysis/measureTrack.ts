@@ -1,8 +1,10 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import { detectBeat } from './detectBeat'
 import { dtftPowers3 } from './dtftPowers3'
+import { envelopeDepthDb } from './envelopeDepthDb'
 import { fitLine } from './fitLine'
 import type { TrackPoint } from './linkTracks'
+import { measureModulation, type ModulationSettings } from './measureModulation'
 import { refinePeak } from './refinePeak'
 import { separatePair } from './separatePair'
 import type { MeasuredPartial } from './types'
@@ -21,11 +23,16 @@ export interface TrackContext {
   minSnrDb: number
   /** Longest span used for the frequency refinement, in s. */
   maxRefineS: number
+  modulation: ModulationSettings
 }
 
 /** A measured partial with the length of the span that refined it (for de-duplication). */
 export interface TrackMeasurement extends MeasuredPartial {
   refineSpanS: number
+  /** Short-time window of the band the track came from, in s. */
+  windowS: number
+  /** Level of the track's strongest frame, dB re full scale (a lower bound of the onset amplitude). */
+  strongestFrameDb: number
 }
 
 /**
@@ -36,12 +43,18 @@ export interface TrackMeasurement extends MeasuredPartial {
  * the gain of the window for a partial decaying at the fitted rate α (Np/s), which gives
  * the sinusoid's amplitude at the onset directly. When the envelope beats, the long
  * spectrum around the track is scanned for a close pair, which is reported as two partials
- * whose envelopes are separated by separatePair.
+ * whose envelopes are separated by separatePair — unless the spectrum shows a symmetric pair
+ * of sidebands around the partial (measureModulation): then it is one partial with a tremolo,
+ * its sidebands are no partials, and its rate and depth are reported.
  * Returns zero, one or two partials.
  */
 export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleRate: number, context: TrackContext): TrackMeasurement[] {
   let bestSnr = -Infinity
-  for (const p of points) bestSnr = Math.max(bestSnr, p.amplitudeDb - p.noiseFloorDb)
+  let strongestFrameDb = -Infinity
+  for (const p of points) {
+    bestSnr = Math.max(bestSnr, p.amplitudeDb - p.noiseFloorDb)
+    strongestFrameDb = Math.max(strongestFrameDb, p.amplitudeDb)
+  }
   if (bestSnr < context.minSnrDb) return []
   let fitPoints = points.filter(p => p.amplitudeDb - p.noiseFloorDb >= context.fitMarginDb)
   if (fitPoints.length < 3) fitPoints = points.filter(p => p.amplitudeDb - p.noiseFloorDb >= 6)
@@ -84,20 +97,39 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     snrDb: bestSnr,
     frames: points.length,
     refineSpanS: length / sampleRate,
+    windowS: context.windowLength / sampleRate,
+    strongestFrameDb,
   }
   const amplitudeDb = (magnitude: number) => 20 * Math.log10(Math.max((2 * magnitude) / gain, 1e-12))
 
+  const peak = refinePeak(windowed, sampleRate, coarseHz)
+  const modulation = measureModulation(windowed, sampleRate, peak.frequencyHz, context.modulation)
+  if (modulation) {
+    return [{
+      ...common,
+      frequencyHz: peak.frequencyHz,
+      amplitudeDb: amplitudeDb(peak.magnitude),
+      beatHz: envelopeBeatHz,
+      modulationHz: modulation.rateHz,
+      modulationDepthDb: modulation.depthDb,
+    }]
+  }
   if (envelopeBeatHz !== null) {
     const pair = findClosePair(windowed, sampleRate, coarseHz, ((MAIN_LOBE_BINS / 2) * sampleRate) / context.windowLength, binHz)
     if (pair) {
       const beatHz = Math.abs(pair[1].frequencyHz - pair[0].frequencyHz)
       const separated = separatePair(signal, sampleRate, spanStart, spanEnd, context.onsetIndex, pair[0].frequencyHz, pair[1].frequencyHz)
-      return pair.map((peak, k) => {
-        if (!separated) return { ...common, frequencyHz: peak.frequencyHz, amplitudeDb: amplitudeDb(peak.magnitude), beatHz }
+      const linear = separated ? separated.amplitude : [2 * pair[0].magnitude / gain, 2 * pair[1].magnitude / gain]
+      // Two partials beat between A₁ + A₂ and |A₁ − A₂|.
+      const depth = 20 * Math.log10((linear[0]! + linear[1]!) / Math.max(Math.abs(linear[0]! - linear[1]!), 1e-12))
+      const modulationFields = { modulationHz: beatHz, modulationDepthDb: Math.min(depth, 60) }
+      return pair.map((peakK, k) => {
+        if (!separated) return { ...common, ...modulationFields, frequencyHz: peakK.frequencyHz, amplitudeDb: amplitudeDb(peakK.magnitude), beatHz }
         const decay = separated.decayDbPerS[k]!
         return {
           ...common,
-          frequencyHz: peak.frequencyHz,
+          ...modulationFields,
+          frequencyHz: peakK.frequencyHz,
           amplitudeDb: 20 * Math.log10(Math.max(separated.amplitude[k]!, 1e-12)),
           decayDbPerS: decay,
           t60S: decay > 0 ? 60 / decay : null,
@@ -107,8 +139,14 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
       })
     }
   }
-  const peak = refinePeak(windowed, sampleRate, coarseHz)
-  return [{ ...common, frequencyHz: peak.frequencyHz, amplitudeDb: amplitudeDb(peak.magnitude), beatHz: envelopeBeatHz }]
+  return [{
+    ...common,
+    frequencyHz: peak.frequencyHz,
+    amplitudeDb: amplitudeDb(peak.magnitude),
+    beatHz: envelopeBeatHz,
+    modulationHz: envelopeBeatHz,
+    modulationDepthDb: envelopeBeatHz === null ? null : envelopeDepthDb(times, fit.residuals, envelopeBeatHz),
+  }]
 }
 
 /**
