@@ -2,6 +2,7 @@ import { analysisParameters } from './analysisParameters'
 import { applyTemplate } from './applyTemplate'
 import { chooseWindow } from './chooseWindow'
 import { dropDuplicates } from './dropDuplicates'
+import { dropSidebands } from './dropSidebands'
 import { ENGINE_SETTINGS as S } from './engineSettings'
 import { fundamentalWithoutTarget } from './fundamentalWithoutTarget'
 import { guardPartials } from './guardPartials'
@@ -44,7 +45,7 @@ export function analyzeChannels(
   const range = { minHz: 20, maxHz: Math.min(20000, 0.475 * sampleRate) }
   const bands = opts.windowS !== undefined
     ? planBands(long, [], sampleRate, strike, range, { ...S, shortestWindowS: Infinity })
-    : planBands(long, needs.knownHz, sampleRate, strike, range, S)
+    : planBands(long, needs.neighbourLists, sampleRate, strike, range, S)
 
   const measured = bands.map(band => measureBand(mono, sampleRate, strike, band, S))
   const guarded = guardPartials(mergeBands(measured.map(m => m.partials), S.maxDropPerWindowDb), {
@@ -58,8 +59,8 @@ export function analyzeChannels(
   warnings.push(...guarded.warnings)
   const dynamicRangeDb = source.lossy ? S.lossyRangeDb : S.peakThresholdDb
   const strongest = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb))
-  const partials: MeasuredPartial[] = dropDuplicates(guarded.kept.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb))
-    .map(({ refineSpanS: _span, windowS: _window, strongestFrameDb: _frame, ...p }) => p)
+  const partials: MeasuredPartial[] = dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb)))
+    .map(({ refineSpanS: _span, windowS: _window, strongestFrameDb: _frame, modulationFrom: _from, ...p }) => p)
   if (source.lossy) warnings.push(`lossy audio format: partials more than ${dynamicRangeDb} dB under the strongest are not reported`)
   if (partials.length === 0) warnings.push('no partials found above the noise floor')
 

@@ -33,6 +33,8 @@ export interface TrackMeasurement extends MeasuredPartial {
   windowS: number
   /** Level of the track's strongest frame, dB re full scale (a lower bound of the onset amplitude). */
   strongestFrameDb: number
+  /** Where the modulation fields came from: symmetric sidebands, a resolved pair, the envelope alone. */
+  modulationFrom: 'sidebands' | 'pair' | 'envelope' | null
 }
 
 /**
@@ -112,6 +114,7 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
       beatHz: envelopeBeatHz,
       modulationHz: modulation.rateHz,
       modulationDepthDb: modulation.depthDb,
+      modulationFrom: 'sidebands' as const,
     }]
   }
   if (envelopeBeatHz !== null) {
@@ -122,7 +125,7 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
       const linear = separated ? separated.amplitude : [2 * pair[0].magnitude / gain, 2 * pair[1].magnitude / gain]
       // Two partials beat between A₁ + A₂ and |A₁ − A₂|.
       const depth = 20 * Math.log10((linear[0]! + linear[1]!) / Math.max(Math.abs(linear[0]! - linear[1]!), 1e-12))
-      const modulationFields = { modulationHz: beatHz, modulationDepthDb: Math.min(depth, 60) }
+      const modulationFields = { modulationHz: beatHz, modulationDepthDb: Math.min(depth, 60), modulationFrom: 'pair' as const }
       return pair.map((peakK, k) => {
         if (!separated) return { ...common, ...modulationFields, frequencyHz: peakK.frequencyHz, amplitudeDb: amplitudeDb(peakK.magnitude), beatHz }
         const decay = separated.decayDbPerS[k]!
@@ -146,6 +149,7 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     beatHz: envelopeBeatHz,
     modulationHz: envelopeBeatHz,
     modulationDepthDb: envelopeBeatHz === null ? null : envelopeDepthDb(times, fit.residuals, envelopeBeatHz),
+    modulationFrom: envelopeBeatHz === null ? null : 'envelope' as const,
   }]
 }
 

@@ -22,14 +22,14 @@ export interface BandPlanSettings {
  * Multi-resolution layout: band 0 is the long window (chooseWindow) over the whole band
  * and span; then windows `bandWindowRatio` times shorter each, down to `shortestWindowS`,
  * each measuring only where it still resolves the partials — above 1.25 × 4 bins from DC
- * (its partial must clear its own mirror image at −f) and above every pair of known
- * partials closer than 1.25 main lobes — with a hop of a quarter window over its first
+ * (its partial must clear its own mirror image at −f) and above every pair of neighbours
+ * (within one list) closer than 1.25 main lobes — with a hop of a quarter window over its first
  * `fastBandFrames` frames. Long windows where partials are low and close, short ones where
  * they are high and die fast (multi-resolution sinusoidal analysis, Levine & Smith 1998).
  */
 export function planBands(
   long: WindowChoice,
-  knownHz: readonly number[],
+  neighbourLists: readonly (readonly number[])[],
   sampleRate: number,
   span: { startIndex: number, endIndex: number },
   range: { minHz: number, maxHz: number },
@@ -37,13 +37,17 @@ export function planBands(
 ): AnalysisBand[] {
   const bands: AnalysisBand[] = [{ ...long, fromHz: range.minHz, ownFromHz: range.minHz, toHz: range.maxHz, endIndex: span.endIndex }]
   const margin = 1.25
-  let windowS = long.windowS / settings.bandWindowRatio
+  // Down by bandWindowRatio each time, the last one at the shortest window.
   let floorHz = range.minHz
-  while (windowS >= settings.shortestWindowS) {
+  let previousS = long.windowS
+  while (previousS > 1.5 * settings.shortestWindowS) {
+    const windowS = Math.max(settings.shortestWindowS, previousS / settings.bandWindowRatio)
     const lobeHz = MAIN_LOBE_BINS / windowS
     let ownFromHz = Math.max(floorHz, (margin * lobeHz) / 2)
-    for (let i = 1; i < knownHz.length; i++) {
-      if (knownHz[i]! - knownHz[i - 1]! < margin * lobeHz) ownFromHz = Math.max(ownFromHz, knownHz[i]! + (margin * lobeHz) / 2)
+    for (const list of neighbourLists) {
+      for (let i = 1; i < list.length; i++) {
+        if (list[i]! - list[i - 1]! < margin * lobeHz) ownFromHz = Math.max(ownFromHz, list[i]! + (margin * lobeHz) / 2)
+      }
     }
     if (ownFromHz >= 0.8 * range.maxHz) break
     const windowLength = Math.round(windowS * sampleRate)
@@ -62,7 +66,7 @@ export function planBands(
       endIndex: Math.min(span.endIndex, span.startIndex + settings.fastBandFrames * hop + windowLength),
     })
     floorHz = ownFromHz
-    windowS /= settings.bandWindowRatio
+    previousS = windowS
   }
   return bands
 }
