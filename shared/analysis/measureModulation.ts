@@ -25,12 +25,13 @@ export interface ModulationSettings {
  * of local maxima, each within `maxBelowCarrierDb` of the carrier and within
  * `maxImbalanceDb` of each other, is a modulation of rate f_m and index m = (S₋ + S₊)/C.
  * Returns null when there is no such pair (or the span is too short to resolve the
- * slowest rate: Blackman–Harris needs about 5 bins, 5 fs / N Hz).
+ * slowest rate: the sidebands must clear the carrier's Blackman–Harris main lobe, 4 bins,
+ * by 2 more, so 6 fs / N Hz).
  */
 export function measureModulation(windowed: Float64Array, sampleRate: number, frequencyHz: number, settings: ModulationSettings): Modulation | null {
   const n = windowed.length
   const binHz = sampleRate / n
-  const minRateHz = Math.max(settings.minRateHz, 5 * binHz)
+  const minRateHz = Math.max(settings.minRateHz, 6 * binHz)
   if (minRateHz >= settings.maxRateHz) return null
   const block = Math.max(1, Math.floor(sampleRate / (8 * settings.maxRateHz)))
   const count = Math.floor(n / block)

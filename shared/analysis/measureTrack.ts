@@ -5,7 +5,7 @@ import { envelopeDepthDb } from './envelopeDepthDb'
 import { fitLine } from './fitLine'
 import type { TrackPoint } from './linkTracks'
 import { measureModulation, type ModulationSettings } from './measureModulation'
-import { refinePeak } from './refinePeak'
+import { refinePeak, type RefinedPeak } from './refinePeak'
 import { separatePair } from './separatePair'
 import type { MeasuredPartial } from './types'
 import { windowSpan } from './windowSpan'
@@ -119,6 +119,18 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   }
   if (envelopeBeatHz !== null) {
     const pair = findClosePair(windowed, sampleRate, coarseHz, ((MAIN_LOBE_BINS / 2) * sampleRate) / context.windowLength, binHz)
+    const mirrored = pair ? mirroredSideband(windowed, sampleRate, pair) : null
+    if (mirrored) {
+      return [{
+        ...common,
+        frequencyHz: mirrored.carrier.frequencyHz,
+        amplitudeDb: amplitudeDb(mirrored.carrier.magnitude),
+        beatHz: envelopeBeatHz,
+        modulationHz: mirrored.rateHz,
+        modulationDepthDb: mirrored.depthDb,
+        modulationFrom: 'sidebands' as const,
+      }]
+    }
     if (pair) {
       const beatHz = Math.abs(pair[1].frequencyHz - pair[0].frequencyHz)
       const separated = separatePair(signal, sampleRate, spanStart, spanEnd, context.onsetIndex, pair[0].frequencyHz, pair[1].frequencyHz)
@@ -151,6 +163,22 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     modulationDepthDb: envelopeBeatHz === null ? null : envelopeDepthDb(times, fit.residuals, envelopeBeatHz),
     modulationFrom: envelopeBeatHz === null ? null : 'envelope' as const,
   }]
+}
+
+/**
+ * A close pair that is a carrier and one sideband of a tremolo: the spectrum at the
+ * carrier's other side, mirrored, is within 10 dB of the first sideband (a second partial
+ * leaves only its partner's skirt there). Returns the carrier, the rate and the depth
+ * 20·log10((1 + m)/(1 − m)) with m = (S₋ + S₊)/C, or null for a true pair.
+ */
+function mirroredSideband(windowed: Float64Array, sampleRate: number, pair: [RefinedPeak, RefinedPeak]) {
+  const [carrier, side] = pair[0].magnitude >= pair[1].magnitude ? pair : [pair[1], pair[0]]
+  const mirrorHz = 2 * carrier.frequencyHz - side.frequencyHz
+  const [mirrorPower] = dtftPowers3(windowed, mirrorHz, carrier.frequencyHz, side.frequencyHz, sampleRate)
+  const mirror = Math.sqrt(mirrorPower)
+  if (!(mirror > side.magnitude * 10 ** (-10 / 20))) return null
+  const index = Math.min(0.98, (mirror + side.magnitude) / carrier.magnitude)
+  return { carrier, rateHz: Math.abs(side.frequencyHz - carrier.frequencyHz), depthDb: 20 * Math.log10((1 + index) / (1 - index)) }
 }
 
 /**
