@@ -7,8 +7,7 @@ import { ENGINE_SETTINGS as S } from './engineSettings'
 import { fundamentalWithoutTarget } from './fundamentalWithoutTarget'
 import { guardPartials } from './guardPartials'
 import { locateStrike } from './locateStrike'
-import { measureBand } from './measureBand'
-import { mergeBands } from './mergeBands'
+import { measureAllBands } from './measureAllBands'
 import { validateAnalyzeOptions } from './parseAnalyzeOptions'
 import { planBands } from './planBands'
 import { prepareMono } from './prepareMono'
@@ -47,8 +46,8 @@ export function analyzeChannels(
     ? planBands(long, [], sampleRate, strike, range, { ...S, shortestWindowS: Infinity })
     : planBands(long, needs.neighbourLists, sampleRate, strike, range, S)
 
-  const measured = bands.map(band => measureBand(mono, sampleRate, strike, band, S))
-  const guarded = guardPartials(mergeBands(measured.map(m => m.partials), S.maxDropPerWindowDb), {
+  const { measured, merged } = measureAllBands(mono, sampleRate, strike, bands, S)
+  const guarded = guardPartials(merged, {
     peakDb: 20 * Math.log10(peak),
     peakMarginDb: S.peakMarginDb,
     sampleRate,

@@ -57,6 +57,6 @@ export function guardPartials(partials: readonly TrackMeasurement[], bounds: Phy
   }
   say(counts.growth, 'level growing instead of decaying')
   say(counts.decay, 'decay faster than the recording can show')
-  say(counts.frequency, 'frequency outside the band the recording holds')
+  say(counts.frequency, 'frequency outside the band the recording holds (or too close to 0 Hz for its window)')
   return { kept, warnings }
 }

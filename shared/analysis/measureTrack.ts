@@ -1,4 +1,6 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
+import { basebandLevels } from './basebandLevels'
+import { decayingWindowGain } from './decayingWindowGain'
 import { detectBeat } from './detectBeat'
 import { dtftPowers3 } from './dtftPowers3'
 import { envelopeDepthDb } from './envelopeDepthDb'
@@ -24,6 +26,8 @@ export interface TrackContext {
   /** Longest span used for the frequency refinement, in s. */
   maxRefineS: number
   modulation: ModulationSettings
+  /** `signal[start … start + length)` times a Blackman–Harris window, possibly from a cache shared by the tracks. */
+  windowed?: (start: number, length: number) => Float64Array
 }
 
 /** A measured partial with the length of the span that refined it (for de-duplication). */
@@ -86,7 +90,8 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   const length = spanEnd - spanStart
   if (length < 32) return []
   const alpha = (decayDbPerS * Math.LN10) / 20
-  const { windowed, decayingGain: gain } = windowSpan(signal, spanStart, length, alpha / sampleRate, context.onsetIndex)
+  const windowed = context.windowed ? context.windowed(spanStart, length) : windowSpan(signal, spanStart, length, 0, 0).windowed
+  const gain = decayingWindowGain(length, alpha / sampleRate, spanStart - context.onsetIndex)
   const binHz = sampleRate / length
 
   const common = {
@@ -188,12 +193,9 @@ function mirroredSideband(windowed: Float64Array, sampleRate: number, pair: [Ref
  */
 function findClosePair(windowed: Float64Array, sampleRate: number, centreHz: number, halfWidthHz: number, binHz: number) {
   const step = binHz / 2
-  const count = Math.max(3, Math.ceil(halfWidthHz / step))
-  const levels: number[] = []
-  for (let i = -count; i <= count; i += 3) {
-    const powers = dtftPowers3(windowed, centreHz + i * step, centreHz + (i + 1) * step, centreHz + (i + 2) * step, sampleRate)
-    for (const p of powers) levels.push(10 * Math.log10(p + Number.MIN_VALUE))
-  }
+  const grid = basebandLevels(windowed, sampleRate, centreHz, Math.max(3 * step, halfWidthHz), step)
+  const count = (grid.length - 1) / 2
+  const levels = Array.from(grid)
   const maxima: { index: number, level: number }[] = []
   for (let i = 1; i < levels.length - 1; i++) {
     if (levels[i]! > levels[i - 1]! && levels[i]! >= levels[i + 1]!) maxima.push({ index: i, level: levels[i]! })
