@@ -21,8 +21,8 @@ export interface BandPlanSettings {
 /**
  * Multi-resolution layout: band 0 is the long window (chooseWindow) over the whole band
  * and span; then windows `bandWindowRatio` times shorter each, down to `shortestWindowS`,
- * each measuring only where it still resolves the partials — above 1.25 × 4 bins from DC
- * (its partial must clear its own mirror image at −f) and above every pair of neighbours
+ * each measuring only where it still resolves the partials — above 1.25 main lobes from DC
+ * (as chooseWindow asks of the lowest partial) and above every pair of neighbours
  * (within one list) closer than 1.25 main lobes — with a hop of a quarter window over its first
  * `fastBandFrames` frames. Long windows where partials are low and close, short ones where
  * they are high and die fast (multi-resolution sinusoidal analysis, Levine & Smith 1998).
@@ -43,7 +43,7 @@ export function planBands(
   while (previousS > 1.5 * settings.shortestWindowS) {
     const windowS = Math.max(settings.shortestWindowS, previousS / settings.bandWindowRatio)
     const lobeHz = MAIN_LOBE_BINS / windowS
-    let ownFromHz = Math.max(floorHz, (margin * lobeHz) / 2)
+    let ownFromHz = Math.max(floorHz, margin * lobeHz)
     for (const list of neighbourLists) {
       for (let i = 1; i < list.length; i++) {
         if (list[i]! - list[i - 1]! < margin * lobeHz) ownFromHz = Math.max(ownFromHz, list[i]! + (margin * lobeHz) / 2)

@@ -36,8 +36,8 @@ describe('planBands (multi-resolution layout)', () => {
 
   it('gives each fast band only frequencies it resolves from DC and from close neighbours', () => {
     for (const band of bands.slice(1)) {
-      // 1.25 × half a main lobe from DC: the partial clears its mirror image at −f.
-      expect(band.ownFromHz).toBeGreaterThanOrEqual((1.25 * MAIN_LOBE_BINS) / 2 / band.windowS - 1e-9)
+      // 1.25 main lobes from DC: a whole lobe between the partial and its mirror image at −f.
+      expect(band.ownFromHz).toBeGreaterThanOrEqual((1.25 * MAIN_LOBE_BINS) / band.windowS - 1e-9)
       // 100 and 150 Hz are 50 Hz apart: no fast window resolves them, so none measures 150 Hz.
       expect(band.ownFromHz).toBeGreaterThan(150)
       expect(band.endIndex).toBeLessThanOrEqual(band.hop * 100 + band.windowLength)

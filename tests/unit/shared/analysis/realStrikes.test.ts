@@ -107,8 +107,9 @@ describe('realistic modal synthesis (mallet noise, tremolo, doublets, fast modes
         const sidebands = result.partials.filter(q => q !== p && Math.abs(q.frequencyHz - truth.frequencyHz) < 3 * truth.tremolo!.rateHz)
         expect(sidebands, `${truth.frequencyHz} Hz sidebands`).toEqual([])
       }
-      // The window resolves the 131 Hz fundamental from DC: half a Blackman–Harris main lobe (4 bins) under it.
-      expect(4 / result.parameters.windowS).toBeLessThan(130.87)
+      // The window resolves the 131 Hz fundamental from DC: a whole Blackman–Harris main lobe
+      // (8 bins, Harris 1978) fits under it (1.0.0 chose 0.038 s here from the template alone).
+      expect(8 / result.parameters.windowS).toBeLessThan(130.87)
       expect(result.fundamentalHz).toBeCloseTo(130.87, 2)
     }
   })
