@@ -110,7 +110,10 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   const amplitudeDb = (magnitude: number) => 20 * Math.log10(Math.max((2 * magnitude) / gain, 1e-12))
 
   const peak = refinePeak(windowed, sampleRate, coarseHz)
-  const modulation = measureModulation(windowed, sampleRate, peak.frequencyHz, context.modulation)
+  // Sidebands down to maxBelowCarrierDb need the partial that far over the noise, and 10 dB more.
+  const modulation = bestSnr >= context.modulation.maxBelowCarrierDb + 10
+    ? measureModulation(windowed, sampleRate, peak.frequencyHz, context.modulation)
+    : null
   if (modulation) {
     return [{
       ...common,
