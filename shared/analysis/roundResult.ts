@@ -34,6 +34,8 @@ export function roundResult(result: AnalysisResult): AnalysisResult {
       stabilityCents: r(p.stabilityCents, 3),
       beatHz: r(p.beatHz, 3),
       snrDb: r(p.snrDb, 1),
+      modulationHz: r(p.modulationHz, 3),
+      modulationDepthDb: r(p.modulationDepthDb, 2),
     })),
     parameters: {
       ...result.parameters,
@@ -41,6 +43,13 @@ export function roundResult(result: AnalysisResult): AnalysisResult {
       zeroPad: r(result.parameters.zeroPad, 4),
       hopS: r(result.parameters.hopS, 6),
       trackJumpCents: r(result.parameters.trackJumpCents, 3),
+      bands: result.parameters.bands.map(b => ({
+        windowS: r(b.windowS, 6),
+        hopS: r(b.hopS, 6),
+        fromHz: r(b.fromHz, 2),
+        toHz: r(b.toHz, 2),
+        endS: r(b.endS, 6),
+      })),
     },
   }
   if (result.target) rounded.target = { ...result.target, fundamentalHz: r(result.target.fundamentalHz, 4) }

@@ -66,6 +66,10 @@ export interface MeasuredPartial {
   snrDb: number
   /** Number of frames in the track. */
   frames: number
+  /** Rate of the envelope's modulation (tremolo or beating), Hz; null where none was measured. */
+  modulationHz: number | null
+  /** Peak-to-trough depth of that modulation, dB; null where none was measured. */
+  modulationDepthDb: number | null
 }
 
 /** A template partial matched against the measured partials. */
@@ -130,4 +134,16 @@ export interface AnalysisParameters {
   refinement: 'long-window-dtft'
   maxRefineS: number
   windowFrom: 'template' | 'rough-pass' | 'option' | 'default'
+  /** The resolutions of the multi-resolution analysis, slowest first (the first is `windowS`). */
+  bands: AnalysisBandParameters[]
+}
+
+/** One resolution: its window and hop, and the band of frequencies whose partials it measures. */
+export interface AnalysisBandParameters {
+  windowS: number
+  hopS: number
+  fromHz: number
+  toHz: number
+  /** End of the span this band analysed, in s from the start of the file. */
+  endS: number
 }

@@ -169,8 +169,8 @@ describe('the whole chain on a synthetic bar', () => {
     for (const key of ['engineVersion', 'sampleRate', 'channels', 'durationS', 'onsetS', 'fundamentalHz', 'partials', 'target', 'matches', 'verdict', 'warnings', 'parameters']) {
       expect(result).toHaveProperty(key)
     }
-    expect(result.engineVersion).toBe('1.0.0')
-    for (const key of ['frequencyHz', 'amplitudeDb', 'decayDbPerS', 't60S', 'r2', 'startS', 'endS', 'stabilityCents', 'beatHz']) {
+    expect(result.engineVersion).toBe('2.0.0')
+    for (const key of ['frequencyHz', 'amplitudeDb', 'decayDbPerS', 't60S', 'r2', 'startS', 'endS', 'stabilityCents', 'beatHz', 'modulationHz', 'modulationDepthDb']) {
       expect(result.partials[0]).toHaveProperty(key)
     }
     for (const key of ['label', 'ratio', 'targetHz', 'measuredHz', 'cents', 'toleranceCents', 'within', 'missing']) {
