@@ -1,4 +1,5 @@
 import { AnalysisError } from './AnalysisError'
+import { annotatePartials } from './annotatePartials'
 import { chooseWindow } from './chooseWindow'
 import { decideVerdict } from './decideVerdict'
 import { checkLimits } from './decodeAudio'
@@ -16,7 +17,7 @@ import { resolveTemplate } from './resolveTemplate'
 import { roughPartialSpacing } from './roughPartialSpacing'
 import { roundResult } from './roundResult'
 import { shortTimePeaks } from './shortTimePeaks'
-import type { AnalysisParameters, AnalysisResult, AnalyzeOptions, MeasuredPartial } from './types'
+import type { AnalysisParameters, AnalysisResult, AnalyzeOptions, FftPartial, MeasuredPartial } from './types'
 import { ENGINE_VERSION } from './version'
 
 /** Fixed settings of engine 1.0.0 (stored in every result's `parameters`). */
@@ -145,8 +146,11 @@ export function analyzeChannels(
   )
   const dynamicRangeDb = source.lossy ? SETTINGS.lossyRangeDb : SETTINGS.peakThresholdDb
   const strongest = Math.max(-Infinity, ...measured.map(m => m.amplitudeDb))
-  const partials: MeasuredPartial[] = dropDuplicates(measured.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb))
+  const fftPartials: FftPartial[] = dropDuplicates(measured.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb))
     .map(({ refineSpanS: _span, ...p }) => p)
+  const annotated = annotatePartials(mono, sampleRate, fftPartials, { startIndex: strike.startIndex, endIndex: mono.length })
+  const partials: MeasuredPartial[] = annotated.partials
+  warnings.push(...annotated.warnings)
   if (source.lossy) warnings.push(`lossy audio format: partials more than ${dynamicRangeDb} dB under the strongest are not reported`)
   if (partials.length === 0) warnings.push('no partials found above the noise floor')
 

@@ -5,7 +5,7 @@ import { fitLine } from './fitLine'
 import type { TrackPoint } from './linkTracks'
 import { refinePeak } from './refinePeak'
 import { separatePair } from './separatePair'
-import type { MeasuredPartial } from './types'
+import type { FftPartial } from './types'
 import { windowSpan } from './windowSpan'
 
 export interface TrackContext {
@@ -24,7 +24,7 @@ export interface TrackContext {
 }
 
 /** A measured partial with the length of the span that refined it (for de-duplication). */
-export interface TrackMeasurement extends MeasuredPartial {
+export interface TrackMeasurement extends FftPartial {
   refineSpanS: number
 }
 
