@@ -23,12 +23,14 @@ const FFT_VARIANCE_FACTOR = 2
 const COVERAGE = 2
 /** Disagreements below twice the output rounding step (0.01 ¢) are never warned about. */
 const WARN_FLOOR_CENTS = 0.02
+/** The band reaches at least ±5 ¢ around the FFT reading, so a misread peak is still caught. */
+const SEARCH_RATIO = 2 ** (5 / 1200) - 1
 
 /**
  * Cross-check every FFT partial with the matrix pencil (estimateBand) over a span that ends
  * where the partial has sunk into the noise (its SNR + 10 dB of decay, at most `maxSpanS`), in
- * a band a few line-widths and resolution cells wide; the strongest pencil component within
- * half the band of the FFT frequency is the partial's second reading.
+ * a band a few line-widths and resolution cells (and at least ±5 ¢) wide; the strongest pencil
+ * component in the band's passband is the partial's second reading.
  * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)²), with
  * u_bound the Cramér–Rao bound at the pencil's measured amplitude, decay, span and noise and
  * Δ/√2 the standard deviation of the two readings; uncertaintyDecayPct likewise for the decay.
@@ -52,7 +54,7 @@ export function annotatePartials<P extends FftPartial>(
     const end = Math.min(endIndex, startIndex + Math.round(spanS * sampleRate))
     const usedS = (end - startIndex) / sampleRate
     const lineWidthHz = decay / (20 / Math.LN10) / (2 * Math.PI)
-    const halfWidthHz = Math.min(0.45 * p.frequencyHz, 0.45 * (sampleRate / 2 - p.frequencyHz), Math.max(1.5, 4 / usedS, 3 * lineWidthHz))
+    const halfWidthHz = Math.min(0.45 * p.frequencyHz, 0.45 * (sampleRate / 2 - p.frequencyHz), Math.max(2, 4 / usedS, 3 * lineWidthHz, p.frequencyHz * SEARCH_RATIO))
     if (!(halfWidthHz > 0) || end - startIndex < 64) return none
     const band = estimateBand(signal, sampleRate, p.frequencyHz, {
       startIndex,
@@ -61,7 +63,7 @@ export function annotatePartials<P extends FftPartial>(
       targetSamples: 32,
       maxOrder: 4,
     })
-    const near = band?.components.filter(c => Math.abs(c.frequencyHz - p.frequencyHz) <= band.halfWidthHz / 2 && c.snrDb > 6) ?? []
+    const near = band?.components.filter(c => Math.abs(c.frequencyHz - p.frequencyHz) <= band.halfWidthHz && c.snrDb > 6) ?? []
     if (near.length === 0) {
       warnings.push(`partial at ${p.frequencyHz.toFixed(2)} Hz could not be cross-checked by the high-resolution estimator`)
       return none
