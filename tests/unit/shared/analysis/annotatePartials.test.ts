@@ -34,7 +34,7 @@ describe('annotatePartials', () => {
     // u² = bound² + Δ²/2 and E[Δ²] ≈ bound² for an efficient estimator, so RMS(Δ)/RMS(u) ≈ 1/√1.5 ≈ 0.82.
     expect(rms(deltas) / rms(uncertainties)).toBeGreaterThan(0.55)
     expect(rms(deltas) / rms(uncertainties)).toBeLessThan(1.1)
-  })
+  }, 60_000)
 
   it('reports a misread partial as the difference in cents, with a warning', () => {
     const signal = synthStrike(truth, { sampleRate, durationS: 2, noiseDb: -70, seed: 9 })

@@ -25,7 +25,7 @@ describe('separateDoublet', () => {
         expect(Math.abs(20 * Math.log10(pair[k]!.amplitude) - truth.amplitudeDb)).toBeLessThan(0.1)
       })
     }
-  })
+  }, 60_000)
 
   it('returns null for a single partial', () => {
     const signal = synthStrike([{ frequencyHz: 600, amplitudeDb: -6, decayDbPerS: 5 }], { sampleRate, durationS: 1, noiseDb: -90, seed: 3 })
