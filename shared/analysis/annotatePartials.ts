@@ -6,7 +6,7 @@ export interface AnnotateSettings {
   /** First sample after the attack, and one past the last sample that may be used. */
   startIndex: number
   endIndex: number
-  /** Longest span one partial is measured over, in s (default 2). */
+  /** Longest span one partial is measured over, in s (default 1: ample for a cross-check, and the cost grows with it). */
   maxSpanS?: number
 }
 
@@ -45,7 +45,7 @@ export function annotatePartials<P extends FftPartial>(
   const { startIndex } = settings
   const endIndex = Math.min(settings.endIndex, signal.length)
   if (!(startIndex >= 0 && startIndex < endIndex)) throw new RangeError('annotatePartials needs a span inside the signal')
-  const maxSpanS = settings.maxSpanS ?? 2
+  const maxSpanS = settings.maxSpanS ?? 1
   const warnings: string[] = []
   const out = partials.map((p) => {
     const none = { ...p, crossCheckCents: null, uncertaintyCents: null, uncertaintyDecayPct: null }

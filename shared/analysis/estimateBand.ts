@@ -71,13 +71,15 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
   if (!(startIndex >= 0 && endIndex <= signal.length && startIndex < endIndex)) throw new RangeError('estimateBand needs a span inside the signal')
   const target = settings.targetSamples ?? 32
   const span = endIndex - startIndex
-  // The largest factor that keeps the passband (±rate/4 of the band) at least halfWidthHz,
-  // and the one that gives about `target` samples (the filter takes ~7.2 factors).
+  // The largest factor that keeps the passband (±⅛ of the band rate) at least halfWidthHz,
+  // and the one that gives about `target` samples (the filter takes ~4 factors), taken
+  // down to a ladder of factors (so filter designs repeat); a span that would give more
+  // than twice `target` samples is shortened (cost, and the pencil's matrices stay small).
   const byBand = Math.floor((PASSBAND * sampleRate) / halfWidthHz)
   const byLength = Math.floor(span / (target + 4))
-  const factor = Math.max(2, Math.min(byBand, byLength))
-  if (factor > byBand && byBand < 2) return null
-  const band = mixDownBand(signal, sampleRate, centerHz, { startIndex, endIndex, factor, passbandFraction: PASSBAND })
+  const factor = ladderFactor(Math.max(2, Math.min(byBand, byLength)))
+  const end = Math.min(endIndex, startIndex + (2 * target + 5) * factor)
+  const band = mixDownBand(signal, sampleRate, centerHz, { startIndex, endIndex: end, factor, passbandFraction: PASSBAND })
   const samples = band.re.length
   if (samples < 8) return null
   const fit = refineExponentials(band, matrixPencil(band, {
@@ -99,13 +101,23 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
     // Filter gain at the pole, per input sample: H = Σ h[j]·u^{j − c}, u = e^{−δ/D + 2πiν/D}.
     const dampingPerSample = damping / factor
     const omegaOffset = (2 * Math.PI * nu) / factor
-    let hRe = 0
+    // Symmetric taps: h[c](1) + Σ_k h[c+k]·(u^k + u^{−k}), by recurrences.
+    let hRe = band.taps[delay]!
     let hIm = 0
-    for (let j = 0; j < band.taps.length; j++) {
-      const t = j - delay
-      const g = band.taps[j]! * Math.exp(-dampingPerSample * t)
-      hRe += g * Math.cos(omegaOffset * t)
-      hIm += g * Math.sin(omegaOffset * t)
+    const upStep = Math.exp(dampingPerSample)
+    const cosStep = Math.cos(omegaOffset)
+    const sinStep = Math.sin(omegaOffset)
+    let up = 1
+    let cosK = 1
+    let sinK = 0
+    for (let j = 1; j <= delay; j++) {
+      up *= upStep
+      const nextSin = sinK * cosStep + cosK * sinStep
+      cosK = cosK * cosStep - sinK * sinStep
+      sinK = nextSin
+      const h = band.taps[delay + j]!
+      hRe += h * (up + 1 / up) * cosK
+      hIm += h * (1 / up - up) * sinK
     }
     const gain = Math.hypot(hRe, hIm)
     const omega = omegaCenter + omegaOffset
@@ -132,6 +144,13 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
     spanS: (samples * factor) / sampleRate,
     noiseRms,
   }
+}
+
+/** The largest factor ≤ `factor` of the form m·2^e with m in 4 … 7 (or factor itself below 8). */
+function ladderFactor(factor: number): number {
+  if (factor < 8) return factor
+  const step = 2 ** (Math.floor(Math.log2(factor)) - 2)
+  return Math.floor(factor / step) * step
 }
 
 function wrapPhase(phase: number): number {

@@ -1,6 +1,7 @@
-import { EigenvalueDecomposition, Matrix, solve } from 'ml-matrix'
+import { EigenvalueDecomposition, Matrix } from 'ml-matrix'
 import type { ComplexSignal } from './mixDownBand'
 import { selectModelOrder } from './selectModelOrder'
+import { solveNormalEquations } from './solveNormalEquations'
 
 /** Damped complex exponentials y[m] ≈ Σ_k c_k · z_kᵐ, z_k = e^{−δ_k + 2πi ν_k}, sorted by ν. */
 export interface ExponentialFit {
@@ -48,7 +49,8 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
   const maxOrder = settings.maxOrder ?? 8
   const fraction = settings.pencilFraction ?? 1 / 3
   if (!(fraction > 0 && fraction <= 0.5)) throw new RangeError('matrixPencil needs a pencil fraction in (0, ½]')
-  const pencil = Math.max(2, Math.min(Math.floor((n - 1) / 2), Math.round(n * fraction)))
+  // L is also capped at 2·maxOrder + 8: enough room for the model, and the eigenproblem stays small.
+  const pencil = Math.max(2, Math.min(Math.floor((n - 1) / 2), Math.round(n * fraction), 2 * Math.max(maxOrder, settings.order ?? 0) + 8))
   const rows = n - pencil
   const cols = pencil + 1
   if (n < 6 || rows < cols) throw new RangeError('matrixPencil needs at least six samples')
@@ -99,30 +101,45 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
   const order = settings.order ?? selectModelOrder(singularValues, rows, { maxOrder, minOrder: settings.minOrder })
   if (!(Number.isInteger(order) && order >= 1 && order < cols)) throw new RangeError('matrixPencil needs an order between 1 and the pencil parameter')
 
-  // Signal subspace: 2K real vectors [Re w; Im w] with w = conj(v).
+  // Signal subspace: 2K real vectors [Re w; Im w] with w = conj(v), row by row (2·cols × 2K).
   const v = eigen.eigenvectorMatrix
-  const basis = new Matrix(2 * cols, 2 * order)
+  const width = 2 * order
+  const basis = new Float64Array(2 * cols * width)
   for (let r = 0; r < 2 * cols; r++) {
     const sign = r < cols ? 1 : -1
-    for (let k = 0; k < 2 * order; k++) basis.data[r]![k] = sign * v.get(r, 2 * cols - 1 - k)
+    for (let k = 0; k < width; k++) basis[r * width + k] = sign * v.get(r, 2 * cols - 1 - k)
   }
-  const drop = (skip: number) => {
-    const rowsKept: number[] = []
-    for (let r = 0; r < cols; r++) if (r !== skip) rowsKept.push(r)
-    for (let r = 0; r < cols; r++) if (r !== skip) rowsKept.push(cols + r)
-    return basis.selection(rowsKept, Array.from({ length: 2 * order }, (_, k) => k))
+  // W₁ (last row of each half dropped) and W₂ (first row dropped), then W₁⁺W₂ by least squares.
+  const shifted = (skip: number) => {
+    const out = new Float64Array(2 * (cols - 1) * width)
+    let row = 0
+    for (let r = 0; r < 2 * cols; r++) {
+      if (r % cols === skip) continue
+      out.set(basis.subarray(r * width, (r + 1) * width), row * width)
+      row++
+    }
+    return out
   }
-  const shift = solve(drop(cols - 1), drop(0))
-  // Multiplication by i in the subspace's coordinates: Bᵀ·J·B with J[a; b] = [−b; a].
-  const times = new Matrix(2 * cols, 2 * order)
+  const shift = solveNormalEquations(shifted(cols - 1), 2 * (cols - 1), width, shifted(0), width)
+  // Multiplication by i in the subspace's coordinates: C = Bᵀ·J·B with J[a; b] = [−b; a],
+  // C[i][j] = Σ_r bottom_i·top_j − top_i·bottom_j.
+  const rotate = new Float64Array(width * width)
   for (let r = 0; r < cols; r++) {
-    for (let k = 0; k < 2 * order; k++) {
-      times.data[r]![k] = -basis.data[cols + r]![k]!
-      times.data[cols + r]![k] = basis.data[r]![k]!
+    for (let i = 0; i < width; i++) {
+      const top = basis[r * width + i]!
+      const bottom = basis[(cols + r) * width + i]!
+      for (let j = 0; j < width; j++) rotate[i * width + j]! += bottom * basis[r * width + j]! - top * basis[(cols + r) * width + j]!
     }
   }
-  const rotate = basis.transpose().mmul(times)
-  const evd = new EigenvalueDecomposition(rotate.mmul(shift))
+  const product = new Matrix(width, width)
+  for (let i = 0; i < width; i++) {
+    for (let j = 0; j < width; j++) {
+      let sum = 0
+      for (let k = 0; k < width; k++) sum += rotate[i * width + k]! * shift[k * width + j]!
+      product.data[i]![j] = sum
+    }
+  }
+  const evd = new EigenvalueDecomposition(product)
   const candidates = evd.realEigenvalues
     .map((re, k) => ({ re, im: evd.imaginaryEigenvalues[k]! }))
     .sort((a, b) => b.im - a.im)
@@ -136,30 +153,32 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
 function fitAmplitudes(signal: ComplexSignal, poles: { re: number, im: number }[], singularValues: Float64Array): ExponentialFit {
   const n = signal.re.length
   const k = poles.length
-  const vandermonde = new Matrix(2 * n, 2 * k)
-  const rhs = new Matrix(2 * n, 1)
+  const vandermonde = new Float64Array(2 * n * 2 * k)
+  const cols = 2 * k
   for (let p = 0; p < k; p++) {
     let zr = 1
     let zi = 0
     const { re: pr, im: pi } = poles[p]!
     for (let m = 0; m < n; m++) {
-      vandermonde.data[m]![p] = zr
-      vandermonde.data[m]![k + p] = -zi
-      vandermonde.data[n + m]![p] = zi
-      vandermonde.data[n + m]![k + p] = zr
+      vandermonde[m * cols + p] = zr
+      vandermonde[m * cols + k + p] = -zi
+      vandermonde[(n + m) * cols + p] = zi
+      vandermonde[(n + m) * cols + k + p] = zr
       const nr = zr * pr - zi * pi
       zi = zr * pi + zi * pr
       zr = nr
     }
   }
-  for (let m = 0; m < n; m++) {
-    rhs.data[m]![0] = signal.re[m]!
-    rhs.data[n + m]![0] = signal.im[m]!
-  }
-  const c = solve(vandermonde, rhs)
-  const fitted = vandermonde.mmul(c)
+  const rhs = new Float64Array(2 * n)
+  rhs.set(signal.re)
+  rhs.set(signal.im, n)
+  const c = solveNormalEquations(vandermonde, 2 * n, cols, rhs)
   let residual = 0
-  for (let r = 0; r < 2 * n; r++) residual += (rhs.data[r]![0]! - fitted.data[r]![0]!) ** 2
+  for (let r = 0; r < 2 * n; r++) {
+    let fitted = 0
+    for (let j = 0; j < cols; j++) fitted += vandermonde[r * cols + j]! * c[j]!
+    residual += (rhs[r]! - fitted) ** 2
+  }
   const order = poles.map((z, p) => ({ z, p, nu: Math.atan2(z.im, z.re) / (2 * Math.PI) })).sort((a, b) => a.nu - b.nu)
   const fit: ExponentialFit = {
     frequencyCycles: new Float64Array(k),
@@ -170,8 +189,8 @@ function fitAmplitudes(signal: ComplexSignal, poles: { re: number, im: number }[
     residualRms: Math.sqrt(residual / n),
   }
   order.forEach(({ z, p, nu }, i) => {
-    const cr = c.get(p, 0)
-    const ci = c.get(k + p, 0)
+    const cr = c[p]!
+    const ci = c[k + p]!
     fit.frequencyCycles[i] = nu
     fit.dampingNepers[i] = -Math.log(Math.hypot(z.re, z.im))
     fit.amplitude[i] = Math.hypot(cr, ci)

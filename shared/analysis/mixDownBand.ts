@@ -16,7 +16,7 @@ export interface BandSignal extends ComplexSignal {
   factor: number
   /** Input sample index that band sample 0 stands for (the centre of its filter span). */
   firstIndex: number
-  /** Low-pass taps used (odd length, symmetric, unit gain at 0 Hz). */
+  /** Low-pass taps used (odd length, symmetric, unit gain at 0 Hz; shared between calls, read only). */
   taps: Float64Array
 }
 
@@ -51,7 +51,7 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
   if (!(startIndex >= 0 && endIndex <= signal.length && startIndex < endIndex)) throw new RangeError('mixDownBand needs a span inside the signal')
   const passband = settings.passbandFraction ?? 1 / 8
   if (!(passband > 0 && passband < 0.5)) throw new RangeError('mixDownBand needs a passband fraction between 0 and ½')
-  const taps = kaiserLowPass(1 / (2 * factor), (1 - 2 * passband) / factor, { attenuationDb: settings.attenuationDb ?? 50 })
+  const taps = lowPassFor(factor, passband, settings.attenuationDb ?? 50)
   const length = taps.length
   const delay = (length - 1) / 2
   const count = Math.max(0, Math.floor((endIndex - startIndex - length) / factor) + 1)
@@ -93,4 +93,18 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
     im[m] = sRe * s + sIm * c
   }
   return { re, im, sampleRateHz: sampleRate / factor, centerHz, factor, firstIndex: startIndex + delay, taps }
+}
+
+/** Designs already made, by factor, passband and attenuation (the same few recur for every partial). */
+const designs = new Map<string, Float64Array>()
+
+function lowPassFor(factor: number, passband: number, attenuationDb: number): Float64Array {
+  const key = `${factor}/${passband}/${attenuationDb}`
+  let taps = designs.get(key)
+  if (!taps) {
+    taps = kaiserLowPass(1 / (2 * factor), (1 - 2 * passband) / factor, { attenuationDb })
+    if (designs.size >= 64) designs.delete(designs.keys().next().value!)
+    designs.set(key, taps)
+  }
+  return taps
 }

@@ -1,6 +1,6 @@
-import { Matrix, solve } from 'ml-matrix'
 import type { ExponentialFit } from './matrixPencil'
 import type { ComplexSignal } from './mixDownBand'
+import { solveNormalEquations } from './solveNormalEquations'
 
 export interface RefineSettings {
   /** Most Gauss–Newton steps (default 4). */
@@ -12,7 +12,7 @@ export interface RefineSettings {
  * p_k = −δ_k + 2πiν_k, started from the matrix pencil's estimate: Gauss–Newton steps on
  * all c_k and p_k together (the model is complex-analytic, so each step is one complex
  * least-squares solve with the Jacobian [e^{p_k m} | c_k·m·e^{p_k m}], done in the real
- * embedding), halving a step that does not lower the residual. In white Gaussian noise the
+ * embedding by its normal equations), halving a step that does not lower the residual. In white Gaussian noise the
  * least-squares fit is the maximum-likelihood estimate, which reaches the Cramér–Rao bound
  * at high SNR (Kay, Fundamentals of Statistical Signal Processing I, 1993, §7.5); the
  * pencil alone does not for the damping (Hua & Sarkar 1990, §V).
@@ -31,7 +31,9 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
   }
   let current = residual(signal, params)
   for (let it = 0; it < iterations; it++) {
-    const jacobian = new Matrix(2 * n, 4 * k)
+    // Columns: Δc (re part k, im part k), Δp (re part k, im part k), as φ(J), row by row.
+    const cols = 4 * k
+    const jacobian = new Float64Array(2 * n * cols)
     for (let q = 0; q < k; q++) {
       const cr = params.cRe[q]!
       const ci = params.cIm[q]!
@@ -41,27 +43,24 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
         const ei = mag * Math.sin(params.pIm[q]! * m)
         const wr = m * (cr * er - ci * ei)
         const wi = m * (cr * ei + ci * er)
-        // Columns: Δc (re part k, im part k), Δp (re part k, im part k), as φ(J).
-        const top = jacobian.data[m]!
-        const bottom = jacobian.data[n + m]!
-        top[q] = er
-        top[k + q] = wr
-        top[2 * k + q] = -ei
-        top[3 * k + q] = -wi
-        bottom[q] = ei
-        bottom[k + q] = wi
-        bottom[2 * k + q] = er
-        bottom[3 * k + q] = wr
+        const top = m * cols
+        const bottom = (n + m) * cols
+        jacobian[top + q] = er
+        jacobian[top + k + q] = wr
+        jacobian[top + 2 * k + q] = -ei
+        jacobian[top + 3 * k + q] = -wi
+        jacobian[bottom + q] = ei
+        jacobian[bottom + k + q] = wi
+        jacobian[bottom + 2 * k + q] = er
+        jacobian[bottom + 3 * k + q] = wr
       }
     }
-    const rhs = new Matrix(2 * n, 1)
-    for (let m = 0; m < n; m++) {
-      rhs.data[m]![0] = current.re[m]!
-      rhs.data[n + m]![0] = current.im[m]!
-    }
-    let step: Matrix
+    const rhs = new Float64Array(2 * n)
+    rhs.set(current.re)
+    rhs.set(current.im, n)
+    let step: Float64Array
     try {
-      step = solve(jacobian, rhs)
+      step = solveNormalEquations(jacobian, 2 * n, cols, rhs)
     }
     catch {
       break
@@ -70,10 +69,10 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
     let accepted = false
     for (let tries = 0; tries < 6 && !accepted; tries++, scale /= 2) {
       const trial = {
-        cRe: params.cRe.map((v, q) => v + scale * step.get(q, 0)),
-        cIm: params.cIm.map((v, q) => v + scale * step.get(2 * k + q, 0)),
-        pRe: params.pRe.map((v, q) => v + scale * step.get(k + q, 0)),
-        pIm: params.pIm.map((v, q) => v + scale * step.get(3 * k + q, 0)),
+        cRe: params.cRe.map((v, q) => v + scale * step[q]!),
+        cIm: params.cIm.map((v, q) => v + scale * step[2 * k + q]!),
+        pRe: params.pRe.map((v, q) => v + scale * step[k + q]!),
+        pIm: params.pIm.map((v, q) => v + scale * step[3 * k + q]!),
       }
       const next = residual(signal, trial)
       if (next.sumSq < current.sumSq) {
