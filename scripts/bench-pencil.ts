@@ -61,7 +61,7 @@ function speed() {
   }
   // A calibration loop: 10⁷ multiply-adds, to compare figures across loads and machines.
   const x = new Float64Array(1e4).map((_, i) => Math.sin(i))
-  let t = performance.now()
+  const t = performance.now()
   let s = 0
   for (let r = 0; r < 1000; r++) for (let i = 0; i < 1e4; i++) s += x[i]! * x[(i * 7) % 1e4]!
   const calibration = performance.now() - t

@@ -29,8 +29,9 @@ const SEARCH_RATIO = 2 ** (5 / 1200) - 1
 /**
  * Cross-check every FFT partial with the matrix pencil (estimateBand) over a span that ends
  * where the partial has sunk into the noise (its SNR + 10 dB of decay, at most `maxSpanS`), in
- * a band a few line-widths and resolution cells (and at least ±5 ¢) wide; the strongest pencil
- * component in the band's passband is the partial's second reading.
+ * a band a few line-widths and resolution cells (and at least ±5 ¢) wide. The partial's second
+ * reading is the power-weighted centroid of the pencil components within one resolution cell
+ * (2 / span) of the strongest component in the band's passband.
  * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)²), with
  * u_bound the Cramér–Rao bound at the pencil's measured amplitude, decay, span and noise and
  * Δ/√2 the standard deviation of the two readings; uncertaintyDecayPct likewise for the decay.
@@ -68,13 +69,20 @@ export function annotatePartials<P extends FftPartial>(
       warnings.push(`partial at ${p.frequencyHz.toFixed(2)} Hz could not be cross-checked by the high-resolution estimator`)
       return none
     }
-    const best = near.reduce((a, b) => (b.amplitude > a.amplitude ? b : a))
-    const delta = centsBetween(best.frequencyHz, p.frequencyHz)
-    const boundCents = (CENTS_PER_LOG * best.frequencySdHz) / p.frequencyHz
+    // Components closer than a resolution cell (2 / span) to the strongest one are one FFT
+    // peak (a beating pair, an envelope that is not a single exponential): compare the FFT
+    // with their power-weighted centroid, and carry the strongest one's bound.
+    const strongest = near.reduce((a, b) => (b.amplitude > a.amplitude ? b : a))
+    const cell = near.filter(c => Math.abs(c.frequencyHz - strongest.frequencyHz) <= 2 / usedS)
+    const power = cell.reduce((sum, c) => sum + c.amplitude ** 2, 0)
+    const centroidHz = cell.reduce((sum, c) => sum + c.frequencyHz * c.amplitude ** 2, 0) / power
+    const centroidDecay = cell.reduce((sum, c) => sum + c.decayDbPerS * c.amplitude ** 2, 0) / power
+    const delta = centsBetween(centroidHz, p.frequencyHz)
+    const boundCents = (CENTS_PER_LOG * strongest.frequencySdHz) / p.frequencyHz
     const uncertaintyCents = Math.hypot(boundCents, delta / Math.SQRT2)
-    const decayDelta = best.decayDbPerS - p.decayDbPerS
+    const decayDelta = centroidDecay - p.decayDbPerS
     const uncertaintyDecayPct = p.decayDbPerS > 0
-      ? (100 * Math.hypot(best.decaySdDbPerS, decayDelta / Math.SQRT2)) / p.decayDbPerS
+      ? (100 * Math.hypot(strongest.decaySdDbPerS, decayDelta / Math.SQRT2)) / p.decayDbPerS
       : null
     const combined = boundCents * Math.sqrt(1 + FFT_VARIANCE_FACTOR)
     if (Math.abs(delta) > Math.max(WARN_FLOOR_CENTS, COVERAGE * combined)) {
