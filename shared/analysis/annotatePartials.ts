@@ -1,5 +1,5 @@
 import { centsBetween } from './centsBetween'
-import { estimateBand } from './estimateBand'
+import { estimateBand, type BandEstimate } from './estimateBand'
 import type { FftPartial, MeasuredPartial } from './types'
 
 export interface AnnotateSettings {
@@ -57,14 +57,17 @@ export function annotatePartials<P extends FftPartial>(
     const lineWidthHz = decay / (20 / Math.LN10) / (2 * Math.PI)
     const halfWidthHz = Math.min(0.45 * p.frequencyHz, 0.45 * (sampleRate / 2 - p.frequencyHz), Math.max(2, 4 / usedS, 3 * lineWidthHz, p.frequencyHz * SEARCH_RATIO))
     if (!(halfWidthHz > 0) || end - startIndex < 64) return none
-    const band = estimateBand(signal, sampleRate, p.frequencyHz, {
-      startIndex,
-      endIndex: end,
-      halfWidthHz,
-      targetSamples: 32,
-      maxOrder: 4,
-    })
-    const near = band?.components.filter(c => Math.abs(c.frequencyHz - p.frequencyHz) <= band.halfWidthHz && c.snrDb > 6) ?? []
+    let band: BandEstimate | null = null
+    try {
+      band = estimateBand(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, targetSamples: 32, maxOrder: 4 })
+    }
+    catch {
+      // A degenerate band (e.g. digital silence: a singular system) leaves the partial unchecked.
+      band = null
+    }
+    const near = band?.components.filter(c =>
+      Number.isFinite(c.frequencyHz) && Number.isFinite(c.decayDbPerS) && Number.isFinite(c.frequencySdHz)
+      && Math.abs(c.frequencyHz - p.frequencyHz) <= band.halfWidthHz && c.snrDb > 6) ?? []
     if (near.length === 0) {
       warnings.push(`partial at ${p.frequencyHz.toFixed(2)} Hz could not be cross-checked by the high-resolution estimator`)
       return none

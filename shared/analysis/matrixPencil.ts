@@ -59,12 +59,12 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
   // G[j+1][k+1] = G[j][k] − conj(y_j)·y_k + conj(y_{j+rows})·y_{k+rows}, then its real
   // embedding, whose eigenvalues are σ² (each twice) and eigenvectors [Re v; Im v].
   const { re, im } = signal
-  const gram = new Matrix(2 * cols, 2 * cols)
+  const gram = Array.from({ length: 2 * cols }, () => new Float64Array(2 * cols))
   const put = (j: number, k: number, gr: number, gi: number) => {
-    gram.data[j]![k] = gr
-    gram.data[cols + j]![cols + k] = gr
-    gram.data[cols + j]![k] = gi
-    gram.data[j]![cols + k] = -gi
+    gram[j]![k] = gr
+    gram[cols + j]![cols + k] = gr
+    gram[cols + j]![k] = gi
+    gram[j]![cols + k] = -gi
   }
   const gRe = new Float64Array(cols * cols)
   const gIm = new Float64Array(cols * cols)
@@ -94,7 +94,7 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
       put(k, j, gRe[j * cols + k]!, -gIm[j * cols + k]!)
     }
   }
-  const eigen = new EigenvalueDecomposition(gram, { assumeSymmetric: true })
+  const eigen = new EigenvalueDecomposition(new Matrix(gram), { assumeSymmetric: true })
   const ascending = eigen.realEigenvalues
   const singularValues = new Float64Array(cols)
   for (let k = 0; k < cols; k++) singularValues[k] = Math.sqrt(Math.max(0, ascending[2 * cols - 1 - 2 * k]!))
@@ -131,15 +131,15 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
       for (let j = 0; j < width; j++) rotate[i * width + j]! += bottom * basis[r * width + j]! - top * basis[(cols + r) * width + j]!
     }
   }
-  const product = new Matrix(width, width)
+  const product = Array.from({ length: width }, () => new Float64Array(width))
   for (let i = 0; i < width; i++) {
     for (let j = 0; j < width; j++) {
       let sum = 0
       for (let k = 0; k < width; k++) sum += rotate[i * width + k]! * shift[k * width + j]!
-      product.data[i]![j] = sum
+      product[i]![j] = sum
     }
   }
-  const evd = new EigenvalueDecomposition(product)
+  const evd = new EigenvalueDecomposition(new Matrix(product))
   const candidates = evd.realEigenvalues
     .map((re, k) => ({ re, im: evd.imaginaryEigenvalues[k]! }))
     .sort((a, b) => b.im - a.im)

@@ -9,21 +9,21 @@ import { Matrix, solve } from 'ml-matrix'
 export function solveNormalEquations(a: Float64Array, rows: number, cols: number, b: Float64Array, rhsCount = 1): Float64Array {
   if (a.length !== rows * cols || b.length !== rows * rhsCount) throw new RangeError('solveNormalEquations needs arrays of rows × cols and rows × rhsCount values')
   if (rows < cols) throw new RangeError('solveNormalEquations needs at least as many rows as columns')
-  const ata = new Matrix(cols, cols)
-  const atb = new Matrix(cols, rhsCount)
+  const ata = Array.from({ length: cols }, () => new Float64Array(cols))
+  const atb = Array.from({ length: cols }, () => new Float64Array(rhsCount))
   for (let r = 0; r < rows; r++) {
     const base = r * cols
     for (let i = 0; i < cols; i++) {
       const ai = a[base + i]!
       if (ai === 0) continue
-      const row = ata.data[i]!
+      const row = ata[i]!
       for (let j = i; j < cols; j++) row[j]! += ai * a[base + j]!
-      const out = atb.data[i]!
+      const out = atb[i]!
       for (let k = 0; k < rhsCount; k++) out[k]! += ai * b[r * rhsCount + k]!
     }
   }
-  for (let i = 0; i < cols; i++) for (let j = 0; j < i; j++) ata.data[i]![j] = ata.data[j]![i]!
-  const x = solve(ata, atb)
+  for (let i = 0; i < cols; i++) for (let j = 0; j < i; j++) ata[i]![j] = ata[j]![i]!
+  const x = solve(new Matrix(ata), new Matrix(atb))
   const out = new Float64Array(cols * rhsCount)
   for (let i = 0; i < cols; i++) for (let k = 0; k < rhsCount; k++) out[i * rhsCount + k] = x.get(i, k)
   return out
