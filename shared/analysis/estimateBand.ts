@@ -40,7 +40,7 @@ export interface BandSettings {
   endIndex: number
   /** Smallest half-width of the passband around `centerHz`, in Hz. */
   halfWidthHz: number
-  /** Number of band samples aimed for (default 32; fewer when the span is short). */
+  /** Number of band samples aimed for (default 48; more when the band must be wide, up to twice that: a longer span is shortened). */
   targetSamples?: number
   /** Fixed number of exponentials, or limits for the MDL choice (default 1 … 6). */
   order?: number
@@ -69,7 +69,7 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
   if (!(halfWidthHz > 0)) throw new RangeError('estimateBand needs a positive half-width')
   if (!(centerHz > 0 && centerHz < sampleRate / 2)) throw new RangeError('estimateBand needs a centre frequency inside the recording\'s band')
   if (!(startIndex >= 0 && endIndex <= signal.length && startIndex < endIndex)) throw new RangeError('estimateBand needs a span inside the signal')
-  const target = settings.targetSamples ?? 32
+  const target = settings.targetSamples ?? 48
   const span = endIndex - startIndex
   // The largest factor that keeps the passband (±⅛ of the band rate) at least halfWidthHz,
   // and the one that gives about `target` samples (the filter takes ~4 factors), taken
