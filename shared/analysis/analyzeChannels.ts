@@ -1,4 +1,5 @@
 import { analysisParameters } from './analysisParameters'
+import { annotatePartials } from './annotatePartials'
 import { applyTemplate } from './applyTemplate'
 import { chooseWindow } from './chooseWindow'
 import { dropDuplicates } from './dropDuplicates'
@@ -14,7 +15,7 @@ import { prepareMono } from './prepareMono'
 import { resolveTarget } from './resolveTarget'
 import { resolveTemplate } from './resolveTemplate'
 import { roundResult } from './roundResult'
-import type { AnalysisResult, AnalyzeOptions, MeasuredPartial } from './types'
+import type { AnalysisResult, AnalyzeOptions, FftPartial, MeasuredPartial } from './types'
 import { ENGINE_VERSION } from './version'
 import { windowNeedsFor } from './windowNeedsFor'
 
@@ -58,8 +59,12 @@ export function analyzeChannels(
   warnings.push(...guarded.warnings)
   const dynamicRangeDb = source.lossy ? S.lossyRangeDb : S.peakThresholdDb
   const strongest = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb))
-  const partials: MeasuredPartial[] = dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb)))
+  const fftPartials: FftPartial[] = dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb)))
     .map(({ refineSpanS: _span, windowS: _window, strongestFrameDb: _frame, modulationFrom: _from, ...p }) => p)
+  // The second, independent reading of every partial: cross-check and uncertainty.
+  const annotated = annotatePartials(mono, sampleRate, fftPartials, { startIndex: strike.startIndex, endIndex: mono.length })
+  const partials: MeasuredPartial[] = annotated.partials
+  warnings.push(...annotated.warnings)
   if (source.lossy) warnings.push(`lossy audio format: partials more than ${dynamicRangeDb} dB under the strongest are not reported`)
   if (partials.length === 0) warnings.push('no partials found above the noise floor')
 

@@ -9,7 +9,7 @@ import type { TrackPoint } from './linkTracks'
 import { measureModulation, type ModulationSettings } from './measureModulation'
 import { refinePeak, type RefinedPeak } from './refinePeak'
 import { separatePair } from './separatePair'
-import type { MeasuredPartial } from './types'
+import type { FftPartial } from './types'
 import { windowSpan } from './windowSpan'
 
 export interface TrackContext {
@@ -31,7 +31,7 @@ export interface TrackContext {
 }
 
 /** A measured partial with the length of the span that refined it (for de-duplication). */
-export interface TrackMeasurement extends MeasuredPartial {
+export interface TrackMeasurement extends FftPartial {
   refineSpanS: number
   /** Short-time window of the band the track came from, in s. */
   windowS: number

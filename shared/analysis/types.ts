@@ -70,7 +70,19 @@ export interface MeasuredPartial {
   modulationHz: number | null
   /** Peak-to-trough depth of that modulation, dB; null where none was measured. */
   modulationDepthDb: number | null
+  /** High-resolution (matrix pencil) frequency minus this frequency, in cents; null when the pencil could not measure it. */
+  crossCheckCents: number | null
+  /** One standard deviation of the frequency, in cents (bound at the measured SNR, span and decay, with the two estimators' spread). */
+  uncertaintyCents: number | null
+  /** One standard deviation of the decay rate, in % of it; null when not decaying or not measured. */
+  uncertaintyDecayPct: number | null
 }
+
+/** The new fields that the high-resolution cross-check (annotatePartials) fills in. */
+export type CrossCheckFields = 'crossCheckCents' | 'uncertaintyCents' | 'uncertaintyDecayPct'
+
+/** A partial as the FFT path measures it, before the cross-check. */
+export type FftPartial = Omit<MeasuredPartial, CrossCheckFields>
 
 /** A template partial matched against the measured partials. */
 export interface PartialMatch {

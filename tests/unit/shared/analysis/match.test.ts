@@ -14,7 +14,7 @@ import {
 import { synthStrike } from '../../../support/synthStrike'
 
 function partial(frequencyHz: number, amplitudeDb = -10): MeasuredPartial {
-  return { frequencyHz, amplitudeDb, decayDbPerS: 20, t60S: 3, r2: 1, startS: 0, endS: 1, stabilityCents: 0, beatHz: null, snrDb: 60, frames: 50 }
+  return { frequencyHz, amplitudeDb, decayDbPerS: 20, t60S: 3, r2: 1, startS: 0, endS: 1, stabilityCents: 0, beatHz: null, snrDb: 60, frames: 50, crossCheckCents: null, uncertaintyCents: null, uncertaintyDecayPct: null }
 }
 
 const cents = (ratio: number) => 2 ** (ratio / 1200)
