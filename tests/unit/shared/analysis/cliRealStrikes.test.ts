@@ -31,7 +31,7 @@ describe('npm run analyze on real strikes', () => {
       // At least the two lowest reference partials (fundamental and first tuned overtone).
       expect(score.found.slice(0, 2), id).toEqual([true, true])
       for (const p of printed.partials) {
-        for (const key of ['modulationHz', 'modulationDepthDb']) expect(p).toHaveProperty(key)
+        for (const key of ['modulationHz', 'modulationDepthDb', 'crossCheckCents', 'uncertaintyCents', 'uncertaintyDecayPct']) expect(p).toHaveProperty(key)
       }
     }, 120_000)
   }
