@@ -76,7 +76,7 @@ function render(result: AnalysisResult, file: string): string {
   if (result.partials.length > 0) {
     out.push(
       table([
-        ['#', 'frequency', 'amplitude', 'decay', 'T60', 'r²', 'start', 'end', 'stability', 'beat'],
+        ['#', 'frequency', 'amplitude', 'decay', 'T60', 'r²', 'start', 'end', 'stability', 'beat', 'modulation'],
         ...result.partials.map((q, i) => [
           String(i + 1),
           fmt(q.frequencyHz, 3, 'Hz'),
@@ -88,6 +88,7 @@ function render(result: AnalysisResult, file: string): string {
           fmt(q.endS, 3, 's'),
           fmt(q.stabilityCents, 2, '¢'),
           fmt(q.beatHz, 2, 'Hz'),
+          q.modulationHz === null ? '—' : `${fmt(q.modulationHz, 2, 'Hz')}, ${fmt(q.modulationDepthDb, 1, 'dB')}`,
         ]),
       ]),
     )

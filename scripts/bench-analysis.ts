@@ -1,14 +1,18 @@
 // Benchmark of the measurement engine (npm run bench:analysis).
 // Prints, for this machine: the median decode + analysis time of a 4 s, 48 kHz mono
-// strike with three decaying partials (≥ 20 runs), the peak extra memory, and the error
-// table over the synthetic set. Figures only — the accuracy goals are asserted by the
-// unit tests, not here.
+// strike with three decaying partials (≥ 20 runs) and of 4 s of a real strike with 30+
+// partials (a freepats tubular bell rendered by timidity), the peak extra memory, the
+// error table over the synthetic set and the found/missed table per family over the
+// fixtures. Figures only — the accuracy goals are asserted by the unit tests, not here.
+import { readFileSync } from 'node:fs'
 import os from 'node:os'
 import v8 from 'node:v8'
 import vm from 'node:vm'
-import { analyzeSamples, analyzeStrike, centsBetween, encodeWav, ENGINE_VERSION } from '../shared/analysis/index'
+import { analyzeSamples, analyzeStrike, centsBetween, decodeAudio, encodeWav, ENGINE_VERSION } from '../shared/analysis/index'
 import type { MeasuredPartial } from '../shared/analysis/index'
 import { synthStrike, type SynthPartial } from '../shared/synthesis/synthStrike'
+import { printAccuracy, runRecordings, runSyntheses } from '../tests/support/fixtureAccuracy'
+import { realFixturePath, realFixtures } from '../tests/support/realFixtures'
 
 const RUNS = 30
 
@@ -144,6 +148,35 @@ function errorTable() {
   console.log(`  noise only (${noiseRuns} recordings of 2 s, white noise −30 to −68 dBFS): ${spurious} spurious partials`)
 }
 
+async function realStrikeTiming() {
+  const fixture = realFixtures().find(f => f.id === 'tubular-bells-c5')!
+  const decoded = await decodeAudio(new Uint8Array(readFileSync(realFixturePath(fixture))))
+  const rate = decoded.sampleRate
+  const bytes = encodeWav(decoded.channelData[0]!.subarray(0, 4 * rate), rate)
+  const options = { targetHz: fixture.targetHz, ratios: fixture.ratios }
+  for (let i = 0; i < 3; i++) await analyzeStrike(bytes, options)
+  const times: number[] = []
+  const cpuTimes: number[] = []
+  let partials = 0
+  for (let i = 0; i < RUNS; i++) {
+    const t = performance.now()
+    const cpu = process.cpuUsage()
+    partials = (await analyzeStrike(bytes, options)).partials.length
+    const used = process.cpuUsage(cpu)
+    times.push(performance.now() - t)
+    cpuTimes.push((used.user + used.system) / 1000)
+  }
+  console.log(`\nDecode + analysis of 4 s of a real strike (${fixture.id}, ${rate} Hz, ${partials} partials), goal ≤ 120 ms median:`)
+  console.log(`  median ${median(times).toFixed(1)} ms   min ${Math.min(...times).toFixed(1)} ms   CPU median ${median(cpuTimes).toFixed(1)} ms   (${RUNS} runs)`)
+}
+
+async function accuracyTable() {
+  console.log('\nTuned partials found (the three lowest of the five strongest), per family:')
+  printAccuracy([...await runRecordings(), ...runSyntheses()])
+}
+
 console.log(`Tonewright measurement engine ${ENGINE_VERSION} — ${os.cpus()[0]?.model ?? 'unknown CPU'}, ${os.cpus().length} cores, Node ${process.version}\n`)
 await timing()
+await realStrikeTiming()
 errorTable()
+await accuracyTable()

@@ -69,6 +69,17 @@ ensure_poppler() {
   command -v pdftoppm >/dev/null || apt_install poppler-utils
 }
 
+# What the engine's accuracy tests render their real-strike fixtures with (at test time,
+# into .data/fixtures): timidity + freepats (GPL patches), sox, sonic-pi-samples (CC0).
+ensure_fixture_packages() {
+  local missing=()
+  command -v timidity >/dev/null || missing+=(timidity)
+  [ -f /etc/timidity/freepats.cfg ] || missing+=(freepats)
+  command -v sox >/dev/null || missing+=(sox libsox-fmt-base)
+  [ -d /usr/share/sonic-pi/samples ] || missing+=(sonic-pi-samples)
+  if [ "${#missing[@]}" -gt 0 ]; then apt_install "${missing[@]}"; fi
+}
+
 # Run a command as the PostgreSQL system user (PostgreSQL refuses to run as root).
 as_pg() {
   # From /, which the PostgreSQL user can always enter (the checkout may be private).

@@ -21,6 +21,7 @@ require_node
 ensure_postgres
 ensure_chromium
 ensure_poppler
+ensure_fixture_packages
 ensure_node_modules
 
 PG_DIR=$(pg_datadir test-pg)

@@ -27,8 +27,9 @@ export interface WindowNeeds {
 
 /**
  * Window length from the partials to resolve: a window of T seconds has a main lobe
- * MAIN_LOBE_BINS / T Hz wide, which must be narrower than the closest spacing (and than
- * 2 × the lowest partial, its distance from its own mirror image), with a 25 % margin.
+ * MAIN_LOBE_BINS / T Hz wide, which must be narrower than the closest spacing and than
+ * the lowest partial itself (a whole lobe between it and DC, so its mirror image at −f,
+ * a DC step or rumble cannot lean on it), with a 25 % margin.
  * Kept between max(30 ms, span / 100) and min(0.5 s, span / 3) so a track has frames
  * enough for a decay fit; closer partials than that are found later by the long-window
  * refinement. FFT zero-padded to the next power of two ≥ 2 × the window; hop T / 4, but
@@ -40,7 +41,7 @@ export function chooseWindow(needs: WindowNeeds, sampleRate: number): WindowChoi
   const margin = 1.25
   const needed = Math.max(
     (margin * MAIN_LOBE_BINS) / needs.spacingHz,
-    (margin * MAIN_LOBE_BINS) / (2 * needs.lowestHz),
+    (margin * MAIN_LOBE_BINS) / needs.lowestHz,
     0.03,
   )
   const longest = Math.min(0.5, needs.spanS / 3)

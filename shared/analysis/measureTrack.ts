@@ -1,11 +1,15 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
+import { basebandLevels } from './basebandLevels'
+import { decayingWindowGain } from './decayingWindowGain'
 import { detectBeat } from './detectBeat'
 import { dtftPowers3 } from './dtftPowers3'
+import { envelopeDepthDb } from './envelopeDepthDb'
 import { fitLine } from './fitLine'
 import type { TrackPoint } from './linkTracks'
-import { refinePeak } from './refinePeak'
+import { measureModulation, type ModulationSettings } from './measureModulation'
+import { refinePeak, type RefinedPeak } from './refinePeak'
 import { separatePair } from './separatePair'
-import type { MeasuredPartial } from './types'
+import type { FftPartial } from './types'
 import { windowSpan } from './windowSpan'
 
 export interface TrackContext {
@@ -21,11 +25,20 @@ export interface TrackContext {
   minSnrDb: number
   /** Longest span used for the frequency refinement, in s. */
   maxRefineS: number
+  modulation: ModulationSettings
+  /** `signal[start … start + length)` times a Blackman–Harris window, possibly from a cache shared by the tracks. */
+  windowed?: (start: number, length: number) => Float64Array
 }
 
 /** A measured partial with the length of the span that refined it (for de-duplication). */
-export interface TrackMeasurement extends MeasuredPartial {
+export interface TrackMeasurement extends FftPartial {
   refineSpanS: number
+  /** Short-time window of the band the track came from, in s. */
+  windowS: number
+  /** Level of the track's strongest frame, dB re full scale (a lower bound of the onset amplitude). */
+  strongestFrameDb: number
+  /** Where the modulation fields came from: symmetric sidebands, a resolved pair, the envelope alone. */
+  modulationFrom: 'sidebands' | 'pair' | 'envelope' | null
 }
 
 /**
@@ -36,12 +49,18 @@ export interface TrackMeasurement extends MeasuredPartial {
  * the gain of the window for a partial decaying at the fitted rate α (Np/s), which gives
  * the sinusoid's amplitude at the onset directly. When the envelope beats, the long
  * spectrum around the track is scanned for a close pair, which is reported as two partials
- * whose envelopes are separated by separatePair.
+ * whose envelopes are separated by separatePair — unless the spectrum shows a symmetric pair
+ * of sidebands around the partial (measureModulation): then it is one partial with a tremolo,
+ * its sidebands are no partials, and its rate and depth are reported.
  * Returns zero, one or two partials.
  */
 export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleRate: number, context: TrackContext): TrackMeasurement[] {
   let bestSnr = -Infinity
-  for (const p of points) bestSnr = Math.max(bestSnr, p.amplitudeDb - p.noiseFloorDb)
+  let strongestFrameDb = -Infinity
+  for (const p of points) {
+    bestSnr = Math.max(bestSnr, p.amplitudeDb - p.noiseFloorDb)
+    strongestFrameDb = Math.max(strongestFrameDb, p.amplitudeDb)
+  }
   if (bestSnr < context.minSnrDb) return []
   let fitPoints = points.filter(p => p.amplitudeDb - p.noiseFloorDb >= context.fitMarginDb)
   if (fitPoints.length < 3) fitPoints = points.filter(p => p.amplitudeDb - p.noiseFloorDb >= 6)
@@ -71,7 +90,8 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   const length = spanEnd - spanStart
   if (length < 32) return []
   const alpha = (decayDbPerS * Math.LN10) / 20
-  const { windowed, decayingGain: gain } = windowSpan(signal, spanStart, length, alpha / sampleRate, context.onsetIndex)
+  const windowed = context.windowed ? context.windowed(spanStart, length) : windowSpan(signal, spanStart, length, 0, 0).windowed
+  const gain = decayingWindowGain(length, alpha / sampleRate, spanStart - context.onsetIndex)
   const binHz = sampleRate / length
 
   const common = {
@@ -84,20 +104,55 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     snrDb: bestSnr,
     frames: points.length,
     refineSpanS: length / sampleRate,
+    windowS: context.windowLength / sampleRate,
+    strongestFrameDb,
   }
   const amplitudeDb = (magnitude: number) => 20 * Math.log10(Math.max((2 * magnitude) / gain, 1e-12))
 
+  const peak = refinePeak(windowed, sampleRate, coarseHz)
+  // Sidebands down to maxBelowCarrierDb need the partial that far over the noise, and 10 dB more.
+  const modulation = bestSnr >= context.modulation.maxBelowCarrierDb + 10
+    ? measureModulation(windowed, sampleRate, peak.frequencyHz, context.modulation)
+    : null
+  if (modulation) {
+    return [{
+      ...common,
+      frequencyHz: peak.frequencyHz,
+      amplitudeDb: amplitudeDb(peak.magnitude),
+      beatHz: envelopeBeatHz,
+      modulationHz: modulation.rateHz,
+      modulationDepthDb: modulation.depthDb,
+      modulationFrom: 'sidebands' as const,
+    }]
+  }
   if (envelopeBeatHz !== null) {
     const pair = findClosePair(windowed, sampleRate, coarseHz, ((MAIN_LOBE_BINS / 2) * sampleRate) / context.windowLength, binHz)
+    const mirrored = pair ? mirroredSideband(windowed, sampleRate, pair) : null
+    if (mirrored) {
+      return [{
+        ...common,
+        frequencyHz: mirrored.carrier.frequencyHz,
+        amplitudeDb: amplitudeDb(mirrored.carrier.magnitude),
+        beatHz: envelopeBeatHz,
+        modulationHz: mirrored.rateHz,
+        modulationDepthDb: mirrored.depthDb,
+        modulationFrom: 'sidebands' as const,
+      }]
+    }
     if (pair) {
       const beatHz = Math.abs(pair[1].frequencyHz - pair[0].frequencyHz)
       const separated = separatePair(signal, sampleRate, spanStart, spanEnd, context.onsetIndex, pair[0].frequencyHz, pair[1].frequencyHz)
-      return pair.map((peak, k) => {
-        if (!separated) return { ...common, frequencyHz: peak.frequencyHz, amplitudeDb: amplitudeDb(peak.magnitude), beatHz }
+      const linear = separated ? separated.amplitude : [2 * pair[0].magnitude / gain, 2 * pair[1].magnitude / gain]
+      // Two partials beat between A₁ + A₂ and |A₁ − A₂|.
+      const depth = 20 * Math.log10((linear[0]! + linear[1]!) / Math.max(Math.abs(linear[0]! - linear[1]!), 1e-12))
+      const modulationFields = { modulationHz: beatHz, modulationDepthDb: Math.min(depth, 60), modulationFrom: 'pair' as const }
+      return pair.map((peakK, k) => {
+        if (!separated) return { ...common, ...modulationFields, frequencyHz: peakK.frequencyHz, amplitudeDb: amplitudeDb(peakK.magnitude), beatHz }
         const decay = separated.decayDbPerS[k]!
         return {
           ...common,
-          frequencyHz: peak.frequencyHz,
+          ...modulationFields,
+          frequencyHz: peakK.frequencyHz,
           amplitudeDb: 20 * Math.log10(Math.max(separated.amplitude[k]!, 1e-12)),
           decayDbPerS: decay,
           t60S: decay > 0 ? 60 / decay : null,
@@ -107,8 +162,31 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
       })
     }
   }
-  const peak = refinePeak(windowed, sampleRate, coarseHz)
-  return [{ ...common, frequencyHz: peak.frequencyHz, amplitudeDb: amplitudeDb(peak.magnitude), beatHz: envelopeBeatHz }]
+  return [{
+    ...common,
+    frequencyHz: peak.frequencyHz,
+    amplitudeDb: amplitudeDb(peak.magnitude),
+    beatHz: envelopeBeatHz,
+    modulationHz: envelopeBeatHz,
+    modulationDepthDb: envelopeBeatHz === null ? null : envelopeDepthDb(times, fit.residuals, envelopeBeatHz),
+    modulationFrom: envelopeBeatHz === null ? null : 'envelope' as const,
+  }]
+}
+
+/**
+ * A close pair that is a carrier and one sideband of a tremolo: the spectrum at the
+ * carrier's other side, mirrored, is within 10 dB of the first sideband (a second partial
+ * leaves only its partner's skirt there). Returns the carrier, the rate and the depth
+ * 20·log10((1 + m)/(1 − m)) with m = (S₋ + S₊)/C, or null for a true pair.
+ */
+function mirroredSideband(windowed: Float64Array, sampleRate: number, pair: [RefinedPeak, RefinedPeak]) {
+  const [carrier, side] = pair[0].magnitude >= pair[1].magnitude ? pair : [pair[1], pair[0]]
+  const mirrorHz = 2 * carrier.frequencyHz - side.frequencyHz
+  const [mirrorPower] = dtftPowers3(windowed, mirrorHz, carrier.frequencyHz, side.frequencyHz, sampleRate)
+  const mirror = Math.sqrt(mirrorPower)
+  if (!(mirror > side.magnitude * 10 ** (-10 / 20))) return null
+  const index = Math.min(0.98, (mirror + side.magnitude) / carrier.magnitude)
+  return { carrier, rateHz: Math.abs(side.frequencyHz - carrier.frequencyHz), depthDb: 20 * Math.log10((1 + index) / (1 - index)) }
 }
 
 /**
@@ -118,12 +196,9 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
  */
 function findClosePair(windowed: Float64Array, sampleRate: number, centreHz: number, halfWidthHz: number, binHz: number) {
   const step = binHz / 2
-  const count = Math.max(3, Math.ceil(halfWidthHz / step))
-  const levels: number[] = []
-  for (let i = -count; i <= count; i += 3) {
-    const powers = dtftPowers3(windowed, centreHz + i * step, centreHz + (i + 1) * step, centreHz + (i + 2) * step, sampleRate)
-    for (const p of powers) levels.push(10 * Math.log10(p + Number.MIN_VALUE))
-  }
+  const grid = basebandLevels(windowed, sampleRate, centreHz, Math.max(3 * step, halfWidthHz), step)
+  const count = (grid.length - 1) / 2
+  const levels = Array.from(grid)
   const maxima: { index: number, level: number }[] = []
   for (let i = 1; i < levels.length - 1; i++) {
     if (levels[i]! > levels[i - 1]! && levels[i]! >= levels[i + 1]!) maxima.push({ index: i, level: levels[i]! })

@@ -7,6 +7,8 @@ import { realFft } from './realFft'
 export interface RoughPartials {
   /** Frequencies of the peaks found, in Hz, ascending. */
   frequenciesHz: number[]
+  /** Level of each peak relative to the strongest, in dB (0 for the strongest). */
+  relativeDb: number[]
   /** Smallest spacing between neighbouring peaks, in Hz (Infinity for a single peak). */
   spacingHz: number
   lowestHz: number
@@ -43,12 +45,16 @@ export function roughPartialSpacing(
   }
   const floor = bandNoiseFloor(power, kMin, kMax, Math.ceil((3 * 8 * fftSize) / length))
   const frequenciesHz: number[] = []
+  const relativeDb: number[] = []
   for (let k = kMin; k <= kMax; k++) {
     const p = power[k]!
-    if (p > power[k - 1]! && p >= power[k + 1]! && p > maxPower * 1e-6 && p > floor[k]! * 100) frequenciesHz.push(k * binHz)
+    if (p > power[k - 1]! && p >= power[k + 1]! && p > maxPower * 1e-6 && p > floor[k]! * 100) {
+      frequenciesHz.push(k * binHz)
+      relativeDb.push(10 * Math.log10(p / maxPower))
+    }
   }
   if (frequenciesHz.length === 0) return null
   let spacingHz = Infinity
   for (let i = 1; i < frequenciesHz.length; i++) spacingHz = Math.min(spacingHz, frequenciesHz[i]! - frequenciesHz[i - 1]!)
-  return { frequenciesHz, spacingHz, lowestHz: frequenciesHz[0]! }
+  return { frequenciesHz, relativeDb, spacingHz, lowestHz: frequenciesHz[0]! }
 }

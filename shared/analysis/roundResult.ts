@@ -11,7 +11,8 @@ function r(value: number | null, digits: number): number | null {
 
 /**
  * Round a result for output, to well below what the engine can resolve:
- * 0.0001 Hz (0.003 ¢ at 65 Hz), 0.01 dB, 0.001 dB/s, 0.01 ¢, 0.1 ms.
+ * 0.0001 Hz (0.003 ¢ at 65 Hz), 0.01 dB, 0.001 dB/s, 0.01 ¢ (0.001 ¢ for the cross-check
+ * and uncertainty), 0.01 % for the decay uncertainty, 0.1 ms.
  * Verdicts are decided before rounding.
  */
 export function roundResult(result: AnalysisResult): AnalysisResult {
@@ -34,6 +35,11 @@ export function roundResult(result: AnalysisResult): AnalysisResult {
       stabilityCents: r(p.stabilityCents, 3),
       beatHz: r(p.beatHz, 3),
       snrDb: r(p.snrDb, 1),
+      modulationHz: r(p.modulationHz, 3),
+      modulationDepthDb: r(p.modulationDepthDb, 2),
+      crossCheckCents: r(p.crossCheckCents, 3),
+      uncertaintyCents: r(p.uncertaintyCents, 3),
+      uncertaintyDecayPct: r(p.uncertaintyDecayPct, 2),
     })),
     parameters: {
       ...result.parameters,
@@ -41,6 +47,13 @@ export function roundResult(result: AnalysisResult): AnalysisResult {
       zeroPad: r(result.parameters.zeroPad, 4),
       hopS: r(result.parameters.hopS, 6),
       trackJumpCents: r(result.parameters.trackJumpCents, 3),
+      bands: result.parameters.bands.map(b => ({
+        windowS: r(b.windowS, 6),
+        hopS: r(b.hopS, 6),
+        fromHz: r(b.fromHz, 2),
+        toHz: r(b.toHz, 2),
+        endS: r(b.endS, 6),
+      })),
     },
   }
   if (result.target) rounded.target = { ...result.target, fundamentalHz: r(result.target.fundamentalHz, 4) }

@@ -66,7 +66,23 @@ export interface MeasuredPartial {
   snrDb: number
   /** Number of frames in the track. */
   frames: number
+  /** Rate of the envelope's modulation (tremolo or beating), Hz; null where none was measured. */
+  modulationHz: number | null
+  /** Peak-to-trough depth of that modulation, dB; null where none was measured. */
+  modulationDepthDb: number | null
+  /** High-resolution (matrix pencil) frequency minus this frequency, in cents; null when the pencil could not measure it. */
+  crossCheckCents: number | null
+  /** One standard deviation of the frequency, in cents (bound at the measured SNR, span and decay, with the two estimators' spread). */
+  uncertaintyCents: number | null
+  /** One standard deviation of the decay rate, in % of it; null when not decaying or not measured. */
+  uncertaintyDecayPct: number | null
 }
+
+/** The new fields that the high-resolution cross-check (annotatePartials) fills in. */
+export type CrossCheckFields = 'crossCheckCents' | 'uncertaintyCents' | 'uncertaintyDecayPct'
+
+/** A partial as the FFT path measures it, before the cross-check. */
+export type FftPartial = Omit<MeasuredPartial, CrossCheckFields>
 
 /** A template partial matched against the measured partials. */
 export interface PartialMatch {
@@ -130,4 +146,16 @@ export interface AnalysisParameters {
   refinement: 'long-window-dtft'
   maxRefineS: number
   windowFrom: 'template' | 'rough-pass' | 'option' | 'default'
+  /** The resolutions of the multi-resolution analysis, slowest first (the first is `windowS`). */
+  bands: AnalysisBandParameters[]
+}
+
+/** One resolution: its window and hop, and the band of frequencies whose partials it measures. */
+export interface AnalysisBandParameters {
+  windowS: number
+  hopS: number
+  fromHz: number
+  toHz: number
+  /** End of the span this band analysed, in s from the start of the file. */
+  endS: number
 }

@@ -27,7 +27,7 @@ describe('POST /api/analyze', () => {
     const { token } = await newWorkshop()
     const reply = await api('/api/analyze', { method: 'POST', token, body: form(wav, { 'note': 'C4', 'ratios': '1,4', 'tolerances': '3,5', 'reference-hz': '440' }) })
     expect(reply.status).toBe(200)
-    expect(reply.body.engineVersion).toBe('1.0.0')
+    expect(reply.body.engineVersion).toBe('2.0.0')
     expect(reply.body.sampleRate).toBe(48000)
     expect(reply.body.target.fundamentalHz).toBeCloseTo(261.626, 3)
     expect(reply.body.matches[0].cents).toBeCloseTo(2, 1)

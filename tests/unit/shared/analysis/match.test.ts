@@ -14,7 +14,7 @@ import {
 import { synthStrike } from '../../../support/synthStrike'
 
 function partial(frequencyHz: number, amplitudeDb = -10): MeasuredPartial {
-  return { frequencyHz, amplitudeDb, decayDbPerS: 20, t60S: 3, r2: 1, startS: 0, endS: 1, stabilityCents: 0, beatHz: null, snrDb: 60, frames: 50 }
+  return { frequencyHz, amplitudeDb, decayDbPerS: 20, t60S: 3, r2: 1, startS: 0, endS: 1, stabilityCents: 0, beatHz: null, snrDb: 60, frames: 50, modulationHz: null, modulationDepthDb: null, crossCheckCents: null, uncertaintyCents: null, uncertaintyDecayPct: null }
 }
 
 const cents = (ratio: number) => 2 ** (ratio / 1200)
@@ -169,8 +169,8 @@ describe('the whole chain on a synthetic bar', () => {
     for (const key of ['engineVersion', 'sampleRate', 'channels', 'durationS', 'onsetS', 'fundamentalHz', 'partials', 'target', 'matches', 'verdict', 'warnings', 'parameters']) {
       expect(result).toHaveProperty(key)
     }
-    expect(result.engineVersion).toBe('1.0.0')
-    for (const key of ['frequencyHz', 'amplitudeDb', 'decayDbPerS', 't60S', 'r2', 'startS', 'endS', 'stabilityCents', 'beatHz']) {
+    expect(result.engineVersion).toBe('2.0.0')
+    for (const key of ['frequencyHz', 'amplitudeDb', 'decayDbPerS', 't60S', 'r2', 'startS', 'endS', 'stabilityCents', 'beatHz', 'modulationHz', 'modulationDepthDb', 'crossCheckCents', 'uncertaintyCents', 'uncertaintyDecayPct']) {
       expect(result.partials[0]).toHaveProperty(key)
     }
     for (const key of ['label', 'ratio', 'targetHz', 'measuredHz', 'cents', 'toleranceCents', 'within', 'missing']) {

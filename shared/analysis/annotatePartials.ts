@@ -1,0 +1,100 @@
+import { centsBetween } from './centsBetween'
+import { estimateBand, type BandEstimate } from './estimateBand'
+import type { FftPartial, MeasuredPartial } from './types'
+
+export interface AnnotateSettings {
+  /** First sample after the attack, and one past the last sample that may be used. */
+  startIndex: number
+  endIndex: number
+  /** Longest span one partial is measured over, in s (default 1: ample for a cross-check, and the cost grows with it). */
+  maxSpanS?: number
+}
+
+/** Partials with the cross-check and uncertainty filled in, and warnings to add. */
+export interface AnnotatedPartials<P extends FftPartial> {
+  partials: (P & Pick<MeasuredPartial, 'crossCheckCents' | 'uncertaintyCents' | 'uncertaintyDecayPct'>)[]
+  warnings: string[]
+}
+
+const CENTS_PER_LOG = 1200 / Math.LN2
+/** Variance of the FFT path's reading taken as this multiple of the bound (window loss allowance). */
+const FFT_VARIANCE_FACTOR = 2
+/** Coverage factor for the disagreement warning (GUM: k = 2, about 95 %). */
+const COVERAGE = 2
+/** Disagreements below twice the output rounding step (0.01 ¢) are never warned about. */
+const WARN_FLOOR_CENTS = 0.02
+/** The band reaches at least ±5 ¢ around the FFT reading, so a misread peak is still caught. */
+const SEARCH_RATIO = 2 ** (5 / 1200) - 1
+
+/**
+ * Cross-check every FFT partial with the matrix pencil (estimateBand) over a span that ends
+ * where the partial has sunk into the noise (its SNR + 10 dB of decay, at most `maxSpanS`), in
+ * a band a few line-widths and resolution cells (and at least ±5 ¢) wide. The partial's second
+ * reading is the power-weighted centroid of the pencil components within one resolution cell
+ * (2 / span) of the strongest component in the band's passband.
+ * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)²), with
+ * u_bound the Cramér–Rao bound at the pencil's measured amplitude, decay, span and noise and
+ * Δ/√2 the standard deviation of the two readings; uncertaintyDecayPct likewise for the decay.
+ * A warning is added where |Δ| exceeds k = 2 times the combined uncertainty of the two readings.
+ */
+export function annotatePartials<P extends FftPartial>(
+  signal: Float64Array,
+  sampleRate: number,
+  partials: readonly P[],
+  settings: AnnotateSettings,
+): AnnotatedPartials<P> {
+  const { startIndex } = settings
+  const endIndex = Math.min(settings.endIndex, signal.length)
+  if (!(startIndex >= 0 && startIndex < endIndex)) throw new RangeError('annotatePartials needs a span inside the signal')
+  const maxSpanS = settings.maxSpanS ?? 1
+  const warnings: string[] = []
+  const out = partials.map((p) => {
+    const none = { ...p, crossCheckCents: null, uncertaintyCents: null, uncertaintyDecayPct: null }
+    const decay = Math.max(p.decayDbPerS, 0.5)
+    const spanS = Math.min(maxSpanS, Math.max(0.02, (Math.min(Math.max(p.snrDb, 20), 70) + 10) / decay))
+    const end = Math.min(endIndex, startIndex + Math.round(spanS * sampleRate))
+    const usedS = (end - startIndex) / sampleRate
+    const lineWidthHz = decay / (20 / Math.LN10) / (2 * Math.PI)
+    const halfWidthHz = Math.min(0.45 * p.frequencyHz, 0.45 * (sampleRate / 2 - p.frequencyHz), Math.max(2, 4 / usedS, 3 * lineWidthHz, p.frequencyHz * SEARCH_RATIO))
+    if (!(halfWidthHz > 0) || end - startIndex < 64) return none
+    let band: BandEstimate | null = null
+    try {
+      band = estimateBand(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, targetSamples: 32, maxOrder: 4 })
+    }
+    catch {
+      // A degenerate band (e.g. digital silence: a singular system) leaves the partial unchecked.
+      band = null
+    }
+    const near = band?.components.filter(c =>
+      Number.isFinite(c.frequencyHz) && Number.isFinite(c.decayDbPerS) && Number.isFinite(c.frequencySdHz)
+      && Math.abs(c.frequencyHz - p.frequencyHz) <= band.halfWidthHz && c.snrDb > 6) ?? []
+    if (near.length === 0) {
+      warnings.push(`partial at ${p.frequencyHz.toFixed(2)} Hz could not be cross-checked by the high-resolution estimator`)
+      return none
+    }
+    // Components closer than a resolution cell (2 / span) to the strongest one are one FFT
+    // peak (a beating pair, an envelope that is not a single exponential): compare the FFT
+    // with their power-weighted centroid, and carry the strongest one's bound.
+    const strongest = near.reduce((a, b) => (b.amplitude > a.amplitude ? b : a))
+    const cell = near.filter(c => Math.abs(c.frequencyHz - strongest.frequencyHz) <= 2 / usedS)
+    const power = cell.reduce((sum, c) => sum + c.amplitude ** 2, 0)
+    const centroidHz = cell.reduce((sum, c) => sum + c.frequencyHz * c.amplitude ** 2, 0) / power
+    const centroidDecay = cell.reduce((sum, c) => sum + c.decayDbPerS * c.amplitude ** 2, 0) / power
+    const delta = centsBetween(centroidHz, p.frequencyHz)
+    const boundCents = (CENTS_PER_LOG * strongest.frequencySdHz) / p.frequencyHz
+    const uncertaintyCents = Math.hypot(boundCents, delta / Math.SQRT2)
+    const decayDelta = centroidDecay - p.decayDbPerS
+    const uncertaintyDecayPct = p.decayDbPerS > 0
+      ? (100 * Math.hypot(strongest.decaySdDbPerS, decayDelta / Math.SQRT2)) / p.decayDbPerS
+      : null
+    const combined = boundCents * Math.sqrt(1 + FFT_VARIANCE_FACTOR)
+    if (Math.abs(delta) > Math.max(WARN_FLOOR_CENTS, COVERAGE * combined)) {
+      warnings.push(
+        `partial at ${p.frequencyHz.toFixed(2)} Hz: the high-resolution estimate differs by ${delta.toFixed(2)} ¢, `
+        + `more than the two readings' combined uncertainty allows (±${Math.max(WARN_FLOOR_CENTS, COVERAGE * combined).toFixed(2)} ¢)`,
+      )
+    }
+    return { ...p, crossCheckCents: delta, uncertaintyCents, uncertaintyDecayPct }
+  })
+  return { partials: out, warnings }
+}

@@ -1,0 +1,158 @@
+import { dampedSinusoidCrb } from './dampedSinusoidCrb'
+import { matrixPencil } from './matrixPencil'
+import { mixDownBand } from './mixDownBand'
+import { refineExponentials } from './refineExponentials'
+
+/** One damped sinusoid found in a band. */
+export interface BandComponent {
+  frequencyHz: number
+  /** Decay of the envelope in dB/s (positive: decaying). */
+  decayDbPerS: number
+  /** Peak amplitude at the reference sample (linear, a full-scale sine is 1). */
+  amplitude: number
+  /** Phase of the cosine at the reference sample, in rad. */
+  phaseRad: number
+  /** One standard deviation of the frequency and of the decay from the Cramér–Rao bound at the measured values. */
+  frequencySdHz: number
+  decaySdDbPerS: number
+  /** Level over the band's noise (per band sample, at the start of the span), in dB. */
+  snrDb: number
+}
+
+/** What the band estimator saw and found. */
+export interface BandEstimate {
+  /** Components inside the passband, lowest first. */
+  components: BandComponent[]
+  /** Half-width of the passband around the centre, in Hz. */
+  halfWidthHz: number
+  /** Sample rate and length of the decimated band signal. */
+  bandRateHz: number
+  samples: number
+  /** Time span the band samples cover, in s. */
+  spanS: number
+  /** RMS of the fit's residual per band sample (complex, full scale = 1). */
+  noiseRms: number
+}
+
+export interface BandSettings {
+  /** First and one-past-last input sample that may be used. */
+  startIndex: number
+  endIndex: number
+  /** Smallest half-width of the passband around `centerHz`, in Hz. */
+  halfWidthHz: number
+  /** Number of band samples aimed for (default 48; more when the band must be wide, up to twice that: a longer span is shortened). */
+  targetSamples?: number
+  /** Fixed number of exponentials, or limits for the MDL choice (default 1 … 6). */
+  order?: number
+  minOrder?: number
+  maxOrder?: number
+  /** Sample that amplitudes and phases refer to (default startIndex). */
+  referenceIndex?: number
+}
+
+const DB_PER_NEPER = 20 / Math.LN10
+/** Passband half-width as a fraction of the band's sample rate (see mixDownBand). */
+const PASSBAND = 1 / 8
+
+/**
+ * Damped sinusoids in one band of a recording: mix the band down to 0 Hz and decimate
+ * (mixDownBand) to about `targetSamples` samples, so the pencil's matrices stay small,
+ * then fit K damped exponentials by the matrix pencil (matrixPencil), refined by least
+ * squares (refineExponentials). Each pole maps back
+ * to frequency (Hz) and decay (dB/s); its amplitude is corrected for the filter's gain at
+ * the pole and referred to `referenceIndex`; its uncertainty is the Cramér–Rao bound
+ * (dampedSinusoidCrb) evaluated at the measured amplitude, decay, length and residual noise.
+ * Returns null when the span is too short for eight band samples.
+ */
+export function estimateBand(signal: Float64Array, sampleRate: number, centerHz: number, settings: BandSettings): BandEstimate | null {
+  const { startIndex, endIndex, halfWidthHz } = settings
+  if (!(halfWidthHz > 0)) throw new RangeError('estimateBand needs a positive half-width')
+  if (!(centerHz > 0 && centerHz < sampleRate / 2)) throw new RangeError('estimateBand needs a centre frequency inside the recording\'s band')
+  if (!(startIndex >= 0 && endIndex <= signal.length && startIndex < endIndex)) throw new RangeError('estimateBand needs a span inside the signal')
+  const target = settings.targetSamples ?? 48
+  const span = endIndex - startIndex
+  // The largest factor that keeps the passband (±⅛ of the band rate) at least halfWidthHz,
+  // and the one that gives about `target` samples (the filter takes ~4 factors), taken
+  // down to a ladder of factors (so filter designs repeat); a span that would give more
+  // than twice `target` samples is shortened (cost, and the pencil's matrices stay small).
+  const byBand = Math.floor((PASSBAND * sampleRate) / halfWidthHz)
+  const byLength = Math.floor(span / (target + 4))
+  const factor = ladderFactor(Math.max(2, Math.min(byBand, byLength)))
+  const end = Math.min(endIndex, startIndex + (2 * target + 5) * factor)
+  const band = mixDownBand(signal, sampleRate, centerHz, { startIndex, endIndex: end, factor, passbandFraction: PASSBAND })
+  const samples = band.re.length
+  if (samples < 8) return null
+  const fit = refineExponentials(band, matrixPencil(band, {
+    order: settings.order,
+    minOrder: settings.minOrder,
+    maxOrder: Math.min(settings.maxOrder ?? 6, Math.floor(samples / 4)),
+  }))
+  const order = fit.frequencyCycles.length
+  const noiseRms = fit.residualRms * Math.sqrt(samples / Math.max(1, samples - 2 * order))
+  const bandRateHz = sampleRate / factor
+  const reference = settings.referenceIndex ?? startIndex
+  const omegaCenter = (2 * Math.PI * centerHz) / sampleRate
+  const delay = (band.taps.length - 1) / 2
+  const components: BandComponent[] = []
+  for (let k = 0; k < order; k++) {
+    const nu = fit.frequencyCycles[k]!
+    if (Math.abs(nu) > 0.25) continue
+    const damping = fit.dampingNepers[k]!
+    // Filter gain at the pole, per input sample: H = Σ h[j]·u^{j − c}, u = e^{−δ/D + 2πiν/D}.
+    const dampingPerSample = damping / factor
+    const omegaOffset = (2 * Math.PI * nu) / factor
+    // Symmetric taps: h[c](1) + Σ_k h[c+k]·(u^k + u^{−k}), by recurrences.
+    let hRe = band.taps[delay]!
+    let hIm = 0
+    const upStep = Math.exp(dampingPerSample)
+    const cosStep = Math.cos(omegaOffset)
+    const sinStep = Math.sin(omegaOffset)
+    let up = 1
+    let cosK = 1
+    let sinK = 0
+    for (let j = 1; j <= delay; j++) {
+      up *= upStep
+      const nextSin = sinK * cosStep + cosK * sinStep
+      cosK = cosK * cosStep - sinK * sinStep
+      sinK = nextSin
+      const h = band.taps[delay + j]!
+      hRe += h * (up + 1 / up) * cosK
+      hIm += h * (1 / up - up) * sinK
+    }
+    const gain = Math.hypot(hRe, hIm)
+    const omega = omegaCenter + omegaOffset
+    const amplitudeFirst = (2 * fit.amplitude[k]!) / gain
+    const phaseFirst = fit.phaseRad[k]! - Math.atan2(hIm, hRe) + omegaCenter * band.firstIndex
+    const bound = noiseRms > 0
+      ? dampedSinusoidCrb(2 * fit.amplitude[k]!, noiseRms, damping, samples)
+      : { frequencySdRad: 0, dampingSdNepers: 0 }
+    components.push({
+      frequencyHz: centerHz + nu * bandRateHz,
+      decayDbPerS: damping * bandRateHz * DB_PER_NEPER,
+      amplitude: amplitudeFirst * Math.exp(dampingPerSample * (band.firstIndex - reference)),
+      phaseRad: wrapPhase(phaseFirst - omega * (band.firstIndex - reference)),
+      frequencySdHz: (bound.frequencySdRad * bandRateHz) / (2 * Math.PI),
+      decaySdDbPerS: bound.dampingSdNepers * bandRateHz * DB_PER_NEPER,
+      snrDb: 20 * Math.log10(fit.amplitude[k]! / Math.max(noiseRms, 1e-300)),
+    })
+  }
+  return {
+    components,
+    halfWidthHz: PASSBAND * bandRateHz,
+    bandRateHz,
+    samples,
+    spanS: (samples * factor) / sampleRate,
+    noiseRms,
+  }
+}
+
+/** The largest factor ≤ `factor` of the form m·2^e with m in 4 … 7 (or factor itself below 8). */
+function ladderFactor(factor: number): number {
+  if (factor < 8) return factor
+  const step = 2 ** (Math.floor(Math.log2(factor)) - 2)
+  return Math.floor(factor / step) * step
+}
+
+function wrapPhase(phase: number): number {
+  return phase - 2 * Math.PI * Math.round(phase / (2 * Math.PI))
+}

@@ -1,0 +1,62 @@
+import { MAIN_LOBE_BINS } from './chooseWindow'
+import type { TrackMeasurement } from './measureTrack'
+
+export interface PhysicalBounds {
+  /** The file's own peak level, dB re full scale: no partial of it can be louder. */
+  peakDb: number
+  peakMarginDb: number
+  sampleRate: number
+  minFrequencyHz: number
+  maxDecayDbPerS: number
+  maxGrowthDbPerS: number
+}
+
+/** Partials inside the bounds, and one plain line per kind of reading left out. */
+export interface GuardedPartials {
+  kept: TrackMeasurement[]
+  warnings: string[]
+}
+
+/**
+ * Physical bounds of a partial of a strike: its onset amplitude cannot exceed the file's
+ * own peak; it cannot grow (a slightly negative fitted rate, within `maxGrowthDbPerS`, is
+ * reported as 0 dB/s with no T60); its decay cannot be faster than `maxDecayDbPerS` nor
+ * fall further over its track than the track stood over the noise (plus 30 dB of fit
+ * slack); its frequency lies between `minFrequencyHz` (and clear of DC by half its
+ * window's main lobe) and the Nyquist frequency. A reading outside is a failed
+ * measurement, so it is left out — with a warning — rather than reported. One exception:
+ * an onset amplitude over the peak whose strongest frame lies within it is an envelope
+ * that was not one exponential from the onset; its strongest frame's level is reported.
+ */
+export function guardPartials(partials: readonly TrackMeasurement[], bounds: PhysicalBounds): GuardedPartials {
+  const kept: TrackMeasurement[] = []
+  const counts = { amplitude: 0, growth: 0, decay: 0, frequency: 0, extrapolated: 0 }
+  for (const original of partials) {
+    let p = original
+    if (p.amplitudeDb > bounds.peakDb + bounds.peakMarginDb && p.strongestFrameDb <= bounds.peakDb + bounds.peakMarginDb) {
+      // The decay line, drawn back to the onset, overshoots: the envelope was not one
+      // exponential from the onset (a two-stage decay, a slow attack). Its strongest frame
+      // is what was seen.
+      p = { ...p, amplitudeDb: p.strongestFrameDb }
+      counts.extrapolated++
+    }
+    const lowestHz = Math.max(bounds.minFrequencyHz, MAIN_LOBE_BINS / 2 / p.windowS)
+    if (!(p.frequencyHz >= lowestHz && p.frequencyHz < bounds.sampleRate / 2)) counts.frequency++
+    else if (!(p.amplitudeDb <= bounds.peakDb + bounds.peakMarginDb)) counts.amplitude++
+    else if (p.decayDbPerS < -bounds.maxGrowthDbPerS) counts.growth++
+    else if (p.decayDbPerS > bounds.maxDecayDbPerS || p.decayDbPerS * (p.endS - p.startS) > p.snrDb + 30) counts.decay++
+    else kept.push(p.decayDbPerS < 0 ? { ...p, decayDbPerS: 0, t60S: null } : p)
+  }
+  const warnings: string[] = []
+  const say = (n: number, why: string) => {
+    if (n > 0) warnings.push(`${n} partial reading${n === 1 ? '' : 's'} left out: ${why}`)
+  }
+  say(counts.amplitude, 'amplitude above the recording\'s own peak level')
+  if (counts.extrapolated > 0) {
+    warnings.push(`${counts.extrapolated} partial${counts.extrapolated === 1 ? '' : 's'} did not decay as one exponential from the onset; amplitude given at the strongest frame instead`)
+  }
+  say(counts.growth, 'level growing instead of decaying')
+  say(counts.decay, 'decay faster than the recording can show')
+  say(counts.frequency, 'frequency outside the band the recording holds (or too close to 0 Hz for its window)')
+  return { kept, warnings }
+}

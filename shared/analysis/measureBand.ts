@@ -1,0 +1,77 @@
+import { linkTracks, type TrackPoint } from './linkTracks'
+import { measureTrack, type TrackMeasurement } from './measureTrack'
+import type { ModulationSettings } from './measureModulation'
+import type { AnalysisBand } from './planBands'
+import { shortTimePeaks } from './shortTimePeaks'
+import type { StrikeSpan } from './findStrike'
+
+export interface BandSettings {
+  peakThresholdDb: number
+  noiseMarginDb: number
+  glideCentsPerS: number
+  minJumpCents: number
+  maxGapS: number
+  fitMarginDb: number
+  minSnrDb: number
+  maxRefineS: number
+  modulation: ModulationSettings
+}
+
+/** Partials of one band, with the tracking settings that were used. */
+export interface BandMeasurement {
+  partials: TrackMeasurement[]
+  trackJumpCents: number
+  minTrackFrames: number
+}
+
+/**
+ * One resolution of the analysis: short-time peaks in the band, tracks across frames
+ * (through gaps as long as a tremolo's trough), and each track measured. Partials below
+ * the band's own lower edge are left to the slower bands, and tracks `settled` says the
+ * slower bands already hold are not measured at all.
+ */
+export function measureBand(
+  signal: Float64Array,
+  sampleRate: number,
+  strike: StrikeSpan,
+  band: AnalysisBand,
+  settings: BandSettings,
+  /** Tracks this says are settled elsewhere are not measured (the costly step). */
+  settled: (points: TrackPoint[]) => boolean = () => false,
+  windowed?: (start: number, length: number) => Float64Array,
+): BandMeasurement {
+  const spectra = shortTimePeaks(signal, sampleRate, {
+    windowLength: band.windowLength,
+    fftSize: band.fftSize,
+    hop: band.hop,
+    startIndex: strike.startIndex,
+    endIndex: Math.max(band.endIndex, Math.min(signal.length, strike.startIndex + band.windowLength)),
+    peakThresholdDb: settings.peakThresholdDb,
+    noiseMarginDb: settings.noiseMarginDb,
+    minFrequencyHz: band.fromHz,
+    maxFrequencyHz: band.toHz,
+  })
+  const trackJumpCents = Math.max(settings.minJumpCents, settings.glideCentsPerS * band.hopS)
+  // A track spans more than one window of independent frames (rounding of the hop aside).
+  const minTrackFrames = Math.max(5, Math.ceil(band.windowLength / band.hop - 0.01) + 2)
+  const tracks = linkTracks(spectra, {
+    maxJumpCents: trackJumpCents,
+    minJumpHz: (0.5 * sampleRate) / band.windowLength,
+    maxGapFrames: Math.max(1, Math.min(8, Math.round(settings.maxGapS / band.hopS))),
+    minFrames: minTrackFrames,
+  })
+  const partials = tracks.filter(points => !settled(points)).flatMap(points =>
+    measureTrack(points, signal, sampleRate, {
+      onsetIndex: strike.onsetIndex,
+      startIndex: strike.startIndex,
+      endIndex: signal.length,
+      windowLength: band.windowLength,
+      fitMarginDb: settings.fitMarginDb,
+      minSnrDb: settings.minSnrDb,
+      maxRefineS: settings.maxRefineS,
+      modulation: settings.modulation,
+      windowed,
+    }),
+  ).filter(p => p.frequencyHz >= band.ownFromHz)
+  return { partials, trackJumpCents, minTrackFrames }
+}

@@ -1,0 +1,110 @@
+import { kaiserLowPass } from './kaiserLowPass'
+
+/** A complex-valued signal as two parallel arrays. */
+export interface ComplexSignal {
+  re: Float64Array
+  im: Float64Array
+}
+
+/** One band of a recording, mixed down to 0 Hz and decimated. */
+export interface BandSignal extends ComplexSignal {
+  /** Sample rate of the band signal (input rate / factor), in Hz. */
+  sampleRateHz: number
+  /** Input frequency that now sits at 0 Hz. */
+  centerHz: number
+  /** Decimation factor. */
+  factor: number
+  /** Input sample index that band sample 0 stands for (the centre of its filter span). */
+  firstIndex: number
+  /** Low-pass taps used (odd length, symmetric, unit gain at 0 Hz; shared between calls, read only). */
+  taps: Float64Array
+}
+
+export interface MixDownSettings {
+  /** First and one-past-last input sample that may be used. */
+  startIndex: number
+  endIndex: number
+  /** Decimation factor, ≥ 2. */
+  factor: number
+  /** Passband half-width as a fraction of the band's sample rate, in (0, ½) (default ⅛). */
+  passbandFraction?: number
+  /** Stopband attenuation of the low-pass filter in dB (default 50). */
+  attenuationDb?: number
+}
+
+/**
+ * Complex heterodyne, low-pass and decimation in one pass (a digital down-converter,
+ * e.g. Lyons, Understanding Digital Signal Processing, 3rd ed., §8.9):
+ * y[m] = e^{−iω_c t_m} Σ_j h[j] e^{−iω_c (j − c)} x[t_m − c + j], t_m = start + c + m·D,
+ * with a Kaiser low-pass h of delay c whose passband (±p·fs/D) keeps the band and whose
+ * stopband (from (1 − p)·fs/D) removes everything that would fold into it. A narrow
+ * passband (small p) allows a wide transition, hence a short filter: less of the span is
+ * lost at its two ends, where the filter does not fit. The filter is
+ * evaluated only at the kept outputs, and only where it lies wholly inside the span, so a
+ * damped exponential a·zⁿ comes out as the exact exponential a·H·(z e^{−iω_c})^{t_m}.
+ */
+export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: number, settings: MixDownSettings): BandSignal {
+  const { startIndex, endIndex, factor } = settings
+  if (!(sampleRate > 0)) throw new RangeError('mixDownBand needs a positive sample rate')
+  if (!(centerHz >= 0 && centerHz < sampleRate / 2)) throw new RangeError('mixDownBand needs a centre frequency between 0 Hz and half the sample rate')
+  if (!Number.isInteger(factor) || factor < 2) throw new RangeError('mixDownBand needs a whole decimation factor of at least 2')
+  if (!(startIndex >= 0 && endIndex <= signal.length && startIndex < endIndex)) throw new RangeError('mixDownBand needs a span inside the signal')
+  const passband = settings.passbandFraction ?? 1 / 8
+  if (!(passband > 0 && passband < 0.5)) throw new RangeError('mixDownBand needs a passband fraction between 0 and ½')
+  const taps = lowPassFor(factor, passband, settings.attenuationDb ?? 50)
+  const length = taps.length
+  const delay = (length - 1) / 2
+  const count = Math.max(0, Math.floor((endIndex - startIndex - length) / factor) + 1)
+  const omega = (2 * Math.PI * centerHz) / sampleRate
+  // Band-pass taps: the low-pass moved up to the band, phase referenced to the centre tap.
+  const gRe = new Float64Array(length)
+  const gIm = new Float64Array(length)
+  // Symmetric taps: g[c ± k] = h[c + k]·e^{∓iωk}, e^{iωk} by a rotation recurrence.
+  const cosStep = Math.cos(omega)
+  const sinStep = Math.sin(omega)
+  let cosK = 1
+  let sinK = 0
+  for (let k = 0; k <= delay; k++) {
+    const h = taps[delay + k]!
+    gRe[delay + k] = h * cosK
+    gIm[delay + k] = -h * sinK
+    gRe[delay - k] = h * cosK
+    gIm[delay - k] = h * sinK
+    const nextSin = sinK * cosStep + cosK * sinStep
+    cosK = cosK * cosStep - sinK * sinStep
+    sinK = nextSin
+  }
+  const re = new Float64Array(count)
+  const im = new Float64Array(count)
+  for (let m = 0; m < count; m++) {
+    const base = startIndex + m * factor
+    let sRe = 0
+    let sIm = 0
+    for (let j = 0; j < length; j++) {
+      const x = signal[base + j]!
+      sRe += x * gRe[j]!
+      sIm += x * gIm[j]!
+    }
+    // Mix the output down by the phase of the carrier at the output's own time.
+    const phase = -omega * (base + delay)
+    const c = Math.cos(phase)
+    const s = Math.sin(phase)
+    re[m] = sRe * c - sIm * s
+    im[m] = sRe * s + sIm * c
+  }
+  return { re, im, sampleRateHz: sampleRate / factor, centerHz, factor, firstIndex: startIndex + delay, taps }
+}
+
+/** Designs already made, by factor, passband and attenuation (the same few recur for every partial). */
+const designs = new Map<string, Float64Array>()
+
+function lowPassFor(factor: number, passband: number, attenuationDb: number): Float64Array {
+  const key = `${factor}/${passband}/${attenuationDb}`
+  let taps = designs.get(key)
+  if (!taps) {
+    taps = kaiserLowPass(1 / (2 * factor), (1 - 2 * passband) / factor, { attenuationDb })
+    if (designs.size >= 64) designs.delete(designs.keys().next().value!)
+    designs.set(key, taps)
+  }
+  return taps
+}

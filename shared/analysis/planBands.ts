@@ -1,0 +1,72 @@
+import { MAIN_LOBE_BINS, type WindowChoice } from './chooseWindow'
+import { nextPowerOfTwo } from './nextPowerOfTwo'
+
+/** One resolution of the multi-resolution analysis: a window and the band it measures. */
+export interface AnalysisBand extends WindowChoice {
+  /** Lowest frequency peaks are picked at (a little under ownFromHz, so edges are clean), Hz. */
+  fromHz: number
+  /** Partials from ownFromHz up belong to this band, Hz. */
+  ownFromHz: number
+  toHz: number
+  /** One past the last sample analysed in this band. */
+  endIndex: number
+}
+
+export interface BandPlanSettings {
+  shortestWindowS: number
+  bandWindowRatio: number
+  fastBandFrames: number
+}
+
+/**
+ * Multi-resolution layout: band 0 is the long window (chooseWindow) over the whole band
+ * and span; then windows `bandWindowRatio` times shorter each, down to `shortestWindowS`,
+ * each measuring only where it still resolves the partials — above 1.25 main lobes from DC
+ * (as chooseWindow asks of the lowest partial) and above every pair of neighbours
+ * (within one list) closer than 1.25 main lobes — with a hop of a quarter window over its first
+ * `fastBandFrames` frames. Long windows where partials are low and close, short ones where
+ * they are high and die fast (multi-resolution sinusoidal analysis, Levine & Smith 1998).
+ */
+export function planBands(
+  long: WindowChoice,
+  neighbourLists: readonly (readonly number[])[],
+  sampleRate: number,
+  span: { startIndex: number, endIndex: number },
+  range: { minHz: number, maxHz: number },
+  settings: BandPlanSettings,
+): AnalysisBand[] {
+  const bands: AnalysisBand[] = [{ ...long, fromHz: range.minHz, ownFromHz: range.minHz, toHz: range.maxHz, endIndex: span.endIndex }]
+  const margin = 1.25
+  // Down by bandWindowRatio each time, the last one at the shortest window.
+  let floorHz = range.minHz
+  let previousS = long.windowS
+  while (previousS > 1.5 * settings.shortestWindowS) {
+    const windowS = Math.max(settings.shortestWindowS, previousS / settings.bandWindowRatio)
+    const lobeHz = MAIN_LOBE_BINS / windowS
+    let ownFromHz = Math.max(floorHz, margin * lobeHz)
+    for (const list of neighbourLists) {
+      for (let i = 1; i < list.length; i++) {
+        if (list[i]! - list[i - 1]! < margin * lobeHz) ownFromHz = Math.max(ownFromHz, list[i]! + (margin * lobeHz) / 2)
+      }
+    }
+    if (ownFromHz >= 0.8 * range.maxHz) break
+    const windowLength = Math.round(windowS * sampleRate)
+    const hop = Math.max(1, Math.round(windowLength / 4))
+    const fftSize = nextPowerOfTwo(2 * windowLength)
+    bands.push({
+      windowLength,
+      fftSize,
+      hop,
+      windowS: windowLength / sampleRate,
+      hopS: hop / sampleRate,
+      zeroPad: fftSize / windowLength,
+      fromHz: Math.max(range.minHz, ownFromHz - lobeHz / 2),
+      ownFromHz,
+      toHz: range.maxHz,
+      endIndex: Math.min(span.endIndex, span.startIndex + settings.fastBandFrames * hop + windowLength),
+    })
+    floorHz = ownFromHz
+    previousS = windowS
+  }
+  return bands
+}

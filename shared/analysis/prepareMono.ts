@@ -1,0 +1,39 @@
+import { AnalysisError } from './AnalysisError'
+import { checkLimits } from './decodeAudio'
+import { inspectLevels } from './inspectLevels'
+import { LIMITS } from './limits'
+import { mixToMono } from './mixToMono'
+
+/** The mono signal an analysis works on, with what was noticed on the way. */
+export interface PreparedMono {
+  mono: Float64Array
+  /** Largest absolute sample of the file, full scale = 1. */
+  peak: number
+  warnings: string[]
+}
+
+/**
+ * Check the decoded channels (limits, invalid samples, silence, clipping), mix them to
+ * mono and remove the DC offset. Throws AnalysisError for audio that cannot be measured.
+ */
+export function prepareMono(channels: readonly ArrayLike<number>[], sampleRate: number): PreparedMono {
+  const frames = channels[0]?.length ?? 0
+  if (channels.length === 0) throw new AnalysisError(422, 'no_frames', 'The file holds no audio frames; the recording is empty.')
+  checkLimits(channels.length, sampleRate, frames)
+  const levels = inspectLevels(channels)
+  if (levels.invalidSamples > 0) {
+    throw new AnalysisError(415, 'corrupt_audio', 'The recording contains invalid sample values, so the file is damaged.')
+  }
+  if (levels.peak < LIMITS.silencePeak) {
+    throw new AnalysisError(422, 'silent', 'The recording is silent; no strike can be heard in it.')
+  }
+  const warnings: string[] = []
+  if (levels.clippedSamples > 0) warnings.push(`clipped samples: ${levels.clippedSamples}`)
+  const mono = mixToMono(channels)
+  let mean = 0
+  for (let i = 0; i < mono.length; i++) mean += mono[i]!
+  mean /= mono.length
+  if (Math.abs(mean) > 0.01) warnings.push(`DC offset: ${mean.toFixed(3)} of full scale (removed before analysis)`)
+  for (let i = 0; i < mono.length; i++) mono[i]! -= mean
+  return { mono, peak: levels.peak, warnings }
+}

@@ -1,0 +1,43 @@
+import { estimateBand, type BandComponent } from './estimateBand'
+
+export interface DoubletSettings {
+  /** First and one-past-last sample that may be used. */
+  startIndex: number
+  endIndex: number
+  /** Half-width of the band searched around `centerHz`, in Hz (both partials lie inside it). */
+  halfWidthHz: number
+  /** Sample the amplitudes refer to (default startIndex). */
+  referenceIndex?: number
+}
+
+/**
+ * Two partials inside one FFT main lobe — the split modes of a bell or a steel note, a
+ * bar's twisting mode beside a bending mode — each with its own frequency, decay and
+ * amplitude: the matrix pencil on the band (estimateBand) with at least two exponentials,
+ * keeping the two strongest within `halfWidthHz` of `centerHz`, lower first.
+ * Returns null when fewer than two components stand over the noise there.
+ */
+export function separateDoublet(
+  signal: Float64Array,
+  sampleRate: number,
+  centerHz: number,
+  settings: DoubletSettings,
+): [BandComponent, BandComponent] | null {
+  if (!(settings.halfWidthHz > 0)) throw new RangeError('separateDoublet needs a positive half-width')
+  const band = estimateBand(signal, sampleRate, centerHz, {
+    startIndex: settings.startIndex,
+    endIndex: settings.endIndex,
+    halfWidthHz: settings.halfWidthHz,
+    targetSamples: 48,
+    minOrder: 2,
+    maxOrder: 6,
+    referenceIndex: settings.referenceIndex,
+  })
+  if (!band) return null
+  const inside = band.components
+    .filter(c => Math.abs(c.frequencyHz - centerHz) <= settings.halfWidthHz && c.snrDb > 6)
+    .sort((a, b) => b.amplitude - a.amplitude)
+  if (inside.length < 2) return null
+  const pair = [inside[0]!, inside[1]!].sort((a, b) => a.frequencyHz - b.frequencyHz)
+  return [pair[0]!, pair[1]!]
+}

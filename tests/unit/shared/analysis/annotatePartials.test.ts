@@ -1,0 +1,68 @@
+import { describe, expect, it } from 'vitest'
+import { analyzeSamples } from '../../../../shared/analysis/analyzeSamples'
+import { annotatePartials } from '../../../../shared/analysis/annotatePartials'
+import type { FftPartial } from '../../../../shared/analysis/types'
+import { synthStrike, type SynthPartial } from '../../../../shared/synthesis/synthStrike'
+
+const sampleRate = 48000
+
+/** An FFT reading of a partial as the pipeline would hand it over. */
+function reading(frequencyHz: number, decayDbPerS: number, snrDb = 60): FftPartial {
+  return { frequencyHz, amplitudeDb: -10, decayDbPerS, t60S: 60 / decayDbPerS, r2: 1, startS: 0, endS: 1, stabilityCents: 0, beatHz: null, snrDb, frames: 40 }
+}
+
+const truth: SynthPartial[] = [
+  { frequencyHz: 261.63, amplitudeDb: -6, decayDbPerS: 15 },
+  { frequencyHz: 1046.5, amplitudeDb: -18, decayDbPerS: 30 },
+  { frequencyHz: 2616.3, amplitudeDb: -26, decayDbPerS: 45 },
+]
+
+describe('annotatePartials', () => {
+  it('gives an uncertainty that matches the pencil\'s real scatter (from the data, not a constant)', () => {
+    const deltas: number[] = []
+    const uncertainties: number[] = []
+    for (let seed = 1; seed <= 30; seed++) {
+      const signal = synthStrike(truth, { sampleRate, durationS: 2, noiseDb: -45, seed })
+      // FFT readings at the true values, so the cross-check is the pencil's own error.
+      const out = annotatePartials(signal, sampleRate, truth.map(t => reading(t.frequencyHz, t.decayDbPerS, 40)), { startIndex: 0, endIndex: signal.length })
+      for (const p of out.partials) {
+        deltas.push(p.crossCheckCents!)
+        uncertainties.push(p.uncertaintyCents!)
+      }
+    }
+    const rms = (v: number[]) => Math.sqrt(v.reduce((s, x) => s + x * x, 0) / v.length)
+    // u² = bound² + Δ²/2 and E[Δ²] ≈ bound² for an efficient estimator, so RMS(Δ)/RMS(u) ≈ 1/√1.5 ≈ 0.82.
+    expect(rms(deltas) / rms(uncertainties)).toBeGreaterThan(0.55)
+    expect(rms(deltas) / rms(uncertainties)).toBeLessThan(1.1)
+  }, 60_000)
+
+  it('reports a misread partial as the difference in cents, with a warning', () => {
+    const signal = synthStrike(truth, { sampleRate, durationS: 2, noiseDb: -70, seed: 9 })
+    const misread = truth.map((t, k) => reading(k === 1 ? t.frequencyHz * 2 ** (3 / 1200) : t.frequencyHz, t.decayDbPerS))
+    const out = annotatePartials(signal, sampleRate, misread, { startIndex: 0, endIndex: signal.length })
+    expect(out.partials[1]!.crossCheckCents).toBeCloseTo(-3, 2)
+    expect(Math.abs(out.partials[0]!.crossCheckCents!)).toBeLessThan(0.01)
+    expect(out.warnings).toHaveLength(1)
+    expect(out.warnings[0]).toContain('1048.32 Hz')
+  })
+
+  it('leaves the fields null, with a warning, where the pencil finds nothing', () => {
+    const signal = synthStrike(truth, { sampleRate, durationS: 2, noiseDb: -70, seed: 9 })
+    const out = annotatePartials(signal, sampleRate, [reading(700, 20)], { startIndex: 0, endIndex: signal.length })
+    expect(out.partials[0]).toMatchObject({ crossCheckCents: null, uncertaintyCents: null, uncertaintyDecayPct: null })
+    expect(out.warnings[0]).toContain('could not be cross-checked')
+  })
+
+  it('fills the three fields for every partial of a measured strike', () => {
+    const signal = synthStrike(truth, { sampleRate, durationS: 3, onsetS: 0.05, noiseDb: -72, seed: 1 })
+    const result = analyzeSamples(signal, sampleRate, { note: 'C4', ratios: [1, 4, 10] })
+    expect(result.partials).toHaveLength(3)
+    for (const p of result.partials) {
+      expect(Math.abs(p.crossCheckCents!)).toBeLessThan(0.05)
+      expect(p.uncertaintyCents).toBeGreaterThanOrEqual(0)
+      expect(p.uncertaintyDecayPct).toBeGreaterThanOrEqual(0)
+      expect(p.uncertaintyDecayPct).toBeLessThan(2)
+    }
+    expect(result.warnings.filter(w => w.includes('high-resolution'))).toEqual([])
+  })
+})
