@@ -56,6 +56,8 @@ describe('invitation and password reset screens', () => {
     await screenshot(page, 'team-pending-invitations')
     await row.getByRole('button', { name: `Revoke the invitation to ${email}` }).click()
     await page.getByText(`The invitation to ${email} was revoked.`).waitFor()
+    // The list reloads after the answer: the row leaves once it has.
+    await row.waitFor({ state: 'detached' })
     expect(await page.getByTestId('invitation-row').filter({ hasText: email }).count()).toBe(0)
     await page.close()
 
