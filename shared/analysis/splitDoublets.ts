@@ -28,6 +28,8 @@ export interface SplitDoublets<P extends DoubletCandidate> {
 const MIN_SNR_DB = 20
 /** The weaker component at most this far under the stronger, dB. */
 const MAX_LEVEL_GAP_DB = 25
+/** Only partials within this of the strongest are examined (the tuned ones; each costs a pencil fit), dB. */
+const MAX_BELOW_STRONGEST_DB = 40
 /** Half-width of the band searched around the FFT reading, Hz (a bar's twisting mode lies a few Hz off). */
 const SEARCH_HALF_WIDTH_HZ = 8
 /** Longest span the pair is measured over, s. */
@@ -41,7 +43,8 @@ const MAX_DECAY_MISMATCH = 0.6
 /**
  * Two partials inside one FFT main lobe (a bell's or a steel note's doublet, a bar's twisting
  * mode beside a bending mode) reported as two, each with its own frequency, decay and
- * amplitude from the matrix pencil (separateDoublet, Hua & Sarkar 1990). A partial is split
+ * amplitude from the matrix pencil (separateDoublet, Hua & Sarkar 1990). Partials within 40 dB
+ * of the strongest are examined; one is split
  * only when both components stand ≥ 20 dB over the band's noise and within 25 dB of each
  * other, their gap is below the STFT window's resolution (half its main lobe) yet holds at
  * least one beat over the span and 8 bound widths, the pair's power centroid lies within
@@ -62,8 +65,9 @@ export function splitDoublets<P extends DoubletCandidate>(
   if (!(startIndex >= 0 && startIndex < endIndex)) throw new RangeError('splitDoublets needs a span inside the signal')
   const single: P[] = []
   const pairs: MeasuredPartial[] = []
+  const floorDb = Math.max(-Infinity, ...partials.map(p => p.amplitudeDb)) - MAX_BELOW_STRONGEST_DB
   for (const p of partials) {
-    const split = p.modulationFrom === 'pair' || p.snrDb < MIN_SNR_DB ? null : splitOne(p)
+    const split = p.modulationFrom === 'pair' || p.snrDb < MIN_SNR_DB || p.amplitudeDb < floorDb ? null : splitOne(p)
     if (split) pairs.push(...split)
     else single.push(p)
   }
