@@ -66,7 +66,7 @@ export function analyzeChannels(
     .map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }) => p)
   // Two partials inside one main lobe are reported as two, read by the matrix pencil.
   const doublets = splitDoublets(mono, sampleRate, fftPartials, {
-    startIndex: strike.startIndex, endIndex: mono.length, onsetIndex: strike.onsetIndex, peakDb: 20 * Math.log10(peak), peakMarginDb: S.peakMarginDb,
+    startIndex: strike.startIndex, endIndex: mono.length, onsetIndex: strike.onsetIndex, peakDb: 20 * Math.log10(peak), peakMarginDb: S.peakMarginDb, minAmplitudeDb: strongest - dynamicRangeDb,
   })
   // The second, independent reading of every partial: cross-check and uncertainty.
   const annotated = annotatePartials(mono, sampleRate, doublets.single, { startIndex: strike.startIndex, endIndex: mono.length })

@@ -15,6 +15,8 @@ export interface DoubletSplitSettings {
   /** The file's peak level, dB re full scale, and the margin an amplitude may exceed it by. */
   peakDb: number
   peakMarginDb: number
+  /** Floor of the reported range, dB re full scale: both components must reach it. */
+  minAmplitudeDb: number
 }
 
 export interface SplitDoublets<P extends DoubletCandidate> {
@@ -98,7 +100,7 @@ export function splitDoublets<P extends DoubletCandidate>(
     const power = a.amplitude ** 2 + b.amplitude ** 2
     const centroidHz = (a.frequencyHz * a.amplitude ** 2 + b.frequencyHz * b.amplitude ** 2) / power
     const tremoloRate = p.modulationFrom === 'sidebands' && p.modulationHz !== null && Math.abs(gapHz - p.modulationHz) < 0.2 * p.modulationHz
-    const physical = [a, b].every((c, k) => Number.isFinite(c.frequencyHz) && c.decayDbPerS >= 0 && levels[k]! <= settings.peakDb + settings.peakMarginDb)
+    const physical = [a, b].every((c, k) => Number.isFinite(c.frequencyHz) && c.decayDbPerS >= 0 && levels[k]! <= settings.peakDb + settings.peakMarginDb && levels[k]! >= settings.minAmplitudeDb)
     if (!physical || tremoloRate) return null
     if (Math.min(a.snrDb, b.snrDb) < MIN_SNR_DB || Math.abs(levels[0]! - levels[1]!) > MAX_LEVEL_GAP_DB) return null
     if (gapHz >= MAIN_LOBE_BINS / 2 / p.windowS || gapHz * usedS < MIN_BEATS) return null
