@@ -31,7 +31,7 @@ const MIN_SNR_DB = 20
 /** The weaker component at most this far under the stronger, dB. */
 const MAX_LEVEL_GAP_DB = 25
 /** Only partials within this of the strongest are examined (the tuned ones; each costs a pencil fit), dB. */
-const MAX_BELOW_STRONGEST_DB = 40
+const MAX_BELOW_STRONGEST_DB = 30
 /** Half-width of the band searched around the FFT reading, Hz (a bar's twisting mode lies a few Hz off). */
 const SEARCH_HALF_WIDTH_HZ = 8
 /** Longest span the pair is measured over, s. */
@@ -45,7 +45,7 @@ const MAX_DECAY_MISMATCH = 0.6
 /**
  * Two partials inside one FFT main lobe (a bell's or a steel note's doublet, a bar's twisting
  * mode beside a bending mode) reported as two, each with its own frequency, decay and
- * amplitude from the matrix pencil (separateDoublet, Hua & Sarkar 1990). Partials within 40 dB
+ * amplitude from the matrix pencil (separateDoublet, Hua & Sarkar 1990). Partials within 30 dB
  * of the strongest are examined; one is split
  * only when both components stand ≥ 20 dB over the band's noise and within 25 dB of each
  * other, their gap is below the STFT window's resolution (half its main lobe) yet holds at
