@@ -5,6 +5,7 @@ import { chooseWindow } from './chooseWindow'
 import { dropDuplicates } from './dropDuplicates'
 import { dropSidebands } from './dropSidebands'
 import { ENGINE_SETTINGS as S } from './engineSettings'
+import { findShortPartials } from './findShortPartials'
 import { fundamentalWithoutTarget } from './fundamentalWithoutTarget'
 import { guardPartials } from './guardPartials'
 import { locateStrike } from './locateStrike'
@@ -15,7 +16,9 @@ import { prepareMono } from './prepareMono'
 import { resolveTarget } from './resolveTarget'
 import { resolveTemplate } from './resolveTemplate'
 import { roundResult } from './roundResult'
-import type { AnalysisResult, AnalyzeOptions, FftPartial, MeasuredPartial } from './types'
+import { splitDoublets, type DoubletCandidate } from './splitDoublets'
+import { templateSearchWindows } from './templateSearchWindows'
+import type { AnalysisResult, AnalyzeOptions, MeasuredPartial } from './types'
 import { ENGINE_VERSION } from './version'
 import { windowNeedsFor } from './windowNeedsFor'
 
@@ -59,12 +62,31 @@ export function analyzeChannels(
   warnings.push(...guarded.warnings)
   const dynamicRangeDb = source.lossy ? S.lossyRangeDb : S.peakThresholdDb
   const strongest = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb))
-  const fftPartials: FftPartial[] = dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb)))
-    .map(({ refineSpanS: _span, windowS: _window, strongestFrameDb: _frame, modulationFrom: _from, ...p }) => p)
+  const fftPartials: DoubletCandidate[] = dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb)))
+    .map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }) => p)
+  // Two partials inside one main lobe are reported as two, read by the matrix pencil.
+  const doublets = splitDoublets(mono, sampleRate, fftPartials, {
+    startIndex: strike.startIndex, endIndex: mono.length, onsetIndex: strike.onsetIndex, peakDb: 20 * Math.log10(peak), peakMarginDb: S.peakMarginDb, minAmplitudeDb: strongest - dynamicRangeDb,
+  })
   // The second, independent reading of every partial: cross-check and uncertainty.
-  const annotated = annotatePartials(mono, sampleRate, fftPartials, { startIndex: strike.startIndex, endIndex: mono.length })
-  const partials: MeasuredPartial[] = annotated.partials
+  const annotated = annotatePartials(mono, sampleRate, doublets.single, { startIndex: strike.startIndex, endIndex: mono.length })
+  const partials: MeasuredPartial[] = [
+    ...annotated.partials.map(({ windowS: _window, modulationFrom: _from, ...p }) => p),
+    ...doublets.pairs,
+  ].sort((a, b) => a.frequencyHz - b.frequencyHz)
   warnings.push(...annotated.warnings)
+  if (template && expectedHz) {
+    // Template partials the tracks missed, looked for in the first tens of ms after the attack.
+    const windows = templateSearchWindows(expectedHz, template.searchWindowCents)
+    const expected = template.partials.map((spec, i) => ({ label: spec.label, targetHz: expectedHz[i]!, windowCents: windows[i]! }))
+    const short = findShortPartials(mono, sampleRate, partials, expected, {
+      startIndex: strike.startIndex, endIndex: mono.length, onsetIndex: strike.onsetIndex,
+      maxAmplitudeDb: 20 * Math.log10(peak) + S.peakMarginDb, minAmplitudeDb: strongest - dynamicRangeDb, maxDecayDbPerS: S.maxDecayDbPerS,
+    })
+    partials.push(...short.partials)
+    partials.sort((a, b) => a.frequencyHz - b.frequencyHz)
+    warnings.push(...short.warnings)
+  }
   if (source.lossy) warnings.push(`lossy audio format: partials more than ${dynamicRangeDb} dB under the strongest are not reported`)
   if (partials.length === 0) warnings.push('no partials found above the noise floor')
 

@@ -1,4 +1,5 @@
 import { centsBetween } from './centsBetween'
+import { templateSearchWindows } from './templateSearchWindows'
 import type { MeasuredPartial, PartialMatch, RatioTemplateInput } from './types'
 
 /**
@@ -22,12 +23,10 @@ export function matchTemplate(
   const shiftCents = hasTemperature
     ? template.temperatureCoefficientCentsPerC * (temperatureC - template.referenceTemperatureC)
     : 0
+  const windows = templateSearchWindows(targets, template.searchWindowCents)
   return specs.map((spec, i) => {
     const targetHz = targets[i]!
-    let windowCents = template.searchWindowCents
-    for (let j = 0; j < targets.length; j++) {
-      if (j !== i) windowCents = Math.min(windowCents, Math.abs(centsBetween(targets[j]!, targetHz)) / 2)
-    }
+    const windowCents = windows[i]!
     let best: MeasuredPartial | null = null
     for (const p of partials) {
       if (Math.abs(centsBetween(p.frequencyHz, targetHz)) > windowCents) continue

@@ -1,0 +1,118 @@
+import { MAIN_LOBE_BINS } from './chooseWindow'
+import type { TrackMeasurement } from './measureTrack'
+import { pencilPartial } from './pencilPartial'
+import { separateDoublet } from './separateDoublet'
+import type { FftPartial, MeasuredPartial } from './types'
+
+/** What the doublet check needs of an FFT partial: its STFT window and where its modulation came from. */
+export type DoubletCandidate = FftPartial & Pick<TrackMeasurement, 'windowS' | 'modulationFrom'>
+
+export interface DoubletSplitSettings {
+  /** First sample after the attack, one past the last usable sample, and the onset (amplitudes refer to it). */
+  startIndex: number
+  endIndex: number
+  onsetIndex: number
+  /** The file's peak level, dB re full scale, and the margin an amplitude may exceed it by. */
+  peakDb: number
+  peakMarginDb: number
+  /** Floor of the reported range, dB re full scale: both components must reach it. */
+  minAmplitudeDb: number
+}
+
+export interface SplitDoublets<P extends DoubletCandidate> {
+  /** FFT partials left as they were. */
+  single: P[]
+  /** Partials that were two: each component on its own, read by the matrix pencil. */
+  pairs: MeasuredPartial[]
+}
+
+/** Both components this far over the band's noise, dB. */
+const MIN_SNR_DB = 20
+/** The weaker component at most this far under the stronger, dB. */
+const MAX_LEVEL_GAP_DB = 25
+/** Only partials within this of the strongest are examined (the tuned ones; each costs a pencil fit), dB. */
+const MAX_BELOW_STRONGEST_DB = 30
+/** Half-width of the band searched around the FFT reading, Hz (a bar's twisting mode lies a few Hz off). */
+const SEARCH_HALF_WIDTH_HZ = 8
+/** Longest span the pair is measured over, s. */
+const MAX_SPAN_S = 1.5
+/** The pencil resolves a pair when the span holds this many beats and the gap is this many bound widths. */
+const MIN_BEATS = 1
+const MIN_BOUND_WIDTHS = 8
+/** The energy-dominant component's decay may differ from the FFT track's by this fraction of it. */
+const MAX_DECAY_MISMATCH = 0.6
+
+/**
+ * Two partials inside one FFT main lobe (a bell's or a steel note's doublet, a bar's twisting
+ * mode beside a bending mode) reported as two, each with its own frequency, decay and
+ * amplitude from the matrix pencil (separateDoublet, Hua & Sarkar 1990). Partials within 30 dB
+ * of the strongest are examined; one is split
+ * only when both components stand ≥ 20 dB over the band's noise and within 25 dB of each
+ * other, their gap is below the STFT window's resolution (half its main lobe) yet holds at
+ * least one beat over the span and 8 bound widths, the pair's power centroid lies within
+ * the gap of the FFT reading, each component holds 20 dB of SNR over a whole beat (so an
+ * attack transient beside a partial is no doublet), the component with most of the energy
+ * (∝ A²/decay) decays as the FFT track did (within 60 %), and the gap is not the rate of a tremolo whose sidebands the
+ * FFT path found (nor a pair it already resolved). The two beat at their difference
+ * (`beatHz`, `modulationHz`, depth 20·log10((A₁ + A₂)/|A₁ − A₂|)).
+ */
+export function splitDoublets<P extends DoubletCandidate>(
+  signal: Float64Array,
+  sampleRate: number,
+  partials: readonly P[],
+  settings: DoubletSplitSettings,
+): SplitDoublets<P> {
+  const { startIndex, onsetIndex } = settings
+  const endIndex = Math.min(settings.endIndex, signal.length)
+  if (!(startIndex >= 0 && startIndex < endIndex)) throw new RangeError('splitDoublets needs a span inside the signal')
+  const single: P[] = []
+  const pairs: MeasuredPartial[] = []
+  const floorDb = Math.max(-Infinity, ...partials.map(p => p.amplitudeDb)) - MAX_BELOW_STRONGEST_DB
+  for (const p of partials) {
+    const split = p.modulationFrom === 'pair' || p.snrDb < MIN_SNR_DB || p.amplitudeDb < floorDb ? null : splitOne(p)
+    if (split) pairs.push(...split)
+    else single.push(p)
+  }
+  return { single, pairs }
+
+  function splitOne(p: P): [MeasuredPartial, MeasuredPartial] | null {
+    let neighbourHz = Infinity
+    for (const q of partials) if (q !== p) neighbourHz = Math.min(neighbourHz, Math.abs(q.frequencyHz - p.frequencyHz))
+    const halfWidthHz = Math.min(SEARCH_HALF_WIDTH_HZ, neighbourHz / 2, 0.45 * p.frequencyHz, 0.45 * (sampleRate / 2 - p.frequencyHz))
+    if (!(halfWidthHz > 0.5)) return null
+    const decay = Math.max(p.decayDbPerS, 0.5)
+    const spanS = Math.min(MAX_SPAN_S, Math.max(0.1, (Math.min(p.snrDb, 70) + 10) / decay))
+    const end = Math.min(endIndex, startIndex + Math.round(spanS * sampleRate))
+    if (end - startIndex < 256) return null
+    let pair: ReturnType<typeof separateDoublet> = null
+    try {
+      pair = separateDoublet(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, referenceIndex: onsetIndex })
+    }
+    catch {
+      // A degenerate band (digital silence: a singular system) is no doublet.
+      return null
+    }
+    if (!pair) return null
+    const [a, b] = pair
+    const usedS = (end - startIndex) / sampleRate
+    const gapHz = b.frequencyHz - a.frequencyHz
+    const levels = [a, b].map(c => 20 * Math.log10(c.amplitude))
+    const power = a.amplitude ** 2 + b.amplitude ** 2
+    const centroidHz = (a.frequencyHz * a.amplitude ** 2 + b.frequencyHz * b.amplitude ** 2) / power
+    const tremoloRate = p.modulationFrom === 'sidebands' && p.modulationHz !== null && Math.abs(gapHz - p.modulationHz) < 0.2 * p.modulationHz
+    const physical = [a, b].every((c, k) => Number.isFinite(c.frequencyHz) && c.decayDbPerS >= 0 && levels[k]! <= settings.peakDb + settings.peakMarginDb && levels[k]! >= settings.minAmplitudeDb)
+    if (!physical || tremoloRate) return null
+    if (Math.min(a.snrDb, b.snrDb) < MIN_SNR_DB || Math.abs(levels[0]! - levels[1]!) > MAX_LEVEL_GAP_DB) return null
+    if (gapHz >= MAIN_LOBE_BINS / 2 / p.windowS || gapHz * usedS < MIN_BEATS) return null
+    if (gapHz < MIN_BOUND_WIDTHS * Math.hypot(a.frequencySdHz, b.frequencySdHz)) return null
+    if (Math.abs(centroidHz - p.frequencyHz) > gapHz) return null
+    // Each holds its SNR over a whole beat (an attack transient beside a partial dies first).
+    if ([a, b].some(c => c.snrDb - c.decayDbPerS / gapHz < MIN_SNR_DB)) return null
+    // The component holding most of the energy (∝ A² / decay) decays as the FFT track did.
+    const [dominant] = [a, b].sort((x, y) => y.amplitude ** 2 / Math.max(y.decayDbPerS, 0.1) - x.amplitude ** 2 / Math.max(x.decayDbPerS, 0.1))
+    if (Math.abs(dominant!.decayDbPerS - p.decayDbPerS) > Math.max(MAX_DECAY_MISMATCH * p.decayDbPerS, 2)) return null
+    const depthDb = Math.min(60, 20 * Math.log10((a.amplitude + b.amplitude) / Math.max(Math.abs(a.amplitude - b.amplitude), 1e-12)))
+    const context = { startS: startIndex / sampleRate, endS: end / sampleRate, beatHz: gapHz, modulationHz: gapHz, modulationDepthDb: depthDb }
+    return [pencilPartial(a, context), pencilPartial(b, context)]
+  }
+}
