@@ -24,11 +24,11 @@ export function dtftPair(signal: Float64Array, f1Hz: number, f2Hz: number, sampl
     b2 = b1
     b1 = b0
   }
-  return [finish(a1, a2, omega1, n), finish(b1, b2, omega2, n)]
+  return [finishGoertzel(a1, a2, omega1, n), finishGoertzel(b1, b2, omega2, n)]
 }
 
-/** y[N−1] = s1 − e^{−iω} s2, referenced to n = 0 by e^{−iω(N−1)}. */
-function finish(s1: number, s2: number, omega: number, n: number): Complex {
+/** A Goertzel recurrence's last two states as the DTFT value: y[N−1] = s1 − e^{−iω} s2, referenced to n = 0 by e^{−iω(N−1)} (as dtftAt). */
+export function finishGoertzel(s1: number, s2: number, omega: number, n: number): Complex {
   const yRe = s1 - Math.cos(omega) * s2
   const yIm = Math.sin(omega) * s2
   const phase = -omega * (n - 1)

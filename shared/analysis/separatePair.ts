@@ -1,6 +1,6 @@
 import { blackmanHarris } from './blackmanHarris'
 import { dtftAt, type Complex } from './dtftAt'
-import { dtftPair } from './dtftPair'
+import { dtftPair, finishGoertzel } from './dtftPair'
 import { fitLine } from './fitLine'
 
 /** Envelopes of two close partials, separated. */
@@ -76,16 +76,36 @@ export function separatePair(
   // Long window over the span, with each partial's own decaying window gain.
   const length = spanEnd - spanStart
   const long = blackmanHarris(length)
-  const gains = [new Float64Array(length), new Float64Array(length)] as const
-  for (let k = 0; k < 2; k++) {
-    const alpha = (decayDbPerS[k]! * Math.LN10) / 20
-    let envelope = Math.exp((-alpha * (spanStart - onsetIndex)) / sampleRate)
-    const perSample = Math.exp(-alpha / sampleRate)
-    const gain = gains[k]!
-    for (let n = 0; n < length; n++) {
-      gain[n] = long[n]! * envelope
-      envelope *= perSample
-    }
+  // Σ gₖ[n] and the DTFT of each gain sequence gₖ[n] = w[n]·e^{−αₖ(t_n − t_onset)} at the
+  // other partial's offset, in one pass without storing the sequences (Goertzel 1958).
+  const alpha = decayDbPerS.map(d => (d * Math.LN10) / 20)
+  let envelope0 = Math.exp((-alpha[0]! * (spanStart - onsetIndex)) / sampleRate)
+  let envelope1 = Math.exp((-alpha[1]! * (spanStart - onsetIndex)) / sampleRate)
+  const perSample0 = Math.exp(-alpha[0]! / sampleRate)
+  const perSample1 = Math.exp(-alpha[1]! / sampleRate)
+  const omegaUp = (2 * Math.PI * (f1Hz - f2Hz)) / sampleRate
+  const omegaDown = (2 * Math.PI * (f2Hz - f1Hz)) / sampleRate
+  const coeffUp = 2 * Math.cos(omegaUp)
+  const coeffDown = 2 * Math.cos(omegaDown)
+  let g1 = 0
+  let g2 = 0
+  let up1 = 0
+  let up2 = 0
+  let down1 = 0
+  let down2 = 0
+  for (let n = 0; n < length; n++) {
+    const gain0 = long[n]! * envelope0
+    const gain1 = long[n]! * envelope1
+    envelope0 *= perSample0
+    envelope1 *= perSample1
+    g1 += gain0
+    g2 += gain1
+    const up0 = gain1 + coeffUp * up1 - up2 // DTFT of g₂ at f1 − f2
+    up2 = up1
+    up1 = up0
+    const down0 = gain0 + coeffDown * down1 - down2 // DTFT of g₁ at f2 − f1
+    down2 = down1
+    down1 = down0
   }
   let windowed = windowedSpan
   if (!windowed || windowed.length !== length) {
@@ -93,12 +113,10 @@ export function separatePair(
     for (let n = 0; n < length; n++) windowed[n] = signal[spanStart + n]! * long[n]!
   }
   const [x1, x2] = dtftPair(windowed, f1Hz, f2Hz, sampleRate)
-  const g1 = gains[0].reduce((s, v) => s + v, 0)
-  const g2 = gains[1].reduce((s, v) => s + v, 0)
   const [a1, a2] = solve2(
     real(g1 / 2),
-    scale(dtftAt(gains[1], f1Hz - f2Hz, sampleRate), 0.5),
-    scale(dtftAt(gains[0], f2Hz - f1Hz, sampleRate), 0.5),
+    scale(finishGoertzel(up1, up2, omegaUp, length), 0.5),
+    scale(finishGoertzel(down1, down2, omegaDown, length), 0.5),
     real(g2 / 2),
     x1,
     x2,
