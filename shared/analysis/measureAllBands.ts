@@ -31,13 +31,20 @@ export function measureAllBands(
   const measured: BandMeasurement[] = []
   let merged: TrackMeasurement[] = []
   // Tracks of one band often share their long span (frame times on the hop grid): window it once.
+  // A span is used only while its track is measured, so an evicted span's memory is
+  // reused for the next one rather than allocated afresh (long spans are ~0.8 MB each).
   const cache = new Map<string, Float64Array>()
   const windowed = (start: number, length: number) => {
     const key = `${start}:${length}`
     let span = cache.get(key)
     if (!span) {
-      span = windowSpan(signal, start, length, 0, 0).windowed
-      if (cache.size >= 16) cache.delete(cache.keys().next().value!)
+      let spare: Float64Array | undefined
+      if (cache.size >= 16) {
+        const oldest = cache.keys().next().value!
+        spare = new Float64Array(cache.get(oldest)!.buffer)
+        cache.delete(oldest)
+      }
+      span = windowSpan(signal, start, length, 0, 0, spare).windowed
       cache.set(key, span)
     }
     return span

@@ -141,7 +141,7 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     }
     if (pair) {
       const beatHz = Math.abs(pair[1].frequencyHz - pair[0].frequencyHz)
-      const separated = separatePair(signal, sampleRate, spanStart, spanEnd, context.onsetIndex, pair[0].frequencyHz, pair[1].frequencyHz)
+      const separated = separatePair(signal, sampleRate, spanStart, spanEnd, context.onsetIndex, pair[0].frequencyHz, pair[1].frequencyHz, windowed)
       const linear = separated ? separated.amplitude : [2 * pair[0].magnitude / gain, 2 * pair[1].magnitude / gain]
       // Two partials beat between A₁ + A₂ and |A₁ − A₂|.
       const depth = 20 * Math.log10((linear[0]! + linear[1]!) / Math.max(Math.abs(linear[0]! - linear[1]!), 1e-12))

@@ -1,5 +1,6 @@
 import { blackmanHarris } from './blackmanHarris'
 import { dtftAt, type Complex } from './dtftAt'
+import { dtftPair, finishGoertzel } from './dtftPair'
 import { fitLine } from './fitLine'
 
 /** Envelopes of two close partials, separated. */
@@ -33,6 +34,8 @@ function solve2(a: Complex, b: Complex, c: Complex, d: Complex, p: Complex, q: C
  * hop a quarter of that. Each dB envelope gets its own least-squares decay line; the
  * onset amplitudes come from the same solve on the long window over the whole span,
  * with each partial's window gain Σ w[n]·e^{−α(t_n − t_onset)}.
+ * `windowedSpan`, when given, is `signal[spanStart … spanEnd)` already times the long
+ * Blackman–Harris window (the caller's long window, reused rather than made again).
  * Returns null when the span holds fewer than three frames.
  */
 export function separatePair(
@@ -43,6 +46,7 @@ export function separatePair(
   onsetIndex: number,
   f1Hz: number,
   f2Hz: number,
+  windowedSpan?: Float64Array,
 ): SeparatedPair | null {
   const deltaHz = f2Hz - f1Hz
   const frameLength = Math.min(Math.round((2.5 / deltaHz) * sampleRate), Math.floor((spanEnd - spanStart) / 1.5))
@@ -59,7 +63,8 @@ export function separatePair(
   const levels: [number[], number[]] = [[], []]
   for (let start = spanStart; start + frameLength <= spanEnd; start += hop) {
     for (let i = 0; i < frameLength; i++) frame[i] = signal[start + i]! * w[i]!
-    const [c1, c2] = solve2(real(w0), wUp, wDown, real(w0), dtftAt(frame, f1Hz, sampleRate), dtftAt(frame, f2Hz, sampleRate))
+    const [x1, x2] = dtftPair(frame, f1Hz, f2Hz, sampleRate)
+    const [c1, c2] = solve2(real(w0), wUp, wDown, real(w0), x1, x2)
     times.push((start + frameLength / 2) / sampleRate)
     levels[0].push(20 * Math.log10(Math.max(Math.hypot(c1.re, c1.im), 1e-12)))
     levels[1].push(20 * Math.log10(Math.max(Math.hypot(c2.re, c2.im), 1e-12)))
@@ -71,28 +76,50 @@ export function separatePair(
   // Long window over the span, with each partial's own decaying window gain.
   const length = spanEnd - spanStart
   const long = blackmanHarris(length)
-  const windowed = new Float64Array(length)
-  const gains = [new Float64Array(length), new Float64Array(length)] as const
-  for (let k = 0; k < 2; k++) {
-    const alpha = (decayDbPerS[k]! * Math.LN10) / 20
-    let envelope = Math.exp((-alpha * (spanStart - onsetIndex)) / sampleRate)
-    const perSample = Math.exp(-alpha / sampleRate)
-    const gain = gains[k]!
-    for (let n = 0; n < length; n++) {
-      gain[n] = long[n]! * envelope
-      envelope *= perSample
-    }
+  // Σ gₖ[n] and the DTFT of each gain sequence gₖ[n] = w[n]·e^{−αₖ(t_n − t_onset)} at the
+  // other partial's offset, in one pass without storing the sequences (Goertzel 1958).
+  const alpha = decayDbPerS.map(d => (d * Math.LN10) / 20)
+  let envelope0 = Math.exp((-alpha[0]! * (spanStart - onsetIndex)) / sampleRate)
+  let envelope1 = Math.exp((-alpha[1]! * (spanStart - onsetIndex)) / sampleRate)
+  const perSample0 = Math.exp(-alpha[0]! / sampleRate)
+  const perSample1 = Math.exp(-alpha[1]! / sampleRate)
+  const omegaUp = (2 * Math.PI * (f1Hz - f2Hz)) / sampleRate
+  const omegaDown = (2 * Math.PI * (f2Hz - f1Hz)) / sampleRate
+  const coeffUp = 2 * Math.cos(omegaUp)
+  const coeffDown = 2 * Math.cos(omegaDown)
+  let g1 = 0
+  let g2 = 0
+  let up1 = 0
+  let up2 = 0
+  let down1 = 0
+  let down2 = 0
+  for (let n = 0; n < length; n++) {
+    const gain0 = long[n]! * envelope0
+    const gain1 = long[n]! * envelope1
+    envelope0 *= perSample0
+    envelope1 *= perSample1
+    g1 += gain0
+    g2 += gain1
+    const up0 = gain1 + coeffUp * up1 - up2 // DTFT of g₂ at f1 − f2
+    up2 = up1
+    up1 = up0
+    const down0 = gain0 + coeffDown * down1 - down2 // DTFT of g₁ at f2 − f1
+    down2 = down1
+    down1 = down0
   }
-  for (let n = 0; n < length; n++) windowed[n] = signal[spanStart + n]! * long[n]!
-  const g1 = gains[0].reduce((s, v) => s + v, 0)
-  const g2 = gains[1].reduce((s, v) => s + v, 0)
+  let windowed = windowedSpan
+  if (!windowed || windowed.length !== length) {
+    windowed = new Float64Array(length)
+    for (let n = 0; n < length; n++) windowed[n] = signal[spanStart + n]! * long[n]!
+  }
+  const [x1, x2] = dtftPair(windowed, f1Hz, f2Hz, sampleRate)
   const [a1, a2] = solve2(
     real(g1 / 2),
-    scale(dtftAt(gains[1], f1Hz - f2Hz, sampleRate), 0.5),
-    scale(dtftAt(gains[0], f2Hz - f1Hz, sampleRate), 0.5),
+    scale(finishGoertzel(up1, up2, omegaUp, length), 0.5),
+    scale(finishGoertzel(down1, down2, omegaDown, length), 0.5),
     real(g2 / 2),
-    dtftAt(windowed, f1Hz, sampleRate),
-    dtftAt(windowed, f2Hz, sampleRate),
+    x1,
+    x2,
   )
   return {
     decayDbPerS,

@@ -11,11 +11,19 @@ export interface WindowedSpan {
  * `signal[start … start + length)` times a periodic 4-term Blackman–Harris window (Harris
  * 1978), and the gain Σ w[n]·e^{−α(start + n − referenceIndex)} of that window for a
  * partial decaying at `alphaPerSample` nepers per sample — in one pass and without
- * storing the window, since long spans are windowed once per partial.
+ * storing the window, since long spans are windowed once per partial. `out` (at least
+ * `length` long), when given, receives the windowed span instead of a new array.
  */
-export function windowSpan(signal: Float64Array, start: number, length: number, alphaPerSample: number, referenceIndex: number): WindowedSpan {
+export function windowSpan(
+  signal: Float64Array,
+  start: number,
+  length: number,
+  alphaPerSample: number,
+  referenceIndex: number,
+  out?: Float64Array,
+): WindowedSpan {
   const [a0, a1, a2, a3] = BLACKMAN_HARRIS_COEFFICIENTS
-  const windowed = new Float64Array(length)
+  const windowed = out && out.length >= length ? out.subarray(0, length) : new Float64Array(length)
   const step = (2 * Math.PI) / length
   const cosStep = Math.cos(step)
   const sinStep = Math.sin(step)
