@@ -9,7 +9,7 @@ export interface ParabolicVertex {
 /**
  * Parabolic interpolation of a spectral peak from the dB magnitudes of the bin below
  * (`leftDb`), the maximum (`centreDb`) and the bin above (`rightDb`) — the quadratic
- * interpolation of the log magnitude (Smith & Serra 1987). On a log scale the main lobe
+ * interpolation of the log magnitude (a three-point fit; Grandke 1983, IEEE Trans. Instrum. Meas. 32(2)). On a log scale the main lobe
  * of a smooth window is close to a parabola, so the bias is a small fraction of a bin.
  */
 export function parabolicPeak(leftDb: number, centreDb: number, rightDb: number): ParabolicVertex {

@@ -25,7 +25,7 @@ export interface BandPlanSettings {
  * (as chooseWindow asks of the lowest partial) and above every pair of neighbours
  * (within one list) closer than 1.25 main lobes — with a hop of a quarter window over its first
  * `fastBandFrames` frames. Long windows where partials are low and close, short ones where
- * they are high and die fast (multi-resolution sinusoidal analysis, Levine & Smith 1998).
+ * they are high and die fast (a multi-resolution spectrum: window length chosen per band, as in a constant-Q analysis, Brown 1991, JASA 89(1)).
  */
 export function planBands(
   long: WindowChoice,

@@ -1,7 +1,7 @@
 // An independent plain reading of a recording's spectrum, used to check the engine's
 // fixtures by hand: one Hann window (common practice) over up to `spanS` seconds from
 // 10 ms after the first sample above a tenth of the peak, zero-padded eightfold, peaks
-// located by parabolic interpolation of the dB magnitude (Smith & Serra 1987). It shares
+// located by parabolic interpolation of the dB magnitude (a three-point fit, common practice). It shares
 // no code with shared/analysis beyond the FFT library (fft.js).
 import FFT from 'fft.js'
 
