@@ -1,3 +1,5 @@
+import { finishGoertzel } from './finishGoertzel'
+
 /** A complex value. */
 export interface Complex {
   re: number
@@ -21,12 +23,5 @@ export function dtftAt(signal: Float64Array, frequencyHz: number, sampleRate: nu
     s2 = s1
     s1 = s0
   }
-  // Finish the recurrence: y[N−1] = s1 − e^{−iω} s2 gives Σ x[n] e^{iω(N−1−n)};
-  // multiply by e^{−iω(N−1)} to reference the phase to n = 0.
-  const yRe = s1 - Math.cos(omega) * s2
-  const yIm = Math.sin(omega) * s2
-  const phase = -omega * (n - 1)
-  const c = Math.cos(phase)
-  const s = Math.sin(phase)
-  return { re: yRe * c - yIm * s, im: yRe * s + yIm * c }
+  return finishGoertzel(s1, s2, omega, n)
 }

@@ -1,4 +1,5 @@
 import type { Complex } from './dtftAt'
+import { finishGoertzel } from './finishGoertzel'
 
 /**
  * The DTFT of a real signal at two frequencies in one pass: two Goertzel recurrences
@@ -25,14 +26,4 @@ export function dtftPair(signal: Float64Array, f1Hz: number, f2Hz: number, sampl
     b1 = b0
   }
   return [finishGoertzel(a1, a2, omega1, n), finishGoertzel(b1, b2, omega2, n)]
-}
-
-/** A Goertzel recurrence's last two states as the DTFT value: y[N−1] = s1 − e^{−iω} s2, referenced to n = 0 by e^{−iω(N−1)} (as dtftAt). */
-export function finishGoertzel(s1: number, s2: number, omega: number, n: number): Complex {
-  const yRe = s1 - Math.cos(omega) * s2
-  const yIm = Math.sin(omega) * s2
-  const phase = -omega * (n - 1)
-  const c = Math.cos(phase)
-  const s = Math.sin(phase)
-  return { re: yRe * c - yIm * s, im: yRe * s + yIm * c }
 }

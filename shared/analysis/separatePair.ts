@@ -1,6 +1,7 @@
 import { blackmanHarris } from './blackmanHarris'
 import { dtftAt, type Complex } from './dtftAt'
-import { dtftPair, finishGoertzel } from './dtftPair'
+import { dtftPair } from './dtftPair'
+import { finishGoertzel } from './finishGoertzel'
 import { fitLine } from './fitLine'
 
 /** Envelopes of two close partials, separated. */
