@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm'
 import { certificates } from '../database/schema'
 import type { Executor } from '../database/client'
 import type { CertificateContent } from '../../shared/certificates/content'
-import { hashContent } from './certificates'
+import { hashContent } from './certificate-freeze'
 
 const UNKNOWN_HASH = createHash('sha256').update('no such certificate').digest('hex')
 
