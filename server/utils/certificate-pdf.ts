@@ -1,11 +1,9 @@
-import { createRequire } from 'node:module'
-import { existsSync } from 'node:fs'
-import { dirname, join, resolve, sep } from 'node:path'
 import pdfmake from 'pdfmake'
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
 import QRCode from 'qrcode'
 import type { CertificateContent, CertificatePartial } from '../../shared/certificates/content'
 import { formatCents } from '../../shared/format/numbers'
+import { configurePdfFonts } from './certificate-pdf-fonts'
 
 export type Paper = 'A4' | 'LETTER'
 
@@ -17,50 +15,6 @@ const SPRUCE = '#2f7d5b'
 const KILN = '#c45a1c'
 const SLATE = '#3b62a8'
 const BRASS = '#a9832a'
-
-/**
- * The folder of one complete (not script-split) woff set: pdfmake has no per-glyph
- * fallback, so ¢, −, ±, ° and Δ must all be in the one file. Looked up from the
- * server bundle and from the working directory (the built server does not copy fonts).
- */
-function fontDir(pkg: string): string {
-  const bases = [import.meta.url, join(process.cwd(), 'package.json')]
-  for (const base of bases) {
-    try {
-      const dir = join(dirname(createRequire(base).resolve(`${pkg}/package.json`)), 'fonts', 'complete', 'woff')
-      if (existsSync(dir)) return dir
-    }
-    catch { /* try the next base */ }
-  }
-  const fallback = resolve(process.cwd(), 'node_modules', pkg, 'fonts', 'complete', 'woff')
-  if (existsSync(fallback)) return fallback
-  throw new Error(`The certificate fonts (${pkg}) were not found; run npm ci.`)
-}
-
-let configured = false
-function configure() {
-  if (configured) return
-  const sans = fontDir('@ibm/plex-sans')
-  const mono = fontDir('@ibm/plex-mono')
-  pdfmake.setFonts({
-    Plex: {
-      normal: join(sans, 'IBMPlexSans-Regular.woff'),
-      bold: join(sans, 'IBMPlexSans-SemiBold.woff'),
-      italics: join(sans, 'IBMPlexSans-Italic.woff'),
-      bolditalics: join(sans, 'IBMPlexSans-SemiBoldItalic.woff'),
-    },
-    PlexMono: {
-      normal: join(mono, 'IBMPlexMono-Regular.woff'),
-      bold: join(mono, 'IBMPlexMono-SemiBold.woff'),
-      italics: join(mono, 'IBMPlexMono-Italic.woff'),
-      bolditalics: join(mono, 'IBMPlexMono-SemiBoldItalic.woff'),
-    },
-  })
-  // Only the two font folders may be read; nothing is fetched from the network.
-  pdfmake.setLocalAccessPolicy(path => [sans, mono].some(dir => resolve(path).startsWith(dir + sep)))
-  pdfmake.setUrlAccessPolicy(() => false)
-  configured = true
-}
 
 type Mark = 'within' | 'sharp' | 'flat' | 'missing'
 
@@ -250,7 +204,7 @@ export async function certificateDocument(content: CertificateContent, status: s
 
 /** Renders a certificate to PDF bytes with the embedded Plex fonts. */
 export async function renderCertificatePdf(content: CertificateContent, status: string, paper: Paper = 'A4'): Promise<Uint8Array> {
-  configure()
+  configurePdfFonts()
   const doc = await certificateDocument(content, status, paper)
   const buffer = await pdfmake.createPdf(doc).getBuffer()
   return new Uint8Array(buffer)
