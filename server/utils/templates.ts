@@ -1,7 +1,7 @@
 import { and, asc, desc, eq } from 'drizzle-orm'
 import { ratioTemplates, templateVersions, type TemplateVersion } from '../database/schema'
 import type { Database, Executor } from '../database/client'
-import { STARTER_TEMPLATES } from '../database/seeds/starter-templates'
+import { STARTER_TEMPLATES } from '../data/starter-templates'
 import type { TemplateInput } from '../../shared/schemas/records'
 import { audit } from './audit'
 import { fail } from './http-errors'
@@ -69,7 +69,7 @@ export async function currentVersionOf(db: Executor, workshopId: string, templat
   return row.v
 }
 
-/** The starter library, added to every new workshop in the transaction that creates it. */
-export async function seedStarterTemplates(tx: Executor, workshopId: string, actorId: string | null) {
+/** What every new workshop starts with: the starter ratio-template library, added in the transaction that creates it. */
+export async function addStarterTemplates(tx: Executor, workshopId: string, actorId: string | null) {
   for (const t of STARTER_TEMPLATES) await createTemplateIn(tx, workshopId, actorId, t)
 }

@@ -5,7 +5,7 @@ import { parseWith } from '#shared/validation'
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const { name } = await readValidatedBody(event, parseWith(CreateWorkshopSchema))
-  const workshop = await useDatabase().transaction(tx => createWorkshopFor(tx, user.userId, name, seedNewWorkshop))
+  const workshop = await useDatabase().transaction(tx => createWorkshopFor(tx, user.userId, name, addStarterTemplates))
   setResponseStatus(event, 201)
   return { id: workshop.id, name: workshop.name }
 })

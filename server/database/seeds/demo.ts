@@ -3,8 +3,8 @@ import type { Database } from '../client'
 import { memberships, users, workshops } from '../schema'
 import { findUserByEmail } from '../../utils/accounts'
 import { hashPassword } from '../../utils/passwords'
-import { seedNewWorkshop } from '../../utils/workshop-starter'
 import type { BlobStorage } from '../../utils/storage'
+import { addStarterTemplates } from '../../utils/templates'
 import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_WORKSHOP } from './demo-people'
 import { seedDemoRecords } from './demo-records'
 
@@ -21,7 +21,7 @@ export async function seedDemo(db: Database, storage: BlobStorage) {
       await tx.insert(memberships).values({ workshopId: workshop!.id, userId: user!.id, role: person.role })
     }
     const [ownerRow] = await tx.select({ id: users.id }).from(users).where(eq(users.email, owner.email))
-    await seedNewWorkshop(tx, workshop!.id, ownerRow!.id)
+    await addStarterTemplates(tx, workshop!.id, ownerRow!.id)
     // Drizzle transactions nest (savepoints), so the services' own transactions run inside this one.
     await seedDemoRecords(tx as unknown as Database, storage, workshop!.id)
   })

@@ -1,4 +1,4 @@
-import type { StoredTemplatePartial, TemplateFamily } from '../schema'
+import type { StoredTemplatePartial, TemplateFamily } from '../database/schema'
 
 export interface StarterTemplate {
   family: TemplateFamily
