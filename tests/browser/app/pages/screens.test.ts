@@ -4,19 +4,9 @@ import { encodeWav } from '../../../../shared/analysis/index'
 import { synthStrike } from '../../../../shared/synthesis/synthStrike'
 import { api, signIn } from '../../../integration/support/http'
 import { BASE_URL, DEMO_PASSWORD, launch, screenshot, signInAs, type Page } from '../../support/browser'
+import { ROLES, expectText } from '../../support/screens'
 
 let session: Awaited<ReturnType<typeof launch>>
-
-// What each role may open, from the product notes' role table (owner: everything;
-// supervisor: review and sign-off plus bench rights; benchmaker: the bench; office:
-// sets, buyers, certificates, read everything). The test server is a production
-// build, so the development-only Mailbox is never among them.
-const ROLES = {
-  owner: { email: 'owner@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team'], forbidden: [] },
-  supervisor: { email: 'supervisor@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team'], forbidden: [] },
-  benchmaker: { email: 'bench@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Templates', 'Team'], forbidden: ['/review', '/certificates'] },
-  office: { email: 'office@tonewright.test', nav: ['Pieces', 'Sets', 'Templates', 'Certificates', 'Team'], forbidden: ['/bench', '/review'] },
-} as const
 
 /** The screens built here, with the heading each opens with. */
 const HEADINGS: Record<string, string> = { '/pieces': 'Pieces', '/sets': 'Sets', '/review': 'Review', '/templates': 'Templates', '/team': 'Team' }
@@ -96,64 +86,6 @@ describe('screens by role', () => {
       await page.close()
     })
   }
-})
-
-describe('sets', () => {
-  it('office creates a set through the form, with a live count of the pieces the range makes', async () => {
-    const page = await session.newPage()
-    await signInAs(page, ROLES.office.email)
-    await page.goto(`${BASE_URL}/sets/new`)
-    await page.getByRole('heading', { name: 'New set' }).waitFor()
-    const name = `Concert marimba ${randomUUID().slice(0, 6)}`
-    await page.getByLabel('Set name').fill(name)
-    await page.getByLabel('Model').fill('Fieldfare 4.3')
-    await page.getByLabel('Serial number').fill(`FF-${randomUUID().slice(0, 8)}`)
-    await page.getByLabel('Buyer\'s name').fill('Rowan Leckie')
-    await page.getByLabel('Organisation (optional)').fill('Eastmere Youth Percussion')
-    await page.getByLabel('Buyer\'s e-mail').fill('rowan@example.test')
-    await page.getByLabel('From note').fill('A2')
-    await page.getByLabel('To note').fill('C7')
-    // source: product notes: a 4.3-octave marimba, A2 to C7 chromatic, is one set of 52 pieces
-    await expectText(page.getByTestId('range-preview'), /^52 pieces/)
-    await page.getByLabel('Chromatic (with accidentals)').uncheck()
-    // common practice: naturals only from A2 to C7 are A2, B2, four octaves of seven, and C7: 2 + 28 + 1 = 31
-    await expectText(page.getByTestId('range-preview'), /^31 pieces/)
-    await page.getByLabel('Chromatic (with accidentals)').check()
-    await page.getByLabel('To note').fill('C2')
-    await expectText(page.getByTestId('range-preview'), /runs backwards/)
-    await page.getByLabel('To note').fill('C7')
-    await page.getByLabel('Ratio template').selectOption({ label: 'Marimba bar, triple (1 : 4 : 10) (v1)' })
-    await screenshot(page, 'set-new-office')
-    await page.getByRole('button', { name: 'Create set and its pieces' }).click()
-    await page.waitForURL(/\/sets\/[0-9a-f-]{36}$/)
-    await page.getByRole('heading', { name, level: 1 }).waitFor()
-    await page.getByTestId('set-cell').nth(51).waitFor()
-    expect(await page.getByTestId('set-cell').count()).toBe(52)
-    expect(await page.getByTestId('set-cell').first().innerText()).toContain('A2')
-    expect(await page.getByTestId('set-cell').last().innerText()).toContain('C7')
-    expect(await page.getByRole('button', { name: 'Mark shipped' }).isDisabled()).toBe(true)
-    await screenshot(page, 'set-page-new')
-    await page.goto(`${BASE_URL}/sets`)
-    await page.getByRole('link', { name }).waitFor()
-    await screenshot(page, 'sets-office')
-    await page.goto(`${BASE_URL}/pieces?q=${encodeURIComponent(name)}`)
-    await expectText(page.getByTestId('pieces-count'), /of 52 pieces · page 1 of 3/)
-    await page.getByRole('button', { name: 'Next →' }).click()
-    await page.waitForURL(url => url.searchParams.get('page') === '2')
-    await expectText(page.getByTestId('pieces-count'), /^26–50 of 52/)
-    await page.close()
-  })
-
-  it('refuses an empty form with plain sentences beside the fields', async () => {
-    const page = await session.newPage()
-    await signInAs(page, ROLES.office.email)
-    await page.goto(`${BASE_URL}/sets/new`)
-    await page.getByRole('button', { name: 'Create set and its pieces' }).click()
-    await expectText(page.getByRole('alert').filter({ hasText: 'Name the set' }), /Name the set/)
-    await expectText(page.getByRole('alert').filter({ hasText: 'template' }), /Choose a template/)
-    expect(page.url()).toMatch(/\/sets\/new$/)
-    await page.close()
-  })
 })
 
 describe('review', () => {
@@ -273,53 +205,3 @@ describe('pieces', () => {
     await page.close()
   })
 })
-
-describe('templates', () => {
-  it('owner creates a template with a dynamic partial list and edits it into a second version', async () => {
-    const page = await session.newPage()
-    await signInAs(page, ROLES.owner.email)
-    await page.goto(`${BASE_URL}/templates`)
-    await page.getByRole('heading', { name: 'Templates', level: 1 }).waitFor()
-    await page.getByRole('heading', { name: 'Bell', exact: true }).waitFor()
-    await screenshot(page, 'templates-owner')
-    await page.getByRole('link', { name: 'New template' }).click()
-    const name = `Check chime ${randomUUID().slice(0, 6)}`
-    await page.getByLabel('Family').selectOption('tube')
-    await page.getByLabel('Template name').fill(name)
-    await page.getByRole('button', { name: 'Add a partial' }).click()
-    await page.getByLabel('Partial 2 name').fill('second')
-    await page.getByLabel('Ratio').nth(1).fill('2.76')
-    await page.getByLabel('Tolerance ±¢').nth(1).fill('8')
-    await page.getByLabel('Source of the values').fill('Invented for the browser check.')
-    await page.getByRole('button', { name: 'Create template' }).click()
-    await page.getByRole('heading', { name, level: 1 }).waitFor()
-    expect(await page.getByTestId('template-versions').locator('li').count()).toBe(1)
-    await page.getByRole('button', { name: /Edit \(makes version 2\)/ }).click()
-    await page.getByLabel('Tolerance ±¢').nth(1).fill('6')
-    await screenshot(page, 'template-edit')
-    await page.getByRole('button', { name: 'Save as a new version' }).click()
-    await expect.poll(() => page.getByTestId('template-versions').locator('li').count()).toBe(2)
-    expect(await page.getByTestId('template-partials').innerText()).toContain('±6 ¢')
-    expect(await page.getByTestId('template-versions').locator('li').last().innerText()).toContain('±8 ¢')
-    expect(await page.getByTestId('template-source').innerText()).toContain('Invented for the browser check.')
-    await screenshot(page, 'template-page')
-    await page.close()
-  })
-
-  it('a benchmaker reads templates but gets no edit controls', async () => {
-    const page = await session.newPage()
-    await signInAs(page, ROLES.benchmaker.email)
-    await page.goto(`${BASE_URL}/templates`)
-    await page.getByTestId('template-card').first().waitFor()
-    expect(await page.getByRole('link', { name: 'New template' }).count()).toBe(0)
-    await page.getByTestId('template-card').first().getByRole('link').click()
-    await page.getByTestId('template-source').waitFor()
-    expect(await page.getByRole('button', { name: /Edit/ }).count()).toBe(0)
-    await page.close()
-  })
-})
-
-async function expectText(locator: import('playwright-core').Locator, pattern: RegExp) {
-  await locator.first().waitFor()
-  await expect.poll(() => locator.first().innerText()).toMatch(pattern)
-}

@@ -1,0 +1,19 @@
+import { expect } from 'vitest'
+import type { Locator } from 'playwright-core'
+
+// What each role may open, from the product notes' role table (owner: everything;
+// supervisor: review and sign-off plus bench rights; benchmaker: the bench; office:
+// sets, buyers, certificates, read everything). The test server is a production
+// build, so the development-only Mailbox is never among them.
+export const ROLES = {
+  owner: { email: 'owner@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team'], forbidden: [] },
+  supervisor: { email: 'supervisor@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team'], forbidden: [] },
+  benchmaker: { email: 'bench@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Templates', 'Team'], forbidden: ['/review', '/certificates'] },
+  office: { email: 'office@tonewright.test', nav: ['Pieces', 'Sets', 'Templates', 'Certificates', 'Team'], forbidden: ['/bench', '/review'] },
+} as const
+
+/** Waits for the first match and then for its text to match the pattern. */
+export async function expectText(locator: Locator, pattern: RegExp) {
+  await locator.first().waitFor()
+  await expect.poll(() => locator.first().innerText()).toMatch(pattern)
+}
