@@ -1,5 +1,5 @@
 // Class: nothing is half-saved or left dangling — the app connects to PostgreSQL as a
-// role that owns its schema but is not a superuser (scripts/lib.sh: ensure_app_role).
+// role that owns its schema but is not a superuser (scripts/lib-postgres.sh: ensure_app_role).
 import { afterAll, describe, expect, it } from 'vitest'
 import { testSql } from '../support/mail'
 
