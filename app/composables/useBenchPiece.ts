@@ -36,13 +36,14 @@ export async function useBenchSet(piece: Ref<BenchPiece | null | undefined>) {
   const bench = useBenchStore()
   const api = useApiFetch()
   const setIdOfPiece = computed(() => piece.value?.set.id ?? null)
+  // Before the await: after it the component instance is no longer current, and a watcher made then would outlive the page.
+  watch(setIdOfPiece, (id) => {
+    if (id) bench.setId = id
+  })
   const { data: set, refresh: refreshSet } = await useAsyncData(
     () => `bench-piece-set-${setIdOfPiece.value ?? 'none'}`,
     () => (setIdOfPiece.value ? api<BenchSet>(`/api/sets/${setIdOfPiece.value}`) : Promise.resolve(null)),
     { watch: [setIdOfPiece] },
   )
-  watch(setIdOfPiece, (id) => {
-    if (id) bench.setId = id
-  })
   return { set, refreshSet }
 }
