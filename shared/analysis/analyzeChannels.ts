@@ -13,6 +13,7 @@ import { measureAllBands } from './measureAllBands'
 import { validateAnalyzeOptions } from './parseAnalyzeOptions'
 import { planBands } from './planBands'
 import { prepareMono } from './prepareMono'
+import { reportFloor } from './reportFloor'
 import { resolveTarget } from './resolveTarget'
 import { resolveTemplate } from './resolveTemplate'
 import { roundResult } from './roundResult'
@@ -50,17 +51,18 @@ export function analyzeChannels(
     ? planBands(long, [], sampleRate, strike, range, { ...S, shortestWindowS: Infinity })
     : planBands(long, needs.neighbourLists, sampleRate, strike, range, S)
 
-  const { measured, merged } = measureAllBands(mono, sampleRate, strike, bands, S)
-  const guarded = guardPartials(merged, {
+  const bounds = {
     peakDb: 20 * Math.log10(peak),
     peakMarginDb: S.peakMarginDb,
     sampleRate,
     minFrequencyHz: range.minHz,
     maxDecayDbPerS: S.maxDecayDbPerS,
     maxGrowthDbPerS: S.maxGrowthDbPerS,
-  })
-  warnings.push(...guarded.warnings)
+  }
   const dynamicRangeDb = source.lossy ? S.lossyRangeDb : S.peakThresholdDb
+  const { measured, merged } = measureAllBands(mono, sampleRate, strike, bands, S, reportFloor(bounds, dynamicRangeDb))
+  const guarded = guardPartials(merged, bounds)
+  warnings.push(...guarded.warnings)
   const strongest = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb))
   const fftPartials: DoubletCandidate[] = dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb)))
     .map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }) => p)
