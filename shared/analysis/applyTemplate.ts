@@ -5,8 +5,9 @@ import type { ResolvedTarget } from './resolveTarget'
 import type { AnalysisResult, MeasuredPartial, RatioTemplateInput } from './types'
 
 /**
- * Match the template against the partials and fill the result's target, template,
- * matches, fundamental, verdict and guidance, with a warning per missing partial.
+ * Match the template against the partials: a new result with the target, template,
+ * matches, fundamental, verdict and guidance filled in, and a warning per missing partial
+ * (or per template partial above the recording's band) after the result's own.
  */
 export function applyTemplate(
   result: AnalysisResult,
@@ -14,17 +15,21 @@ export function applyTemplate(
   target: ResolvedTarget,
   template: Required<RatioTemplateInput>,
   temperatureC: number | null,
-): void {
+): AnalysisResult {
   const matches = matchTemplate(partials, template, target.fundamentalHz, temperatureC)
-  for (const m of matches) {
-    if (m.targetHz >= result.sampleRate / 2) result.warnings.push(`${m.label} (${m.targetHz.toFixed(2)} Hz) lies above the highest frequency this recording can hold`)
-    else if (m.missing) result.warnings.push(`no partial found near ${m.targetHz.toFixed(2)} Hz (${m.label})`)
+  const missing = matches.flatMap((m) => {
+    if (m.targetHz >= result.sampleRate / 2) return [`${m.label} (${m.targetHz.toFixed(2)} Hz) lies above the highest frequency this recording can hold`]
+    return m.missing ? [`no partial found near ${m.targetHz.toFixed(2)} Hz (${m.label})`] : []
+  })
+  return {
+    ...result,
+    fundamentalHz: matches.find(m => m.ratio === 1)?.measuredHz ?? null,
+    verdict: decideVerdict(matches),
+    guidance: guidanceLines(matches),
+    warnings: [...result.warnings, ...missing],
+    target,
+    template,
+    temperatureC,
+    matches,
   }
-  result.target = target
-  result.template = template
-  result.temperatureC = temperatureC
-  result.matches = matches
-  result.fundamentalHz = matches.find(m => m.ratio === 1)?.measuredHz ?? null
-  result.verdict = decideVerdict(matches)
-  result.guidance = guidanceLines(matches)
 }

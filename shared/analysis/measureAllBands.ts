@@ -6,6 +6,7 @@ import { measureBand, type BandMeasurement, type BandSettings } from './measureB
 import type { TrackMeasurement } from './measureTrack'
 import { mergeBands } from './mergeBands'
 import type { AnalysisBand } from './planBands'
+import type { ReportFloor } from './reportFloor'
 import { windowSpan } from './windowSpan'
 
 /** Every band measured, slowest first, and their partials merged. */
@@ -27,6 +28,8 @@ export function measureAllBands(
   strike: StrikeSpan,
   bands: readonly AnalysisBand[],
   settings: BandSettings & { maxDropPerWindowDb: number },
+  /** The reporting floor, kept up to date with every reading (lets weak tracks cost little). */
+  floor?: ReportFloor,
 ): AllBands {
   const measured: BandMeasurement[] = []
   let merged: TrackMeasurement[] = []
@@ -58,7 +61,7 @@ export function measureAllBands(
       const decayDbPerS = -fitLine(points.map(p => p.timeS), points.map(p => p.amplitudeDb)).slope
       return decayDbPerS * held.windowS <= settings.maxDropPerWindowDb
     }
-    const band_ = measureBand(signal, sampleRate, strike, band, settings, settled, windowed)
+    const band_ = measureBand(signal, sampleRate, strike, band, settings, settled, windowed, floor)
     measured.push(band_)
     merged = measured.length === 1 ? band_.partials : mergeBands([merged, band_.partials], settings.maxDropPerWindowDb)
   }

@@ -4,6 +4,10 @@ import type { ModulationSettings } from './measureModulation'
 import type { AnalysisBand } from './planBands'
 import { shortTimePeaks } from './shortTimePeaks'
 import type { StrikeSpan } from './findStrike'
+import type { ReportFloor } from './reportFloor'
+
+/** Tracks measured first, strongest first, so the reporting floor is known before the rest. */
+const FLOOR_SETTERS = 4
 
 export interface BandSettings {
   peakThresholdDb: number
@@ -28,7 +32,9 @@ export interface BandMeasurement {
  * One resolution of the analysis: short-time peaks in the band, tracks across frames
  * (through gaps as long as a tremolo's trough), and each track measured. Partials below
  * the band's own lower edge are left to the slower bands, and tracks `settled` says the
- * slower bands already hold are not measured at all.
+ * slower bands already hold are not measured at all. The strongest tracks are measured
+ * first, so the reporting floor (`floor`) is known early and weak tracks far under it cost little;
+ * the partials come back in the tracks' own order.
  */
 export function measureBand(
   signal: Float64Array,
@@ -39,6 +45,7 @@ export function measureBand(
   /** Tracks this says are settled elsewhere are not measured (the costly step). */
   settled: (points: TrackPoint[]) => boolean = () => false,
   windowed?: (start: number, length: number) => Float64Array,
+  floor?: ReportFloor,
 ): BandMeasurement {
   const spectra = shortTimePeaks(signal, sampleRate, {
     windowLength: band.windowLength,
@@ -60,8 +67,14 @@ export function measureBand(
     maxGapFrames: Math.max(1, Math.min(8, Math.round(settings.maxGapS / band.hopS))),
     minFrames: minTrackFrames,
   })
-  const partials = tracks.filter(points => !settled(points)).flatMap(points =>
-    measureTrack(points, signal, sampleRate, {
+  const kept = tracks.filter(points => !settled(points))
+  const strongest = kept.map(points => points.reduce((top, p) => Math.max(top, p.amplitudeDb), -Infinity))
+  // The few strongest set the floor; the rest keep their order (neighbouring tracks share long spans).
+  const first = kept.map((_, i) => i).sort((a, b) => strongest[b]! - strongest[a]!).slice(0, FLOOR_SETTERS)
+  const byLevel = [...first, ...kept.map((_, i) => i).filter(i => !first.includes(i))]
+  const readings: TrackMeasurement[][] = []
+  for (const i of byLevel) {
+    readings[i] = measureTrack(kept[i]!, signal, sampleRate, {
       onsetIndex: strike.onsetIndex,
       startIndex: strike.startIndex,
       endIndex: signal.length,
@@ -71,7 +84,10 @@ export function measureBand(
       maxRefineS: settings.maxRefineS,
       modulation: settings.modulation,
       windowed,
-    }),
-  ).filter(p => p.frequencyHz >= band.ownFromHz)
+      reportFloorDb: floor?.levelDb(),
+    })
+    floor?.note(readings[i].filter(p => p.frequencyHz >= band.ownFromHz))
+  }
+  const partials = readings.flat().filter(p => p.frequencyHz >= band.ownFromHz)
   return { partials, trackJumpCents, minTrackFrames }
 }

@@ -28,7 +28,17 @@ export interface TrackContext {
   modulation: ModulationSettings
   /** `signal[start … start + length)` times a Blackman–Harris window, possibly from a cache shared by the tracks. */
   windowed?: (start: number, length: number) => Float64Array
+  /** Floor of the reported range as known so far (reportFloor), dB re full scale. */
+  reportFloorDb?: number
 }
+
+/**
+ * A reading this far under the reporting floor after the first, one-bin refinement step
+ * is not refined further nor searched for sidebands or a pair: it will not be reported.
+ * The fine step moves the level by a fraction of a dB; the margin also covers a floor
+ * that a later band lowers.
+ */
+export const BELOW_FLOOR_MARGIN_DB = 12
 
 /** A measured partial with the length of the span that refined it (for de-duplication). */
 export interface TrackMeasurement extends FftPartial {
@@ -109,7 +119,13 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   }
   const amplitudeDb = (magnitude: number) => 20 * Math.log10(Math.max((2 * magnitude) / gain, 1e-12))
 
-  const peak = refinePeak(windowed, sampleRate, coarseHz)
+  // The one-bin step first: a reading far under the reporting floor stops there — unless its
+  // envelope beats, when a pair's separated onset levels may stand far over the peak's.
+  const rough = refinePeak(windowed, sampleRate, coarseHz, [1])
+  if (envelopeBeatHz === null && amplitudeDb(rough.magnitude) < (context.reportFloorDb ?? -Infinity) - BELOW_FLOOR_MARGIN_DB) {
+    return [plain(rough)]
+  }
+  const peak = refinePeak(windowed, sampleRate, rough.frequencyHz, [0.1])
   // Sidebands down to maxBelowCarrierDb need the partial that far over the noise, and 10 dB more.
   const modulation = bestSnr >= context.modulation.maxBelowCarrierDb + 10
     ? measureModulation(windowed, sampleRate, peak.frequencyHz, context.modulation)
@@ -162,15 +178,20 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
       })
     }
   }
-  return [{
-    ...common,
-    frequencyHz: peak.frequencyHz,
-    amplitudeDb: amplitudeDb(peak.magnitude),
-    beatHz: envelopeBeatHz,
-    modulationHz: envelopeBeatHz,
-    modulationDepthDb: envelopeBeatHz === null ? null : envelopeDepthDb(times, fit.residuals, envelopeBeatHz),
-    modulationFrom: envelopeBeatHz === null ? null : 'envelope' as const,
-  }]
+  return [plain(peak)]
+
+  /** One partial at the peak, with the envelope's modulation if it beats. */
+  function plain(at: RefinedPeak): TrackMeasurement {
+    return {
+      ...common,
+      frequencyHz: at.frequencyHz,
+      amplitudeDb: amplitudeDb(at.magnitude),
+      beatHz: envelopeBeatHz,
+      modulationHz: envelopeBeatHz,
+      modulationDepthDb: envelopeBeatHz === null ? null : envelopeDepthDb(times, fit.residuals, envelopeBeatHz),
+      modulationFrom: envelopeBeatHz === null ? null : 'envelope' as const,
+    }
+  }
 }
 
 /**

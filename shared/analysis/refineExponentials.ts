@@ -30,17 +30,20 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
     pIm: Float64Array.from(start.frequencyCycles, nu => 2 * Math.PI * nu),
   }
   let current = residual(signal, params)
+  // Columns: Δc (re part k, im part k), Δp (re part k, im part k), as φ(J), row by row.
+  const cols = 4 * k
+  const jacobian = new Float64Array(2 * n * cols)
   for (let it = 0; it < iterations; it++) {
-    // Columns: Δc (re part k, im part k), Δp (re part k, im part k), as φ(J), row by row.
-    const cols = 4 * k
-    const jacobian = new Float64Array(2 * n * cols)
     for (let q = 0; q < k; q++) {
       const cr = params.cRe[q]!
       const ci = params.cIm[q]!
+      // e^{p m} by the recurrence e^{p (m + 1)} = e^{p m}·e^{p} (no exp/cos/sin per sample).
+      const stepMag = Math.exp(params.pRe[q]!)
+      const stepRe = stepMag * Math.cos(params.pIm[q]!)
+      const stepIm = stepMag * Math.sin(params.pIm[q]!)
+      let er = 1
+      let ei = 0
       for (let m = 0; m < n; m++) {
-        const mag = Math.exp(params.pRe[q]! * m)
-        const er = mag * Math.cos(params.pIm[q]! * m)
-        const ei = mag * Math.sin(params.pIm[q]! * m)
         const wr = m * (cr * er - ci * ei)
         const wi = m * (cr * ei + ci * er)
         const top = m * cols
@@ -53,6 +56,9 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
         jacobian[bottom + k + q] = wi
         jacobian[bottom + 2 * k + q] = er
         jacobian[bottom + 3 * k + q] = wr
+        const next = er * stepRe - ei * stepIm
+        ei = er * stepIm + ei * stepRe
+        er = next
       }
     }
     const rhs = new Float64Array(2 * n)
@@ -109,12 +115,19 @@ function residual(signal: ComplexSignal, p: Params): { re: Float64Array, im: Flo
   const re = Float64Array.from(signal.re)
   const im = Float64Array.from(signal.im)
   for (let q = 0; q < p.cRe.length; q++) {
+    const stepMag = Math.exp(p.pRe[q]!)
+    const stepRe = stepMag * Math.cos(p.pIm[q]!)
+    const stepIm = stepMag * Math.sin(p.pIm[q]!)
+    const cr = p.cRe[q]!
+    const ci = p.cIm[q]!
+    let er = 1
+    let ei = 0
     for (let m = 0; m < n; m++) {
-      const mag = Math.exp(p.pRe[q]! * m)
-      const er = mag * Math.cos(p.pIm[q]! * m)
-      const ei = mag * Math.sin(p.pIm[q]! * m)
-      re[m]! -= p.cRe[q]! * er - p.cIm[q]! * ei
-      im[m]! -= p.cRe[q]! * ei + p.cIm[q]! * er
+      re[m]! -= cr * er - ci * ei
+      im[m]! -= cr * ei + ci * er
+      const next = er * stepRe - ei * stepIm
+      ei = er * stepIm + ei * stepRe
+      er = next
     }
   }
   let sumSq = 0

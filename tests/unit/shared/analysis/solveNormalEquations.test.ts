@@ -1,5 +1,7 @@
+import { Matrix, solve } from 'ml-matrix'
 import { describe, expect, it } from 'vitest'
 import { solveNormalEquations } from '../../../../shared/analysis/solveNormalEquations'
+import { seededRandom } from '../../../support/seededRandom'
 
 describe('solveNormalEquations', () => {
   it('fits a straight line exactly like the textbook least-squares formulas', () => {
@@ -24,5 +26,23 @@ describe('solveNormalEquations', () => {
   it('refuses mismatched sizes or a wide system', () => {
     expect(() => solveNormalEquations(new Float64Array(5), 3, 2, new Float64Array(3))).toThrow(RangeError)
     expect(() => solveNormalEquations(new Float64Array(6), 2, 3, new Float64Array(2))).toThrow(RangeError)
+  })
+
+  it('agrees with a general-purpose least-squares solver (ml-matrix QR) on a tall random system', () => {
+    const random = seededRandom(7)
+    const rows = 60
+    const cols = 8
+    const a = Float64Array.from({ length: rows * cols }, () => random.normal())
+    const b = Float64Array.from({ length: rows }, () => random.normal())
+    const x = solveNormalEquations(a, rows, cols, b)
+    // source: ml-matrix's solve of a non-square system is least squares by QR decomposition
+    const reference = solve(new Matrix(Array.from({ length: rows }, (_, r) => Array.from(a.subarray(r * cols, (r + 1) * cols)))), Matrix.columnVector(Array.from(b)))
+    for (let i = 0; i < cols; i++) expect(x[i]).toBeCloseTo(reference.get(i, 0), 10)
+  })
+
+  it('hands a rank-deficient system to the LU solve, which refuses it as singular', () => {
+    // Two equal columns: AᵀA = [[3, 3], [3, 3]] is singular, not positive definite.
+    const a = new Float64Array([1, 1, 1, 1, 1, 1])
+    expect(() => solveNormalEquations(a, 3, 2, new Float64Array([1, 2, 3]))).toThrow(/singular/)
   })
 })

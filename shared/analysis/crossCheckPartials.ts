@@ -1,0 +1,34 @@
+import { annotatePartials } from './annotatePartials'
+import type { StrikeSpan } from './findStrike'
+import { splitDoublets, type DoubletCandidate } from './splitDoublets'
+import type { MeasuredPartial } from './types'
+
+/** Partials with their second, independent reading, and warnings where the readings disagree. */
+export interface CrossCheckedPartials {
+  /** By ascending frequency. */
+  partials: MeasuredPartial[]
+  warnings: string[]
+}
+
+/**
+ * The matrix pencil's part: two partials inside one main lobe are reported as two
+ * (splitDoublets), and every other partial gets the cross-check and its uncertainty
+ * (annotatePartials).
+ */
+export function crossCheckPartials(
+  mono: Float64Array,
+  sampleRate: number,
+  fftPartials: readonly DoubletCandidate[],
+  strike: StrikeSpan,
+  level: { peakDb: number, peakMarginDb: number, minAmplitudeDb: number },
+): CrossCheckedPartials {
+  const doublets = splitDoublets(mono, sampleRate, fftPartials, {
+    startIndex: strike.startIndex, endIndex: mono.length, onsetIndex: strike.onsetIndex, ...level,
+  })
+  const annotated = annotatePartials(mono, sampleRate, doublets.single, { startIndex: strike.startIndex, endIndex: mono.length })
+  const partials: MeasuredPartial[] = [
+    ...annotated.partials.map(({ windowS: _window, modulationFrom: _from, ...p }) => p),
+    ...doublets.pairs,
+  ].sort((a, b) => a.frequencyHz - b.frequencyHz)
+  return { partials, warnings: annotated.warnings }
+}

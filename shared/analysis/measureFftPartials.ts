@@ -1,0 +1,49 @@
+import { dropDuplicates } from './dropDuplicates'
+import { dropSidebands } from './dropSidebands'
+import { ENGINE_SETTINGS as S } from './engineSettings'
+import type { StrikeSpan } from './findStrike'
+import { guardPartials } from './guardPartials'
+import { measureAllBands } from './measureAllBands'
+import type { BandMeasurement } from './measureBand'
+import type { AnalysisPlan } from './planAnalysis'
+import { reportFloor } from './reportFloor'
+import type { DoubletCandidate } from './splitDoublets'
+
+/** The FFT path's partials within the reported range, and how they were measured. */
+export interface FftPartials {
+  partials: DoubletCandidate[]
+  measured: BandMeasurement[]
+  /** Floor of the reported range (strongest − dynamic range), dB re full scale. */
+  minAmplitudeDb: number
+  dynamicRangeDb: number
+  warnings: string[]
+}
+
+/**
+ * Every band measured and merged (measureAllBands), readings outside the physical bounds
+ * left out (guardPartials), then the reported range (within `dynamicRangeDb` of the
+ * strongest), modulation sidebands and duplicates left out.
+ */
+export function measureFftPartials(
+  mono: Float64Array,
+  sampleRate: number,
+  strike: StrikeSpan,
+  plan: AnalysisPlan,
+  level: { peakDb: number, lossy: boolean },
+): FftPartials {
+  const bounds = {
+    peakDb: level.peakDb,
+    peakMarginDb: S.peakMarginDb,
+    sampleRate,
+    minFrequencyHz: plan.range.minHz,
+    maxDecayDbPerS: S.maxDecayDbPerS,
+    maxGrowthDbPerS: S.maxGrowthDbPerS,
+  }
+  const dynamicRangeDb = level.lossy ? S.lossyRangeDb : S.peakThresholdDb
+  const { measured, merged } = measureAllBands(mono, sampleRate, strike, plan.bands, S, reportFloor(bounds, dynamicRangeDb))
+  const guarded = guardPartials(merged, bounds)
+  const minAmplitudeDb = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb)) - dynamicRangeDb
+  const partials = dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= minAmplitudeDb)))
+    .map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }): DoubletCandidate => p)
+  return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: guarded.warnings }
+}

@@ -1,0 +1,38 @@
+import { describe, expect, it } from 'vitest'
+import { analyzeChannels } from '../../../../shared/analysis/analyzeChannels'
+import { synthStrike } from '../../../support/synthStrike'
+
+const sampleRate = 48000
+const left = synthStrike([
+  { frequencyHz: 261.63, amplitudeDb: -8, decayDbPerS: 15 },
+  { frequencyHz: 1046.5, amplitudeDb: -20, decayDbPerS: 30 },
+], { sampleRate, durationS: 2, onsetS: 0.05, noiseDb: -80, seed: 13 })
+const right = left.map(v => 0.5 * v)
+
+describe('analyzeChannels', () => {
+  it('leaves its input as it was and gives the same result for the same input', () => {
+    const copies = [Float64Array.from(left), Float64Array.from(right)]
+    const options = { note: 'C4', ratios: [1, 4, 10] }
+    const first = analyzeChannels([left, right], sampleRate, options)
+    expect(left).toEqual(copies[0])
+    expect(right).toEqual(copies[1])
+    expect(options).toEqual({ note: 'C4', ratios: [1, 4, 10] })
+    expect(analyzeChannels([left, right], sampleRate, options)).toEqual(first)
+  }, 60_000)
+
+  it('puts the warnings of every step in one list, the template\'s last', () => {
+    const result = analyzeChannels([left], sampleRate, { note: 'C4', ratios: [1, 4, 10] })
+    // The ×10 partial (2616 Hz) is not in the strike: the template step says so, last.
+    expect(result.warnings[result.warnings.length - 1]).toMatch(/no partial found near 2616\.26 Hz/)
+    expect(result.matches!.map(m => m.missing)).toEqual([false, false, true])
+    expect(result.verdict).toBe('incomplete')
+  }, 60_000)
+
+  it('reports the fundamental from the partials without a target, with no verdict', () => {
+    const result = analyzeChannels([left], sampleRate, {})
+    // source: the synthesised truth
+    expect(result.fundamentalHz).toBeCloseTo(261.63, 2)
+    expect(result.verdict).toBeNull()
+    expect(result).not.toHaveProperty('matches')
+  }, 60_000)
+})
