@@ -4,6 +4,7 @@ import { applyTemplate } from './applyTemplate'
 import { chooseWindow } from './chooseWindow'
 import { dropDuplicates } from './dropDuplicates'
 import { dropSidebands } from './dropSidebands'
+import { dropSpuriousPartials } from './dropSpuriousPartials'
 import { ENGINE_SETTINGS as S } from './engineSettings'
 import { findShortPartials } from './findShortPartials'
 import { fundamentalWithoutTarget } from './fundamentalWithoutTarget'
@@ -62,7 +63,9 @@ export function analyzeChannels(
   warnings.push(...guarded.warnings)
   const dynamicRangeDb = source.lossy ? S.lossyRangeDb : S.peakThresholdDb
   const strongest = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb))
-  const fftPartials: DoubletCandidate[] = dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb)))
+  const honest = dropSpuriousPartials(dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= strongest - dynamicRangeDb))), { strongestDb: strongest, ...S.spurious })
+  warnings.push(...honest.warnings)
+  const fftPartials: DoubletCandidate[] = honest.kept
     .map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }) => p)
   // Two partials inside one main lobe are reported as two, read by the matrix pencil.
   const doublets = splitDoublets(mono, sampleRate, fftPartials, {

@@ -8,6 +8,8 @@ import type { StrikeSpan } from './findStrike'
 export interface BandSettings {
   peakThresholdDb: number
   noiseMarginDb: number
+  /** How far the noise floor may fall under the banded one to what later frames show, dB (trailingFloor). */
+  maxFloorReliefDb?: number
   glideCentsPerS: number
   minJumpCents: number
   maxGapS: number
@@ -48,6 +50,7 @@ export function measureBand(
     endIndex: Math.max(band.endIndex, Math.min(signal.length, strike.startIndex + band.windowLength)),
     peakThresholdDb: settings.peakThresholdDb,
     noiseMarginDb: settings.noiseMarginDb,
+    maxFloorReliefDb: settings.maxFloorReliefDb,
     minFrequencyHz: band.fromHz,
     maxFrequencyHz: band.toHz,
   })
