@@ -1,17 +1,25 @@
+import { ENGINE_SETTINGS } from './engineSettings'
 import type { TrackMeasurement } from './measureTrack'
+
+/**
+ * Fastest modulation whose sidebands are left out, Hz: twice the fastest tremolo looked for,
+ * so a sampled note's loop (17.5 Hz on a freepats xylophone) still counts; a "pair" found
+ * inside a short window's lobe (150 Hz apart in a 25 ms band) is no modulation of a partial.
+ */
+const MAX_SIDEBAND_RATE_HZ = 2 * ENGINE_SETTINGS.modulation.maxRateHz
 
 /**
  * Leave out the modulation sidebands of modulated partials: a partial weaker than one whose
  * spectrum showed symmetric sidebands (measureModulation) and lying k·f_m away from it (k = 1…`maxOrder`, within `toleranceHz` or
  * 5 % of f_m) is a sideband of that tremolo or vibrato (the modulation theorem), not a
- * mode of the piece. Strongest carriers first, so a sideband never removes its carrier.
+ * mode of the piece. Only rates up to `maxRateHz` are modulations. Strongest carriers first, so a sideband never removes its carrier.
  */
-export function dropSidebands(partials: readonly TrackMeasurement[], maxOrder = 6, toleranceHz = 0.3): TrackMeasurement[] {
+export function dropSidebands(partials: readonly TrackMeasurement[], maxOrder = 6, toleranceHz = 0.3, maxRateHz = MAX_SIDEBAND_RATE_HZ): TrackMeasurement[] {
   const byLevel = [...partials].sort((a, b) => b.amplitudeDb - a.amplitudeDb)
   const dropped = new Set<TrackMeasurement>()
   for (const carrier of byLevel) {
     const rate = carrier.modulationHz ?? 0
-    if (dropped.has(carrier) || carrier.modulationFrom !== 'sidebands' || !(rate > 0)) continue
+    if (dropped.has(carrier) || carrier.modulationFrom !== 'sidebands' || !(rate > 0) || rate > maxRateHz) continue
     for (const other of byLevel) {
       if (other === carrier || dropped.has(other) || other.amplitudeDb > carrier.amplitudeDb) continue
       const order = Math.abs(other.frequencyHz - carrier.frequencyHz) / rate

@@ -5,6 +5,14 @@ export const ENGINE_SETTINGS = {
   /** Lossy codecs leave artefacts 40–60 dB under the partials: report less range. */
   lossyRangeDb: 35,
   noiseMarginDb: 20,
+  /**
+   * The noise floor of a frame may fall this far under its banded floor, to the lowest a later
+   * frame showed (minimum statistics): a partial among a dense strike's skirts stands 20 dB over
+   * the noise and 14 dB over the skirts around it. 6 dB, not more: at 10 dB the recordings
+   * report up to three times as many weak peaks (38 instead of 12 on a timpani note) and no
+   * tuned partial more.
+   */
+  maxFloorReliefDb: 6,
   fitMarginDb: 15,
   minSnrDb: 25,
   maxRefineS: 2,
@@ -26,6 +34,11 @@ export const ENGINE_SETTINGS = {
   maxGapS: 0.2,
   /** Modulation rates looked for, Hz (tremolo and slow beating). */
   modulation: { minRateHz: 1.5, maxRateHz: 12, maxBelowCarrierDb: 30, maxImbalanceDb: 6 },
+  /**
+   * Not reported (dropSpuriousPartials): a line decaying slower than 2 dB/s with r² under 0.3,
+   * 40 dB or more under the strongest partial; a reading 60 dB under it standing less than 30 dB over the noise.
+   */
+  spurious: { steadyBelowDb: 40, steadyDecayDbPerS: 2, steadyR2: 0.3, faintBelowDb: 60, faintMinSnrDb: 30 },
   /** Physical bounds: an amplitude this far over the file's peak is impossible, dB. */
   peakMarginDb: 1,
   /** A decay faster than this cannot be told from a click, dB/s (T60 10 ms). */

@@ -5,6 +5,7 @@ import type { TrackPoint } from './linkTracks'
 import { measureBand, type BandMeasurement, type BandSettings } from './measureBand'
 import type { TrackMeasurement } from './measureTrack'
 import { mergeBands } from './mergeBands'
+import { dropHeldInPairZones, inPairZone } from './pairZones'
 import type { AnalysisBand } from './planBands'
 import type { ReportFloor } from './reportFloor'
 import { windowSpan } from './windowSpan'
@@ -57,11 +58,13 @@ export function measureAllBands(
     const settled = (points: TrackPoint[]) => {
       const frequencyHz = points[points.length >> 1]!.frequencyHz
       const held = merged.find(m => Math.abs(m.frequencyHz - frequencyHz) < reachHz)
+      if (held && inPairZone(frequencyHz, band.pairZonesHz)) return true
       if (!held || points.length < 2) return false
       const decayDbPerS = -fitLine(points.map(p => p.timeS), points.map(p => p.amplitudeDb)).slope
       return decayDbPerS * held.windowS <= settings.maxDropPerWindowDb
     }
     const band_ = measureBand(signal, sampleRate, strike, band, settings, settled, windowed, floor)
+    band_.partials = dropHeldInPairZones(band_.partials, merged, band.pairZonesHz, reachHz)
     measured.push(band_)
     merged = measured.length === 1 ? band_.partials : mergeBands([merged, band_.partials], settings.maxDropPerWindowDb)
   }

@@ -12,6 +12,8 @@ const FLOOR_SETTERS = 4
 export interface BandSettings {
   peakThresholdDb: number
   noiseMarginDb: number
+  /** How far the noise floor may fall under the banded one to what later frames show, dB (trailingFloor). */
+  maxFloorReliefDb?: number
   glideCentsPerS: number
   minJumpCents: number
   maxGapS: number
@@ -55,6 +57,7 @@ export function measureBand(
     endIndex: Math.max(band.endIndex, Math.min(signal.length, strike.startIndex + band.windowLength)),
     peakThresholdDb: settings.peakThresholdDb,
     noiseMarginDb: settings.noiseMarginDb,
+    maxFloorReliefDb: settings.maxFloorReliefDb,
     minFrequencyHz: band.fromHz,
     maxFrequencyHz: band.toHz,
   })

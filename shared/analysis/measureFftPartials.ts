@@ -1,5 +1,6 @@
 import { dropDuplicates } from './dropDuplicates'
 import { dropSidebands } from './dropSidebands'
+import { dropSpuriousPartials } from './dropSpuriousPartials'
 import { ENGINE_SETTINGS as S } from './engineSettings'
 import type { StrikeSpan } from './findStrike'
 import { guardPartials } from './guardPartials'
@@ -22,7 +23,7 @@ export interface FftPartials {
 /**
  * Every band measured and merged (measureAllBands), readings outside the physical bounds
  * left out (guardPartials), then the reported range (within `dynamicRangeDb` of the
- * strongest), modulation sidebands and duplicates left out.
+ * strongest), modulation sidebands, duplicates and spurious tracks left out.
  */
 export function measureFftPartials(
   mono: Float64Array,
@@ -42,8 +43,9 @@ export function measureFftPartials(
   const dynamicRangeDb = level.lossy ? S.lossyRangeDb : S.peakThresholdDb
   const { measured, merged } = measureAllBands(mono, sampleRate, strike, plan.bands, S, reportFloor(bounds, dynamicRangeDb))
   const guarded = guardPartials(merged, bounds)
-  const minAmplitudeDb = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb)) - dynamicRangeDb
-  const partials = dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= minAmplitudeDb)))
-    .map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }): DoubletCandidate => p)
-  return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: guarded.warnings }
+  const strongestDb = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb))
+  const minAmplitudeDb = strongestDb - dynamicRangeDb
+  const honest = dropSpuriousPartials(dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= minAmplitudeDb))), { strongestDb, ...S.spurious })
+  const partials = honest.kept.map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }): DoubletCandidate => p)
+  return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: [...guarded.warnings, ...honest.warnings] }
 }

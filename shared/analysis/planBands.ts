@@ -10,6 +10,11 @@ export interface AnalysisBand extends WindowChoice {
   toHz: number
   /** One past the last sample analysed in this band. */
   endIndex: number
+  /**
+   * Ranges around neighbours this band's window cannot resolve, Hz: there it only adds a
+   * partial no slower band holds (a short-lived one), never re-reads a held one (pairZones.ts).
+   */
+  pairZonesHz: [number, number][]
 }
 
 export interface BandPlanSettings {
@@ -22,8 +27,10 @@ export interface BandPlanSettings {
  * Multi-resolution layout: band 0 is the long window (chooseWindow) over the whole band
  * and span; then windows `bandWindowRatio` times shorter each, down to `shortestWindowS`,
  * each measuring only where it still resolves the partials — above 1.25 main lobes from DC
- * (as chooseWindow asks of the lowest partial) and above every pair of neighbours
- * (within one list) closer than 1.25 main lobes — with a hop of a quarter window over its first
+ * (as chooseWindow asks of the lowest partial); around every pair of neighbours (within one
+ * list) closer than 1.25 main lobes it only adds what the slower bands missed (its
+ * `pairZonesHz`), so a vibrato family or a doublet high up does not take the fast bands away
+ * from the short-lived partials below and beside it — with a hop of a quarter window over its first
  * `fastBandFrames` frames. Long windows where partials are low and close, short ones where
  * they are high and die fast (a multi-resolution spectrum: window length chosen per band, as in a constant-Q analysis, Brown 1991, JASA 89(1)).
  */
@@ -35,7 +42,7 @@ export function planBands(
   range: { minHz: number, maxHz: number },
   settings: BandPlanSettings,
 ): AnalysisBand[] {
-  const bands: AnalysisBand[] = [{ ...long, fromHz: range.minHz, ownFromHz: range.minHz, toHz: range.maxHz, endIndex: span.endIndex }]
+  const bands: AnalysisBand[] = [{ ...long, fromHz: range.minHz, ownFromHz: range.minHz, toHz: range.maxHz, endIndex: span.endIndex, pairZonesHz: [] }]
   const margin = 1.25
   // Down by bandWindowRatio each time, the last one at the shortest window.
   let floorHz = range.minHz
@@ -43,10 +50,11 @@ export function planBands(
   while (previousS > 1.5 * settings.shortestWindowS) {
     const windowS = Math.max(settings.shortestWindowS, previousS / settings.bandWindowRatio)
     const lobeHz = MAIN_LOBE_BINS / windowS
-    let ownFromHz = Math.max(floorHz, margin * lobeHz)
+    const ownFromHz = Math.max(floorHz, margin * lobeHz)
+    const pairs: [number, number][] = []
     for (const list of neighbourLists) {
       for (let i = 1; i < list.length; i++) {
-        if (list[i]! - list[i - 1]! < margin * lobeHz) ownFromHz = Math.max(ownFromHz, list[i]! + (margin * lobeHz) / 2)
+        if (list[i]! - list[i - 1]! < margin * lobeHz) pairs.push([list[i - 1]! - (margin * lobeHz) / 2, list[i]! + (margin * lobeHz) / 2])
       }
     }
     if (ownFromHz >= 0.8 * range.maxHz) break
@@ -64,9 +72,21 @@ export function planBands(
       ownFromHz,
       toHz: range.maxHz,
       endIndex: Math.min(span.endIndex, span.startIndex + settings.fastBandFrames * hop + windowLength),
+      pairZonesHz: mergeZones(pairs),
     })
     floorHz = ownFromHz
     previousS = windowS
   }
   return bands
+}
+
+/** Overlapping ranges joined, ascending. */
+function mergeZones(zones: [number, number][]): [number, number][] {
+  const merged: [number, number][] = []
+  for (const [lo, hi] of [...zones].sort((a, b) => a[0] - b[0])) {
+    const last = merged[merged.length - 1]
+    if (last && lo <= last[1]) last[1] = Math.max(last[1], hi)
+    else merged.push([lo, hi])
+  }
+  return merged
 }

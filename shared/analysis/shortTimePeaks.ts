@@ -2,6 +2,7 @@ import { blackmanHarris } from './blackmanHarris'
 import { parabolicPeak } from './parabolicPeak'
 import { realFft } from './realFft'
 import { bandNoiseFloor } from './bandNoiseFloor'
+import { trailingFloor } from './trailingFloor'
 
 /** One spectral peak of one frame. */
 export interface SpectralPeak {
@@ -31,6 +32,8 @@ export interface ShortTimeSettings {
   peakThresholdDb: number
   /** Peaks must stand this far above the local noise floor, in dB (e.g. 20). */
   noiseMarginDb: number
+  /** The floor may fall this far under the banded floor to the lowest a later frame showed, dB (trailingFloor; 0 = off). */
+  maxFloorReliefDb?: number
   minFrequencyHz: number
   maxFrequencyHz: number
 }
@@ -38,8 +41,9 @@ export interface ShortTimeSettings {
 /**
  * Short-time Fourier transform (Blackman–Harris window, zero-padded FFT) of
  * `signal[startIndex…endIndex)` and its spectral peaks: local maxima of the power above
- * both thresholds (relative to the frame's strongest peak, and over the banded noise
- * floor), refined by parabolic interpolation of the dB magnitude.
+ * both thresholds (relative to the frame's strongest peak, and over the noise floor: the
+ * banded floor, lowered to the lowest a later frame showed — trailingFloor), refined by
+ * parabolic interpolation of the dB magnitude.
  */
 export function shortTimePeaks(signal: Float64Array, sampleRate: number, settings: ShortTimeSettings): SpectrumFrame[] {
   const { windowLength, fftSize, hop } = settings
@@ -64,7 +68,10 @@ export function shortTimePeaks(signal: Float64Array, sampleRate: number, setting
   const relative = 10 ** (-settings.peakThresholdDb / 10)
   const margin = 10 ** (settings.noiseMarginDb / 10)
 
-  for (let start = settings.startIndex; start + windowLength <= settings.endIndex; start += hop) {
+  // Last frame first, so each frame's floor can be the lowest any later frame showed (trailingFloor).
+  const trailing = new Float64Array(kMax + 2).fill(Infinity)
+  const last = settings.startIndex + Math.floor((settings.endIndex - windowLength - settings.startIndex) / hop) * hop
+  for (let start = last; start >= settings.startIndex; start -= hop) {
     for (let i = 0; i < windowLength; i++) buffer[i] = signal[start + i]! * window[i]!
     realFft(buffer, spectrum)
     let maxPower = 0
@@ -76,6 +83,7 @@ export function shortTimePeaks(signal: Float64Array, sampleRate: number, setting
       if (k >= kMin && k <= kMax && p > maxPower) maxPower = p
     }
     bandNoiseFloor(power, kMin, kMax, minBandBins, floor)
+    trailingFloor(floor, trailing, kMin, kMax, settings.maxFloorReliefDb ?? 0)
     const relativeThreshold = Math.max(maxPower * relative, Number.MIN_VALUE)
     const peaks: SpectralPeak[] = []
     for (let k = kMin; k <= kMax; k++) {
@@ -91,5 +99,5 @@ export function shortTimePeaks(signal: Float64Array, sampleRate: number, setting
     }
     frames.push({ timeS: (start + windowLength / 2) / sampleRate, peaks })
   }
-  return frames
+  return frames.reverse()
 }

@@ -1,0 +1,45 @@
+import { describe, expect, it } from 'vitest'
+import { dropSpuriousPartials } from '../../../../shared/analysis/dropSpuriousPartials'
+import { ENGINE_SETTINGS } from '../../../../shared/analysis/engineSettings'
+import type { TrackMeasurement } from '../../../../shared/analysis/measureTrack'
+
+function partial(fields: Partial<TrackMeasurement>): TrackMeasurement {
+  return {
+    frequencyHz: 440, amplitudeDb: -20, decayDbPerS: 10, t60S: 6, r2: 0.99, startS: 0.1, endS: 2, stabilityCents: 0.1,
+    beatHz: null, snrDb: 60, frames: 50, modulationHz: null, modulationDepthDb: null,
+    refineSpanS: 1.9, windowS: 0.5, strongestFrameDb: -22, modulationFrom: null, ...fields,
+  }
+}
+const settings = { strongestDb: -10, ...ENGINE_SETTINGS.spurious }
+
+describe('dropSpuriousPartials', () => {
+  it('keeps decaying partials, weak ones and slowly decaying bells included', () => {
+    const kept = dropSpuriousPartials([
+      partial({}),
+      // A tubular bell's mode, 3 dB/s (freepats tubular bells C5, tests/fixtures/real/README.md).
+      partial({ frequencyHz: 646, amplitudeDb: -25, decayDbPerS: 3, r2: 0.85 }),
+      // A weak partial 54 dB under the strongest but 75 dB over the noise (glockenspiel C7, 5678 Hz).
+      partial({ frequencyHz: 5678, amplitudeDb: -64, decayDbPerS: 14, r2: 0.61, snrDb: 75, stabilityCents: 1.2 }),
+    ], settings)
+    expect(kept.kept).toHaveLength(3)
+    expect(kept.warnings).toEqual([])
+  })
+
+  it('leaves out a track wandering over more than a quarter main lobe (2 bins of its window)', () => {
+    // 10 kHz, window 0.5 s: a bin is 2 Hz, 2 bins 4 Hz (0.69 ¢); 10 ¢ at 10 kHz is 5.8 Hz.
+    const wandering = partial({ frequencyHz: 10000, stabilityCents: 10 })
+    const steadyEnough = partial({ frequencyHz: 10000, stabilityCents: 0.6 })
+    const out = dropSpuriousPartials([wandering, steadyEnough], settings)
+    expect(out.kept).toEqual([steadyEnough])
+    expect(out.warnings.join(' ')).toMatch(/1 track not reported: frequency wandering/)
+  })
+
+  it('leaves out a steady line far under the strike, and faint readings barely over the noise', () => {
+    const hum = partial({ frequencyHz: 100, amplitudeDb: -62, decayDbPerS: 0.2, r2: 0.05 })
+    const strongSteady = partial({ frequencyHz: 784, amplitudeDb: -10, decayDbPerS: 1, r2: 0.58 }) // the strike's own strongest
+    const faint = partial({ frequencyHz: 3793, amplitudeDb: -81, decayDbPerS: 85, snrDb: 28 })
+    const out = dropSpuriousPartials([hum, strongSteady, faint], settings)
+    expect(out.kept).toEqual([strongSteady])
+    expect(out.warnings).toHaveLength(2)
+  })
+})

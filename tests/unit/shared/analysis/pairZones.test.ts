@@ -1,0 +1,38 @@
+import { describe, expect, it } from 'vitest'
+import { chooseWindow, MAIN_LOBE_BINS } from '../../../../shared/analysis/index'
+import { dropHeldInPairZones, inPairZone } from '../../../../shared/analysis/pairZones'
+import { planBands } from '../../../../shared/analysis/planBands'
+
+describe('pair zones of the fast bands', () => {
+  const settings = { shortestWindowS: 0.008, bandWindowRatio: 4, fastBandFrames: 100 }
+  const long = chooseWindow({ spacingHz: 50, lowestHz: 200, spanS: 3 }, 48000)
+
+  it('keeps the fast bands below a close pair high up (a vibrato family at 18 kHz)', () => {
+    // A family 10 Hz apart at 18 kHz, as the rough pass finds on a freepats glockenspiel C7.
+    const bands = planBands(long, [[2093, 5682, 5692, 10778, 10793, 18047, 18063]], 48000, { startIndex: 0, endIndex: 144000 }, { minHz: 20, maxHz: 20000 }, settings)
+    expect(bands.length).toBeGreaterThan(1)
+    for (const band of bands.slice(1)) {
+      // Owned from 1.25 main lobes over DC (a whole lobe between a partial and its mirror image).
+      expect(band.ownFromHz).toBeCloseTo(Math.max(bands[1]!.ownFromHz, (1.25 * MAIN_LOBE_BINS) / band.windowS), 6)
+      expect(inPairZone(18055, band.pairZonesHz)).toBe(true)
+      expect(inPairZone(5687, band.pairZonesHz)).toBe(true)
+      // 2093 Hz has no neighbour within 1.25 main lobes of any fast window but the shortest.
+      if ((1.25 * MAIN_LOBE_BINS) / band.windowS < 5682 - 2093) expect(inPairZone(2093, band.pairZonesHz)).toBe(false)
+    }
+  })
+
+  it('joins overlapping zones', () => {
+    const bands = planBands(long, [[1000, 1010, 1020, 1030]], 48000, { startIndex: 0, endIndex: 144000 }, { minHz: 20, maxHz: 20000 }, settings)
+    for (const band of bands.slice(1)) expect(band.pairZonesHz).toHaveLength(1)
+  })
+
+  it('lets a fast band add a partial no slower band holds, never re-read a held one inside a zone', () => {
+    const zones: [number, number][] = [[5600, 5800]]
+    const fast = [{ frequencyHz: 5683 }, { frequencyHz: 5750 }, { frequencyHz: 3000 }]
+    const held = [{ frequencyHz: 5751 }, { frequencyHz: 3000.5 }]
+    // 5683: in a zone, nothing held near → added; 5750: in a zone, held → left to the slow band;
+    // 3000: outside every zone → merged as before (mergeBands decides).
+    expect(dropHeldInPairZones(fast, held, zones, 8).map(p => p.frequencyHz)).toEqual([5683, 3000])
+    expect(dropHeldInPairZones(fast, held, [], 8)).toHaveLength(3)
+  })
+})
