@@ -7,6 +7,7 @@
  *
  * Writes its process id to --pid-file (default `<dir>/s3-fake.pid`) so the scripts end exactly this process.
  */
+import { createReadStream } from 'node:fs'
 import { mkdir, rm, writeFile } from 'node:fs/promises'
 import { join, resolve } from 'node:path'
 import { parseArgs } from 'node:util'
@@ -37,6 +38,18 @@ const server = new S3rver({
   directory: join(dir, 'objects'),
   configureBuckets: buckets.map(name => ({ name })),
 })
+// s3rver 3.7.1 reads a last byte of 0 (`bytes=0-0`) as "to the end"; S3 answers one byte.
+const store = server.store
+const getObject = store.getObject.bind(store)
+store.getObject = async (bucket: string, key: string, options?: { start?: number, end?: number }) => {
+  if (options?.end !== 0) return getObject(bucket, key, options)
+  const object = await getObject(bucket, key, { start: 0 })
+  if (!object?.content) return object
+  object.content.destroy()
+  object.content = createReadStream(store.getResourcePath(bucket, key, 'object'), { start: 0, end: 0 })
+  object.range = { start: 0, end: 0 }
+  return object
+}
 await server.run()
 const pidFile = resolve(values['pid-file'] ?? join(dir, 's3-fake.pid'))
 await writeFile(pidFile, String(process.pid))

@@ -61,7 +61,7 @@ export function fileStorage(root: string): BlobStorage {
       }
     },
     async list(prefix) {
-      const dir = pathOf(prefix.replace(/\/+$/, ''))
+      const dir = prefix === '' ? base : pathOf(prefix.replace(/\/+$/, ''))
       let entries: string[]
       try {
         entries = await readdir(dir, { recursive: true })

@@ -84,11 +84,11 @@ export function s3Storage(config: S3StorageConfig, client = s3Client(config)): B
       return true
     },
     async list(prefix) {
-      checkKey(prefix.replace(/\/+$/, ''))
+      if (prefix !== '') checkKey(prefix.replace(/\/+$/, ''))
       const found: StoredObject[] = []
       let ContinuationToken: string | undefined
       do {
-        const page = await client.send(new ListObjectsV2Command({ Bucket, Prefix: prefix.endsWith('/') ? prefix : `${prefix}/`, ContinuationToken }))
+        const page = await client.send(new ListObjectsV2Command({ Bucket, Prefix: prefix === '' || prefix.endsWith('/') ? prefix : `${prefix}/`, ContinuationToken }))
         for (const object of page.Contents ?? []) {
           if (object.Key) found.push({ key: object.Key, modifiedAt: object.LastModified ?? new Date(0) })
         }

@@ -24,7 +24,7 @@ export interface BlobStorage {
   delete(key: string): Promise<void>
   /** Renames an object; false when `from` does not exist. */
   move(from: string, to: string): Promise<boolean>
-  /** Every object whose key starts with `prefix` (a folder, ending in `/`). */
+  /** Every object whose key starts with `prefix` (a folder, ending in `/`; '' for the whole store). */
   list(prefix: string): Promise<StoredObject[]>
   /** Resolves when the store can be reached (readiness), rejects otherwise. */
   ping(): Promise<void>
