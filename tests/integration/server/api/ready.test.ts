@@ -36,4 +36,9 @@ describe('GET /api/ready', () => {
     expect(ready.status).toBe(503)
     expect(ready.body.storage).toBe(false)
   })
+
+  it('a server on the s3 driver without a bucket, or on an unknown driver, refuses to start with a sentence', async () => {
+    await expect(startServer({ NUXT_STORAGE_DRIVER: 's3', NUXT_STORAGE_BUCKET: '' })).rejects.toThrow(/NUXT_STORAGE_BUCKET names no bucket/)
+    await expect(startServer({ NUXT_STORAGE_DRIVER: 'ftp' })).rejects.toThrow(/use fs .* or s3/)
+  })
 })
