@@ -33,7 +33,9 @@ export default defineNuxtConfig({
     signInMaxPerAddress: 30,
     // Reverse proxies whose X-Forwarded-For is believed (addresses or CIDR ranges, comma-separated); none by default.
     trustedProxies: '',
-    storage: { driver: 'fs', dir: '.data/storage' },
+    // Strike audio and certificate PDFs: `fs` (files under dir) or `s3` (an S3-compatible bucket;
+    // without keys the SDK's own credential chain is used). NUXT_STORAGE_DRIVER, NUXT_STORAGE_BUCKET, …
+    storage: { driver: 'fs', dir: '.data/storage', bucket: '', region: 'us-east-1', endpoint: '', forcePathStyle: false, accessKeyId: '', secretAccessKey: '' },
     // Worker threads that decode and measure strikes (0: the machine's available
     // parallelism), tasks that may wait (0: twice the threads), the Retry-After of a full queue,
     // and a worker file other than the bundle beside the built server (empty: that bundle).

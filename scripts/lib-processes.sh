@@ -94,3 +94,20 @@ mail_catcher_start() {
 }
 
 mail_catcher_stop() { stop_recorded "$1/catcher.pid" scripts/mail-catcher.ts; }
+# s3_fake_start PORT DIR BUCKETS PID_FILE: the local S3 fake (scripts/s3-fake.ts, s3rver) on
+# loopback in the background, objects under DIR/objects, the buckets (comma-separated) made
+# at start; it writes PID_FILE. s3_fake_stop PID_FILE ends that process.
+s3_fake_start() {
+  local port="$1" dir="$2" buckets="$3" pid_file="$4"
+  mkdir -p "$dir"
+  (cd "$ROOT" && exec node --import tsx scripts/s3-fake.ts --port "$port" --dir "$dir" --bucket "$buckets" --pid-file "$pid_file" >>"$dir/s3-fake.log" 2>&1 9>&-) &
+  local i
+  for i in $(seq 1 80); do [ -s "$pid_file" ] && port_busy "$port" && return 0; sleep 0.25; done
+  tail -n 20 "$dir/s3-fake.log" >&2 || true
+  die "The S3 fake did not start on 127.0.0.1:$port."
+}
+
+s3_fake_stop() { stop_recorded "$1" scripts/s3-fake.ts; }
+
+# The fake's fixed keys (it accepts any signature made with them).
+S3_FAKE_KEY=S3RVER

@@ -8,7 +8,7 @@ import { createDatabase } from '../server/database/client'
 import { sets, workshops } from '../server/database/schema'
 import { requestReanalysis } from '../server/utils/reanalysis'
 import { executeReanalysis } from '../server/utils/reanalysis-run'
-import { fileStorage } from '../server/utils/storage'
+import { storageConfigFromEnv, storageFromConfig } from '../server/utils/blob-storage'
 import { changeSummary, changeTable } from '../shared/reanalysis/changeTable'
 import type { ReanalysisResult } from '../shared/reanalysis/types'
 
@@ -61,7 +61,7 @@ try {
   }
   const set = matching[0]!
   const run = await requestReanalysis(db, { workshopId: set.workshopId, userId: null }, { setId: set.id }, args.reason, { runHere: true })
-  const storage = fileStorage(process.env.NUXT_STORAGE_DIR ?? '.data/storage')
+  const storage = storageFromConfig(storageConfigFromEnv())
   const finished = await executeReanalysis(db, storage, run.id)
   if (!finished) throw new Error('The re-measurement was stopped by another process before it finished.')
   const result = finished.result as unknown as ReanalysisResult

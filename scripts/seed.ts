@@ -1,7 +1,7 @@
 // Seeds the invented demo workshop once (skipped when its owner already exists).
 import { createDatabase } from '../server/database/client'
 import { seedDemo } from '../server/database/seeds/demo'
-import { fileStorage } from '../server/utils/storage'
+import { storageConfigFromEnv, storageFromConfig } from '../server/utils/blob-storage'
 
 const url = process.env.NUXT_DATABASE_URL
 if (!url) {
@@ -11,7 +11,7 @@ if (!url) {
 const { db, client } = createDatabase(url, { max: 2 })
 try {
   const started = Date.now()
-  const result = await seedDemo(db, fileStorage(process.env.NUXT_STORAGE_DIR ?? '.data/storage'))
+  const result = await seedDemo(db, storageFromConfig(storageConfigFromEnv()))
   console.log(result.created ? `Demo workshop "${result.workshopName}" seeded in ${((Date.now() - started) / 1000).toFixed(1)} s.` : 'Demo workshop already present.')
 }
 catch (error) {

@@ -7,6 +7,7 @@ APP_HOST=127.0.0.1
 APP_PORT="${PORT:-3000}"
 DB_PORT="${TONEWRIGHT_DB_PORT:-54329}"
 SMTP_PORT="${TONEWRIGHT_SMTP_PORT:-2525}"
+S3_PORT="${TONEWRIGHT_S3_PORT:-4570}"
 
 require_node
 RUN_DIR="$DATA/run"
@@ -39,6 +40,7 @@ pg_init "$PG_DIR" "$DB_PORT" "$DB_PASSWORD"
 
 STARTED_PG=0
 STARTED_MAIL=0
+STARTED_S3=0
 APP_PID=""
 cleanup() {
   # A second Ctrl-C must not cut the clean-up short.
@@ -47,6 +49,7 @@ cleanup() {
   if [ -n "$APP_PID" ] && kill -0 "$APP_PID" 2>/dev/null; then kill "$APP_PID" 2>/dev/null || true; wait "$APP_PID" 2>/dev/null || true; fi
   rm -f "$RUN_DIR/app.pid"
   if [ "$STARTED_MAIL" = 1 ]; then mail_catcher_stop "$MAIL_DIR"; fi
+  if [ "$STARTED_S3" = 1 ]; then s3_fake_stop "$RUN_DIR/s3-fake.pid"; fi
   if [ "$STARTED_PG" = 1 ]; then log "Stopping PostgreSQL…"; pg_stop "$PG_DIR"; fi
   if [ "$(cat "$RUN_DIR/start.pid" 2>/dev/null)" = $$ ]; then rm -f "$RUN_DIR/start.pid"; fi
   log "Stopped."
@@ -80,6 +83,23 @@ elif ! port_busy "$SMTP_PORT"; then
   log "Starting the local mail catcher on 127.0.0.1:$SMTP_PORT (messages in .data/mail)…"
   mail_catcher_start "$SMTP_PORT" "$MAIL_DIR"
   STARTED_MAIL=1
+fi
+
+# NUXT_STORAGE_DRIVER=s3 without an endpoint of its own: the local S3 fake (objects in .data/s3).
+if [ "${NUXT_STORAGE_DRIVER:-fs}" = s3 ] && [ -z "${NUXT_STORAGE_ENDPOINT:-}" ]; then
+  export NUXT_STORAGE_ENDPOINT="http://127.0.0.1:$S3_PORT" NUXT_STORAGE_FORCE_PATH_STYLE=true
+  export NUXT_STORAGE_BUCKET="${NUXT_STORAGE_BUCKET:-tonewright}"
+  export NUXT_STORAGE_ACCESS_KEY_ID="$S3_FAKE_KEY" NUXT_STORAGE_SECRET_ACCESS_KEY="$S3_FAKE_KEY"
+  if recorded_pid "$RUN_DIR/s3-fake.pid" scripts/s3-fake.ts >/dev/null; then
+    log "Taking over the S3 fake left running by an earlier start."
+    STARTED_S3=1
+  elif ! port_busy "$S3_PORT"; then
+    log "Starting the local S3 fake on 127.0.0.1:$S3_PORT (objects in .data/s3)…"
+    s3_fake_start "$S3_PORT" "$DATA/s3" "$NUXT_STORAGE_BUCKET" "$RUN_DIR/s3-fake.pid"
+    STARTED_S3=1
+  else
+    die "Something else answers on 127.0.0.1:$S3_PORT; set TONEWRIGHT_S3_PORT to a free port for the S3 fake."
+  fi
 fi
 
 log "Applying database migrations…"

@@ -15,6 +15,7 @@ has_suite() { case " $SUITES " in *" $1 "*) return 0 ;; *) return 1 ;; esac; }
 DB_PORT="${TONEWRIGHT_TEST_DB_PORT:-54339}"
 APP_PORT="${TONEWRIGHT_TEST_PORT:-3100}"
 SMTP_PORT="${TONEWRIGHT_TEST_SMTP_PORT:-2626}"
+S3_PORT="${TONEWRIGHT_TEST_S3_PORT:-4571}"
 DB_NAME=tonewright_test
 
 require_node
@@ -33,6 +34,9 @@ OUT_DIR="$DATA/test-output"
 pg_init "$PG_DIR" "$DB_PORT" "$DB_PASSWORD" "fsync = off" "synchronous_commit = off" "full_page_writes = off"
 
 MAIL_DIR="$DATA/test-mail"
+S3_DIR="$DATA/test-s3"
+S3_PID="$DATA/run/test-s3-fake.pid"
+mkdir -p "$DATA/run"
 APP_PID=""
 take_lock "$DATA/test.lock" "Another npm test in this checkout is running; waiting for it…"
 # A test server left by a killed run would hold the port.
@@ -42,6 +46,7 @@ cleanup() {
   trap - INT TERM EXIT
   if [ -n "$APP_PID" ] && kill -0 "$APP_PID" 2>/dev/null; then kill "$APP_PID" 2>/dev/null || true; wait "$APP_PID" 2>/dev/null || true; fi
   mail_catcher_stop "$MAIL_DIR"
+  s3_fake_stop "$S3_PID"
   pg_stop "$PG_DIR"
   exit "$code"
 }
@@ -68,9 +73,28 @@ export NUXT_MAIL_LEASE_S=20
 rm -rf "$NUXT_STORAGE_DIR"
 mail_catcher_stop "$MAIL_DIR"
 rm -rf "$MAIL_DIR"
+s3_fake_stop "$S3_PID"
+rm -rf "$S3_DIR"
+# The S3 fake: the contract suite and the two-instance test use it whatever the test server's
+# driver; with NUXT_STORAGE_DRIVER=s3 the test server keeps its objects there too.
+export TW_S3_ENDPOINT="http://127.0.0.1:$S3_PORT" TW_S3_KEY="$S3_FAKE_KEY"
+if [ "${NUXT_STORAGE_DRIVER:-fs}" = s3 ]; then
+  export NUXT_STORAGE_ENDPOINT="$TW_S3_ENDPOINT" NUXT_STORAGE_FORCE_PATH_STYLE=true NUXT_STORAGE_BUCKET=tonewright-test
+  export NUXT_STORAGE_ACCESS_KEY_ID="$S3_FAKE_KEY" NUXT_STORAGE_SECRET_ACCESS_KEY="$S3_FAKE_KEY"
+fi
+log "Starting the S3 fake on 127.0.0.1:$S3_PORT…"
+s3_fake_start "$S3_PORT" "$S3_DIR" tonewright-test "$S3_PID"
 
 log "Migrating and seeding the test database…"
 (cd "$ROOT" && npx tsx scripts/migrate.ts && npx tsx scripts/seed.ts)
+if has_suite integration; then
+  # The two-instance test's own database in the same cluster: only its two servers run jobs on it.
+  PAIR_DB=tonewright_test_pair
+  psql_as "$DB_PORT" "$DB_PASSWORD" postgres "drop database if exists $PAIR_DB with (force)"
+  ensure_database "$DB_PORT" "$DB_PASSWORD" "$PAIR_DB"
+  export TW_PAIR_DATABASE_URL="$(app_database_url "$DB_PORT" "$APP_DB_PASSWORD" "$PAIR_DB")"
+  (cd "$ROOT" && NUXT_DATABASE_URL="$TW_PAIR_DATABASE_URL" npx tsx scripts/migrate.ts)
+fi
 
 build_if_stale "$OUT_DIR"
 

@@ -5,10 +5,11 @@ import { plainSentence } from '../../shared/validation'
 /**
  * The one status policy: 400 bad input, 401 not signed in, 403 role may not,
  * 404 not found or another workshop's, 409 conflicts with the current state,
- * 413 too large, 415 not a supported type, 422 readable but unusable, 429 slow down.
+ * 413 too large, 415 not a supported type, 416 a byte range that cannot be served,
+ * 422 readable but unusable, 429 slow down.
  * The message is one plain sentence for the person at the screen.
  */
-export function fail(statusCode: 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503, message: string): never {
+export function fail(statusCode: 400 | 401 | 403 | 404 | 409 | 413 | 415 | 416 | 422 | 429 | 503, message: string): never {
   throw createError({ statusCode, statusMessage: STATUS_TEXT[statusCode], message })
 }
 
@@ -20,6 +21,7 @@ const STATUS_TEXT: Record<number, string> = {
   409: 'Conflict',
   413: 'Payload Too Large',
   415: 'Unsupported Media Type',
+  416: 'Range Not Satisfiable',
   422: 'Unprocessable Entity',
   429: 'Too Many Requests',
   503: 'Service Unavailable',

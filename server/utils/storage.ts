@@ -1,95 +1,62 @@
-import { mkdir, readdir, readFile, rename, rm, stat, writeFile } from 'node:fs/promises'
-import { dirname, relative, resolve, sep } from 'node:path'
+import type { Readable } from 'node:stream'
 
 /** One stored object as listed: its key and when it was last written. */
 export interface StoredObject { key: string, modifiedAt: Date }
 
+/** What a stored object is without reading it. */
+export interface ObjectInfo { size: number, modifiedAt: Date }
+
+/** A byte range, both ends inclusive (as in HTTP's Range header). */
+export interface ByteRange { start: number, end: number }
+
 /**
- * Where strike audio and certificate PDFs live. The filesystem driver is the
- * default; an S3-compatible driver implements the same calls (`move` as copy and delete).
+ * Where strike audio and certificate PDFs live: the filesystem driver
+ * (storage-fs.ts, the default) or an S3-compatible bucket (storage-s3.ts). Both
+ * pass the same contract tests (tests/integration/server/utils/storage.test.ts).
  */
 export interface BlobStorage {
   put(key: string, bytes: Uint8Array, contentType: string): Promise<void>
   get(key: string): Promise<Uint8Array | null>
+  /** Size and time of an object, null when it does not exist. */
+  head(key: string): Promise<ObjectInfo | null>
+  /** The object's bytes (or `range` of them) as a stream, null when it does not exist. */
+  stream(key: string, range?: ByteRange): Promise<Readable | null>
   delete(key: string): Promise<void>
   /** Renames an object; false when `from` does not exist. */
   move(from: string, to: string): Promise<boolean>
-  /** Every object whose key starts with `prefix` (a folder, ending in `/`). */
+  /** Every object whose key starts with `prefix` (a folder, ending in `/`; '' for the whole store). */
   list(prefix: string): Promise<StoredObject[]>
+  /** Resolves when the store can be reached (readiness), rejects otherwise. */
+  ping(): Promise<void>
+}
+
+/** A key no object may have: it would leave its folder or the store. */
+export class InvalidStorageKey extends Error {
+  constructor(key: string) {
+    super(`Invalid storage key: ${JSON.stringify(key.slice(0, 300))}`)
+  }
 }
 
 const KEY = /^[a-z0-9][a-z0-9/_.-]{0,250}$/i
 
-function checkKey(key: string) {
-  if (!KEY.test(key) || key.includes('..')) throw new Error(`Invalid storage key: ${key}`)
+/**
+ * Keys are relative, plain ASCII paths: no leading slash, no `..` segment, no
+ * percent-encoding or backslash, so no driver can be led out of its folder or bucket prefix.
+ */
+export function checkKey(key: string) {
+  if (!KEY.test(key) || key.split('/').some(part => part === '..' || part === '.') || key.includes('//')) throw new InvalidStorageKey(key)
 }
 
-export function fileStorage(root: string): BlobStorage {
-  const base = resolve(root)
-  const pathOf = (key: string) => {
-    checkKey(key)
-    const path = resolve(base, key)
-    if (!path.startsWith(base + sep)) throw new Error(`Invalid storage key: ${key}`)
-    return path
-  }
-  return {
-    async put(key, bytes) {
-      const path = pathOf(key)
-      await mkdir(dirname(path), { recursive: true })
-      await writeFile(path, bytes)
-    },
-    async get(key) {
-      try {
-        return new Uint8Array(await readFile(pathOf(key)))
-      }
-      catch (error) {
-        if ((error as NodeJS.ErrnoException).code === 'ENOENT') return null
-        throw error
-      }
-    },
-    async delete(key) {
-      await rm(pathOf(key), { force: true })
-    },
-    async move(from, to) {
-      const target = pathOf(to)
-      await mkdir(dirname(target), { recursive: true })
-      try {
-        await rename(pathOf(from), target)
-        return true
-      }
-      catch (error) {
-        if ((error as NodeJS.ErrnoException).code === 'ENOENT') return false
-        throw error
-      }
-    },
-    async list(prefix) {
-      const dir = pathOf(prefix.replace(/\/+$/, ''))
-      let entries: string[]
-      try {
-        entries = await readdir(dir, { recursive: true })
-      }
-      catch (error) {
-        if ((error as NodeJS.ErrnoException).code === 'ENOENT') return []
-        throw error
-      }
-      const found: StoredObject[] = []
-      for (const entry of entries) {
-        const path = resolve(dir, entry)
-        const info = await stat(path).catch(() => null)
-        if (info?.isFile()) found.push({ key: relative(base, path).split(sep).join('/'), modifiedAt: info.mtime })
-      }
-      return found
-    },
-  }
+/** Runtime config `storage` (NUXT_STORAGE_*). */
+export interface StorageConfig {
+  driver: string
+  dir: string
+  bucket: string
+  region: string
+  endpoint: string
+  forcePathStyle: boolean | string
+  accessKeyId: string
+  secretAccessKey: string
 }
 
-let storage: BlobStorage | undefined
-
-/** The configured storage (runtime config `storage.driver`, `storage.dir`). */
-export function useBlobStorage(): BlobStorage {
-  if (storage) return storage
-  const config = useRuntimeConfig().storage as { driver: string, dir: string }
-  if (config.driver !== 'fs') throw new Error(`Storage driver "${config.driver}" is not available in this build; use "fs".`)
-  storage = fileStorage(config.dir)
-  return storage
-}
+export const STORAGE_DRIVERS = ['fs', 's3'] as const

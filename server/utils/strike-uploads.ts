@@ -28,7 +28,7 @@ export async function sweepStrikeUploads(db: Database, storage: BlobStorage, old
     const report: SweepReport = { ran: true, removed: [], promoted: [] }
     for (const object of stale) {
       const audioKey = committed.get(PENDING.exec(object.key)?.[1] ?? '')
-      if (audioKey && await storage.get(audioKey) === null) {
+      if (audioKey && await storage.head(audioKey) === null) {
         await storage.move(object.key, audioKey)
         report.promoted.push(object.key)
       }

@@ -19,7 +19,7 @@ const SENTENCE = 'Choose your own password first: you signed in with a temporary
 /** Routes anyone may call without a session: the account's state does not matter to them. */
 const PUBLIC = new Set([
   'POST /api/auth/login', 'POST /api/auth/signup', 'POST /api/auth/forgot-password', 'POST /api/auth/reset-password',
-  'GET /api/health', 'GET /api/verify/:code', 'POST /api/invitations/lookup', 'POST /api/invitations/accept',
+  'GET /api/health', 'GET /api/ready', 'GET /api/verify/:code', 'POST /api/invitations/lookup', 'POST /api/invitations/accept',
 ])
 /** What a person on a temporary password still needs: read the session, change the password, sign out. */
 const ALLOWED = new Set(['GET /api/auth/session', 'POST /api/auth/password', 'POST /api/auth/logout'])

@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os'
 import { createDatabase } from '../../../server/database/client'
 import { mailMessages } from '../../../server/database/schema'
 import { deliverMessage } from '../../../server/utils/mail'
-import { fileStorage } from '../../../server/utils/storage'
+import { fileStorage } from '../../../server/utils/storage-fs'
 
 const [to, smtpPort, leaseS] = process.argv.slice(2)
 const { db } = createDatabase(process.env.NUXT_DATABASE_URL!, { max: 2 })

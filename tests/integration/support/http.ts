@@ -4,8 +4,14 @@ export const BASE_URL = process.env.TW_BASE_URL ?? 'http://127.0.0.1:3100'
 
 export interface Reply<T = any> { status: number, body: T, headers: Headers }
 
-/** A JSON request against the running test server. */
-export async function api<T = any>(path: string, options: { method?: string, body?: unknown, token?: string, headers?: Record<string, string> } = {}): Promise<Reply<T>> {
+let target = BASE_URL
+/** Points every helper of this module at another server (the two-instance test's first instance). */
+export function useServer(baseUrl: string) {
+  target = baseUrl
+}
+
+/** A JSON request against the running test server (or `baseUrl`, or the one `useServer` chose). */
+export async function api<T = any>(path: string, options: { method?: string, body?: unknown, token?: string, headers?: Record<string, string>, baseUrl?: string } = {}): Promise<Reply<T>> {
   const headers: Record<string, string> = { accept: 'application/json', ...options.headers }
   if (options.token) headers.authorization = `Bearer ${options.token}`
   let body: BodyInit | undefined
@@ -14,7 +20,7 @@ export async function api<T = any>(path: string, options: { method?: string, bod
     headers['content-type'] = 'application/json'
     body = JSON.stringify(options.body)
   }
-  const response = await fetch(`${BASE_URL}${path}`, { method: options.method ?? 'GET', headers, body })
+  const response = await fetch(`${options.baseUrl ?? target}${path}`, { method: options.method ?? 'GET', headers, body })
   const text = await response.text()
   let parsed: unknown = text
   try {
