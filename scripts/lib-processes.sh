@@ -94,6 +94,7 @@ mail_catcher_start() {
 }
 
 mail_catcher_stop() { stop_recorded "$1/catcher.pid" scripts/mail-catcher.ts; }
+
 # s3_fake_start PORT DIR BUCKETS PID_FILE: the local S3 fake (scripts/s3-fake.ts, s3rver) on
 # loopback in the background, objects under DIR/objects, the buckets (comma-separated) made
 # at start; it writes PID_FILE. s3_fake_stop PID_FILE ends that process.
