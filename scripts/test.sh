@@ -73,6 +73,7 @@ log "Migrating and seeding the test database…"
 (cd "$ROOT" && npx tsx scripts/migrate.ts && npx tsx scripts/seed.ts)
 
 build_if_stale "$OUT_DIR"
+ensure_cli_built
 
 cd "$ROOT"
 if has_suite typecheck; then log "Type-checking…"; npx nuxt typecheck; fi
