@@ -1,11 +1,11 @@
 import { randomUUID } from 'node:crypto'
-import { and, eq, sql } from 'drizzle-orm'
+import { and, eq, getTableColumns, sql } from 'drizzle-orm'
 import { pieces, sets, strikeAnalyses, strikes, templateVersions } from '../database/schema'
 import type { Database } from '../database/client'
 import type { AnalysisResult } from '../../shared/analysis/types'
 import { STAGE_LABELS, STRIKEABLE_STAGES, type PieceStage } from '../../shared/records/stages'
 import type { Member } from './auth'
-import { runAnalysis } from './analysis'
+import { measureStrike } from './analysis'
 import { audit } from './audit'
 import { fail } from './http-errors'
 import type { UploadedFile } from './multipart'
@@ -34,6 +34,9 @@ export const PENDING_STRIKE_AUDIO = 'pending/strikes/'
 export function pendingAudioKey(workshopId: string, strikeId: string, extension: string) {
   return `${PENDING_STRIKE_AUDIO}${workshopId}/${strikeId}.${extension}`
 }
+
+/** A strike's columns but its result, which the caller already holds. */
+const { analysis: _analysis, ...STRIKE_COLUMNS } = getTableColumns(strikes)
 
 /** PostgreSQL's "lock not available" (lock_timeout) and "serialization failure". */
 const BUSY_CODES = new Set(['55P03', '40001'])
@@ -65,7 +68,7 @@ export async function recordStrike(
   checkStrikeable(piece.stage)
   checkAssignee(member, piece.assigneeId)
 
-  const analysis = await runAnalysis(file.bytes, {
+  const { result: analysis, json: analysisJson } = await measureStrike(file.bytes, {
     note: piece.note,
     targetHz: piece.targetHz,
     referenceHz: set.referenceHz,
@@ -94,16 +97,18 @@ export async function recordStrike(
       checkAssignee(member, current.assigneeId)
       const verdict = analysis.verdict
       const worst = worstCents(analysis)
+      // The worker's JSON text goes to both rows as it is; the stored result is not read back.
+      const stored = sql`${analysisJson}::jsonb`
       const [strike] = await tx.insert(strikes).values({
         id: strikeId, workshopId: member.workshopId, pieceId, userId: member.userId, stage: current.stage,
         temperatureC: conditions.temperatureC ?? null, humidityPct: conditions.humidityPct ?? null,
         audioKey, audioBytes: file.bytes.byteLength, audioType: file.type || 'application/octet-stream', audioName: file.filename.slice(0, 200),
-        engineVersion: analysis.engineVersion, analysis, templateVersionId: template.id,
+        engineVersion: analysis.engineVersion, analysis: stored, templateVersionId: template.id,
         fundamentalHz: analysis.fundamentalHz, worstCents: worst, verdict,
-      }).returning()
+      }).returning(STRIKE_COLUMNS)
       // The first entry of the strike's result history.
       await tx.insert(strikeAnalyses).values({
-        workshopId: member.workshopId, strikeId, engineVersion: analysis.engineVersion, analysis, verdict, worstCents: worst,
+        workshopId: member.workshopId, strikeId, engineVersion: analysis.engineVersion, analysis: stored, verdict, worstCents: worst,
         fundamentalHz: analysis.fundamentalHz, applied: true, reason: 'recorded', createdBy: member.userId, createdAt: strike!.createdAt,
       })
       // A blank or returned piece is being tuned as soon as it is struck; a strike while
