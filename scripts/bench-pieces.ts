@@ -42,17 +42,17 @@ async function signUp(n: number) {
   return { token: token as string, workshopId: workshopId as string, userId: user!.user_id as string, versionId: templates[0].current.id as string }
 }
 
-async function seedWorkshop(w: { workshopId: string, userId: string, versionId: string }) {
-  await admin`
+async function seedWorkshop(sql: postgres.TransactionSql, w: { workshopId: string, userId: string, versionId: string }) {
+  await sql`
     insert into sets (workshop_id, name, model, serial, buyer_name, buyer_email, from_note, to_note)
     select ${w.workshopId}, 'Set ' || g, 'BM-43', 'S-' || g, 'Buyer', 'buyer@example.test', 'A2', 'C7' from generate_series(1, ${SETS}) g`
-  await admin`
+  await sql`
     insert into pieces (workshop_id, set_id, position, note, midi, target_hz, template_version_id, stage, strike_count, latest_verdict, latest_worst_cents, assignee_id)
     select ${w.workshopId}, s.id, p, 'N' || p, 44 + p, 110 * power(2, p / 12.0), ${w.versionId},
            (array['blank','roughed','tuning','review','approved','rework'])[1 + abs(p + hashtext(s.id::text)) % 6],
            ${PER_PIECE}, (array['within','outside','incomplete'])[1 + p % 3], ((p * 37 + hashtext(s.id::text)) % 61) - 30.0, ${w.userId}
     from sets s cross join generate_series(1, 50) p where s.workshop_id = ${w.workshopId} and (s.serial = 'S-' || ${SETS} and p <= ${PIECES - (SETS - 1) * 50} or s.serial <> 'S-' || ${SETS})`
-  await admin`
+  await sql`
     insert into strikes (workshop_id, piece_id, user_id, stage, audio_key, audio_bytes, audio_type, engine_version, analysis, fundamental_hz, worst_cents, verdict, created_at)
     select ${w.workshopId}, p.id, ${w.userId}, 'tuning', 'bench/' || p.id || '/' || k, 0, 'audio/wav', '1.0.0',
            jsonb_build_object('matches', jsonb_build_array(jsonb_build_object('label', 'fundamental', 'cents', k))), p.target_hz, k, 'outside', now() - k * interval '1 hour'
@@ -80,7 +80,7 @@ await admin.begin(async (tx) => {
   for (const index of indexes) await tx.unsafe(`drop index ${index.name}`)
   for (const [n, w] of [main, ...others].entries()) {
     const t = performance.now()
-    await seedWorkshop(w)
+    await seedWorkshop(tx, w)
     console.log(`workshop ${n + 1}/${WORKSHOPS}: ${SETS} sets, ${PIECES} pieces, ${PIECES * PER_PIECE} strikes in ${seconds(t)}`)
   }
 })

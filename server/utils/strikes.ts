@@ -63,6 +63,7 @@ export async function recordStrike(
     .innerJoin(sets, eq(sets.id, pieces.setId))
     .innerJoin(templateVersions, eq(templateVersions.id, pieces.templateVersionId))
     .where(and(eq(pieces.id, pieceId), eq(pieces.workshopId, member.workshopId)))
+    .prepare('strike_piece').execute()
   if (!row) fail(404, 'No such piece in this workshop.')
   const { piece, set, template } = row
   checkStrikeable(piece.stage)
@@ -92,7 +93,9 @@ export async function recordStrike(
       // A strike never waits long for a busy piece; the pending upload must not outlive the sweep's age.
       await tx.execute(sql`set local lock_timeout = '20s'`)
       // Lock the piece and read it again: its stage or assignee may have changed while the engine ran.
+      // Named statements (here and below): parsed once per connection, one round trip each after that.
       const [current] = await tx.select({ stage: pieces.stage, assigneeId: pieces.assigneeId }).from(pieces).where(eq(pieces.id, pieceId)).for('update')
+        .prepare('strike_lock_piece').execute()
       if (!current || !STRIKEABLE_STAGES.includes(current.stage)) fail(409, 'The piece changed stage while the strike was measured; strike it again.')
       checkAssignee(member, current.assigneeId)
       const verdict = analysis.verdict
@@ -105,12 +108,12 @@ export async function recordStrike(
         audioKey, audioBytes: file.bytes.byteLength, audioType: file.type || 'application/octet-stream', audioName: file.filename.slice(0, 200),
         engineVersion: analysis.engineVersion, analysis: stored, templateVersionId: template.id,
         fundamentalHz: analysis.fundamentalHz, worstCents: worst, verdict,
-      }).returning(STRIKE_COLUMNS)
+      }).returning(STRIKE_COLUMNS).prepare('strike_insert').execute()
       // The first entry of the strike's result history.
       await tx.insert(strikeAnalyses).values({
         workshopId: member.workshopId, strikeId, engineVersion: analysis.engineVersion, analysis: stored, verdict, worstCents: worst,
         fundamentalHz: analysis.fundamentalHz, applied: true, reason: 'recorded', createdBy: member.userId, createdAt: strike!.createdAt,
-      })
+      }).prepare('strike_analysis_insert').execute()
       // A blank or returned piece is being tuned as soon as it is struck; a strike while
       // roughing or in review leaves the stage alone.
       const stage = current.stage === 'rework' || current.stage === 'blank' ? 'tuning' : current.stage
@@ -120,7 +123,7 @@ export async function recordStrike(
         strikeCount: sql`${pieces.strikeCount} + 1`, latestStrikeId: strikeId, latestVerdict: verdict,
         latestWorstCents: worst, latestFundamentalHz: analysis.fundamentalHz, latestStrikeAt: strike!.createdAt,
         stage, ...claim, updatedAt: new Date(),
-      }).where(eq(pieces.id, pieceId))
+      }).where(eq(pieces.id, pieceId)).prepare('strike_piece_update').execute()
       if (stage !== current.stage) {
         await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.stage', subjectType: 'piece', subjectId: pieceId, fromState: current.stage, toState: stage, reason: 'struck' })
       }
