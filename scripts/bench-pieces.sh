@@ -23,7 +23,8 @@ cleanup() {
 trap cleanup INT TERM EXIT
 pg_start "$PG_DIR" "$DB_PORT"
 ensure_app_role "$DB_PORT" "$DB_PASSWORD" "$APP_DB_PASSWORD"
-psql_as "$DB_PORT" "$DB_PASSWORD" postgres "drop database if exists tonewright_bench with (force)"
+# --measure-only measures the database the last run seeded again.
+case " $* " in *" --measure-only "*) ;; *) psql_as "$DB_PORT" "$DB_PASSWORD" postgres "drop database if exists tonewright_bench with (force)" ;; esac
 ensure_database "$DB_PORT" "$DB_PASSWORD" tonewright_bench
 export NUXT_DATABASE_URL="$(app_database_url "$DB_PORT" "$APP_DB_PASSWORD" tonewright_bench)"
 export NUXT_AUTH_SECRET="bench-secret-$(secret_file bench-auth-secret)" NUXT_STORAGE_DIR="$DATA/bench-storage"

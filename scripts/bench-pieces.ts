@@ -13,7 +13,7 @@ import type { Member } from '../server/utils/auth'
 import { getPiece, listPieces } from '../server/utils/pieces'
 import { PieceQuerySchema } from '../shared/schemas/records'
 
-const { values } = parseArgs({ options: { strikes: { type: 'string', default: '100000' }, pieces: { type: 'string' }, workshops: { type: 'string', default: '1' } } })
+const { values } = parseArgs({ options: { 'strikes': { type: 'string', default: '100000' }, 'pieces': { type: 'string' }, 'workshops': { type: 'string', default: '1' }, 'measure-only': { type: 'boolean', default: false } } })
 const STRIKES = Number(values.strikes)
 const PIECES = Number(values.pieces ?? Math.round(STRIKES / 5))
 const WORKSHOPS = Number(values.workshops)
@@ -66,41 +66,56 @@ function fullResult(k: number) {
   return { engineVersion: '2.0.0', partials, matches, verdict: 'within', guidance: [], warnings: [] }
 }
 
+/** --measure-only: the database seeded by the last run (bench-pieces.sh keeps it), measured again. */
+async function lastRun() {
+  const [owner] = await app`select u.email, m.workshop_id, m.user_id from users u join memberships m on m.user_id = u.id where u.email like 'bench-%-0@example.test' order by u.created_at desc limit 1`
+  if (!owner) throw new Error('No earlier seed to measure; run without --measure-only first.')
+  const { token } = await json('/api/auth/login', { method: 'POST', body: JSON.stringify({ email: owner.email, password: 'bench-password-1' }) })
+  const [piece] = await app`select id from pieces where workshop_id = ${owner.workshop_id} and strike_count = 50 limit 1`
+  return { main: { token: token as string, workshopId: owner.workshop_id as string, userId: owner.user_id as string }, piece: piece! }
+}
+
 const t0 = performance.now()
-const main = await signUp(0)
-const others = []
-for (let n = 1; n < WORKSHOPS; n++) others.push(await signUp(n))
-// Indexes are dropped while the rows load and built again from their own definitions afterwards.
-const indexes = await admin<{ name: string, def: string }[]>`
+const seeded = values['measure-only'] ? await lastRun() : await seed()
+const { main, piece } = seeded
+
+async function seed() {
+  const main = await signUp(0)
+  const others = []
+  for (let n = 1; n < WORKSHOPS; n++) others.push(await signUp(n))
+  // Indexes are dropped while the rows load and built again from their own definitions afterwards.
+  const indexes = await admin<{ name: string, def: string }[]>`
   select indexname as name, indexdef as def from pg_indexes i
   where schemaname = 'public' and tablename in ('pieces', 'strikes', 'sets')
     and not exists (select 1 from pg_constraint c where c.conname = i.indexname)`
-await admin.begin(async (tx) => {
-  await tx`set local session_replication_role = replica`
-  for (const index of indexes) await tx.unsafe(`drop index ${index.name}`)
-  for (const [n, w] of [main, ...others].entries()) {
-    const t = performance.now()
-    await seedWorkshop(tx, w)
-    console.log(`workshop ${n + 1}/${WORKSHOPS}: ${SETS} sets, ${PIECES} pieces, ${PIECES * PER_PIECE} strikes in ${seconds(t)}`)
-  }
-})
-let t = performance.now()
-for (const index of indexes) await admin.unsafe(index.def)
-console.log(`${indexes.length} indexes built in ${seconds(t)}`)
-// The piece page: one piece with 50 strikes carrying full-size results.
-const [piece] = await admin`select id from pieces where workshop_id = ${main.workshopId} order by set_id, position limit 1`
-for (let k = PER_PIECE + 1; k <= 50; k++) {
-  await admin`
+  await admin.begin(async (tx) => {
+    await tx`set local session_replication_role = replica`
+    for (const index of indexes) await tx.unsafe(`drop index ${index.name}`)
+    for (const [n, w] of [main, ...others].entries()) {
+      const t = performance.now()
+      await seedWorkshop(tx, w)
+      console.log(`workshop ${n + 1}/${WORKSHOPS}: ${SETS} sets, ${PIECES} pieces, ${PIECES * PER_PIECE} strikes in ${seconds(t)}`)
+    }
+  })
+  let t = performance.now()
+  for (const index of indexes) await admin.unsafe(index.def)
+  console.log(`${indexes.length} indexes built in ${seconds(t)}`)
+  // The piece page: one piece with 50 strikes carrying full-size results.
+  const [piece] = await admin`select id from pieces where workshop_id = ${main.workshopId} order by set_id, position limit 1`
+  for (let k = PER_PIECE + 1; k <= 50; k++) {
+    await admin`
     insert into strikes (workshop_id, piece_id, user_id, stage, audio_key, audio_bytes, audio_type, engine_version, analysis, fundamental_hz, worst_cents, verdict, created_at)
     values (${main.workshopId}, ${piece!.id}, ${main.userId}, 'tuning', ${`bench/${piece!.id}/${k}`}, 0, 'audio/wav', '2.0.0', ${admin.json(fullResult(k))}, 440, ${k / 10 - 2}, 'within', now() - ${k} * interval '1 minute')`
+  }
+  await admin`update pieces set strike_count = 50 where id = ${piece!.id}`
+  t = performance.now()
+  await admin`vacuum analyze sets, pieces, strikes`
+  console.log(`vacuum analyze in ${seconds(t)}`)
+  const [{ n }] = await app`select count(*)::int as n from strikes`
+  const [{ size }] = await app`select pg_size_pretty(pg_database_size(current_database())) as size`
+  console.log(`seeded ${n} strikes in ${WORKSHOPS} workshop(s) (${size}) in ${seconds(t0)}`)
+  return { main, piece: piece! }
 }
-await admin`update pieces set strike_count = 50 where id = ${piece!.id}`
-t = performance.now()
-await admin`vacuum analyze sets, pieces, strikes`
-console.log(`vacuum analyze in ${seconds(t)}`)
-const [{ n }] = await app`select count(*)::int as n from strikes`
-const [{ size }] = await app`select pg_size_pretty(pg_database_size(current_database())) as size`
-console.log(`seeded ${n} strikes in ${WORKSHOPS} workshop(s) (${size}) in ${seconds(t0)}`)
 
 const quantile = (xs: number[], q: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(q * xs.length))]!
 async function timeRequests(path: string, token: string) {
