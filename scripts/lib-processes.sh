@@ -21,6 +21,12 @@ build_if_stale() {
   )
 }
 
+# ensure_cli_built: the precompiled command-line scripts (`npm run analyze`) in .data/cli,
+# rebuilt only when a source changed; the CLI also does this by itself when needed.
+ensure_cli_built() {
+  (cd "$ROOT" && node scripts/run-built.mjs --build analyze) || die "The command-line build failed."
+}
+
 # take_lock FILE MESSAGE: an exclusive lock on FILE held on fd 9 until release_lock
 # or the end of the script (the kernel drops it when the script dies, even by kill -9).
 # Long-lived children are started with fd 9 closed so that they never hold it.

@@ -108,6 +108,7 @@ if [ "${NODE_ENV:-}" != "production" ] || [ "${TONEWRIGHT_SEED_DEMO:-}" = 1 ]; t
   (cd "$ROOT" && npx tsx scripts/seed.ts)
 fi
 build_if_stale
+ensure_cli_built
 
 cat <<MSG
 

@@ -97,6 +97,7 @@ if has_suite integration; then
 fi
 
 build_if_stale "$OUT_DIR"
+ensure_cli_built
 
 cd "$ROOT"
 if has_suite typecheck; then log "Type-checking…"; npx nuxt typecheck; fi

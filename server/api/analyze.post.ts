@@ -2,5 +2,5 @@
 export default defineEventHandler(async (event) => {
   await requireMember(event, 'bench:strike')
   const { file, fields } = await readUpload(event)
-  return analyzeUpload(file.bytes, fields)
+  return sendJsonText(event, await analyzeUpload(file.bytes, fields))
 })

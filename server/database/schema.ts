@@ -183,6 +183,8 @@ export const pieces = pgTable('pieces', {
   index('pieces_workshop_stage_idx').on(t.workshopId, t.stage, t.updatedAt),
   index('pieces_workshop_verdict_idx').on(t.workshopId, t.latestVerdict),
   index('pieces_workshop_assignee_idx').on(t.workshopId, t.assigneeId),
+  // The Pieces list sorted by worst cents (its default for review) reads this in order and stops at the page.
+  index('pieces_workshop_cents_idx').on(t.workshopId, sql`abs(${t.latestWorstCents}) desc nulls last`, t.id),
 ])
 
 /**

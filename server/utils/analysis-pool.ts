@@ -32,6 +32,12 @@ export class AnalysisBusyError extends Error {
   }
 }
 
+/** A measurement and its JSON text (made by the worker, so the request thread never serialises it). */
+export interface MeasuredStrike {
+  result: AnalysisResult
+  json: string
+}
+
 export interface AnalysisPool {
   readonly threads: number
   readonly maxQueue: number
@@ -39,6 +45,8 @@ export interface AnalysisPool {
   readonly mode: 'pool' | 'in-thread'
   readonly workerFile: string | null
   run(bytes: Uint8Array, options: AnalyzeOptions): Promise<AnalysisResult>
+  /** As run, with the result's JSON text beside it. */
+  measure(bytes: Uint8Array, options: AnalyzeOptions): Promise<MeasuredStrike>
   close(): Promise<void>
 }
 
@@ -66,8 +74,8 @@ export function locateWorker(production = process.env.NODE_ENV === 'production')
   return null
 }
 
-function decodeReply(reply: AnalysisReply): AnalysisResult {
-  if (reply.ok) return reply.result
+function decodeReply(reply: AnalysisReply): MeasuredStrike {
+  if (reply.ok) return { result: reply.result, json: reply.json }
   throw new AnalysisError(reply.status, reply.code, reply.message)
 }
 
@@ -101,26 +109,28 @@ export function createAnalysisPool(options: AnalysisPoolOptions = {}): AnalysisP
     execArgv,
     name: 'default',
   })
+  const measure = async (bytes: Uint8Array, analyzeOptions: AnalyzeOptions): Promise<MeasuredStrike> => {
+    if (piscina.queueSize >= maxQueue) throw new AnalysisBusyError(retryAfterS)
+    let reply: AnalysisReply
+    try {
+      // The upload is a view into the whole request body: copy just its bytes and hand
+      // that copy over (a plain clone would copy the whole body buffer).
+      const own = bytes.slice()
+      reply = await piscina.run({ bytes: own, options: analyzeOptions }, { transferList: [own.buffer] })
+    }
+    catch (error) {
+      if (error instanceof Error && /queue is at limit|all workers are busy/i.test(error.message)) throw new AnalysisBusyError(retryAfterS)
+      throw error
+    }
+    return decodeReply(reply)
+  }
   return {
     threads,
     maxQueue,
     mode: 'pool',
     workerFile: located.file,
-    async run(bytes, analyzeOptions) {
-      if (piscina.queueSize >= maxQueue) throw new AnalysisBusyError(retryAfterS)
-      let reply: AnalysisReply
-      try {
-        // The upload is a view into the whole request body: copy just its bytes and hand
-        // that copy over (a plain clone would copy the whole body buffer).
-        const own = bytes.slice()
-        reply = await piscina.run({ bytes: own, options: analyzeOptions }, { transferList: [own.buffer] })
-      }
-      catch (error) {
-        if (error instanceof Error && /queue is at limit|all workers are busy/i.test(error.message)) throw new AnalysisBusyError(retryAfterS)
-        throw error
-      }
-      return decodeReply(reply)
-    },
+    measure,
+    run: async (bytes, analyzeOptions) => (await measure(bytes, analyzeOptions)).result,
     close: () => piscina.close({ force: true }),
   }
 }
@@ -128,23 +138,25 @@ export function createAnalysisPool(options: AnalysisPoolOptions = {}): AnalysisP
 /** Development fallback without a worker: the same bound on waiting tasks, on this thread. */
 function inThreadPool(threads: number, maxQueue: number, retryAfterS: number): AnalysisPool {
   let waiting = 0
+  const measure = async (bytes: Uint8Array, options: AnalyzeOptions): Promise<MeasuredStrike> => {
+    if (waiting >= maxQueue + threads) throw new AnalysisBusyError(retryAfterS)
+    waiting++
+    try {
+      // Loaded only here, so the server bundle does not carry the engine.
+      const { default: analyze } = await import('../workers/analysis.worker')
+      return decodeReply(await analyze({ bytes, options }))
+    }
+    finally {
+      waiting--
+    }
+  }
   return {
     threads,
     maxQueue,
     mode: 'in-thread',
     workerFile: null,
-    async run(bytes, options) {
-      if (waiting >= maxQueue + threads) throw new AnalysisBusyError(retryAfterS)
-      waiting++
-      try {
-        // Loaded only here, so the server bundle does not carry the engine.
-        const { default: analyze } = await import('../workers/analysis.worker')
-        return decodeReply(await analyze({ bytes, options }))
-      }
-      finally {
-        waiting--
-      }
-    },
+    measure,
+    run: async (bytes, options) => (await measure(bytes, options)).result,
     close: async () => {},
   }
 }

@@ -2,7 +2,7 @@ import { createError } from 'h3'
 import { AnalysisError } from '../../shared/analysis/AnalysisError'
 import { parseAnalyzeOptions } from '../../shared/analysis/parseAnalyzeOptions'
 import type { AnalysisResult, AnalyzeOptions } from '../../shared/analysis/types'
-import { AnalysisBusyError, useAnalysisPool } from './analysis-pool'
+import { AnalysisBusyError, useAnalysisPool, type MeasuredStrike } from './analysis-pool'
 import { fail } from './http-errors'
 
 /**
@@ -11,8 +11,13 @@ import { fail } from './http-errors'
  * analysis-pool plugin from `data.retryAfterS`).
  */
 export async function runAnalysis(bytes: Uint8Array, options: AnalyzeOptions): Promise<AnalysisResult> {
+  return (await measureStrike(bytes, options)).result
+}
+
+/** As runAnalysis, with the result's JSON text as the worker wrote it (to store and send without serialising again). */
+export async function measureStrike(bytes: Uint8Array, options: AnalyzeOptions): Promise<MeasuredStrike> {
   try {
-    return await useAnalysisPool().run(bytes, options)
+    return await useAnalysisPool().measure(bytes, options)
   }
   catch (error) {
     if (error instanceof AnalysisError) fail(error.status, error.message)
@@ -23,8 +28,8 @@ export async function runAnalysis(bytes: Uint8Array, options: AnalyzeOptions): P
   }
 }
 
-/** The analyze route: options arrive as form fields. */
-export async function analyzeUpload(bytes: Uint8Array, fields: Record<string, string>) {
+/** The analyze route: options arrive as form fields; answers the result's JSON text. */
+export async function analyzeUpload(bytes: Uint8Array, fields: Record<string, string>): Promise<string> {
   let options: AnalyzeOptions
   // The CLI's spelling (target-hz) and the JSON spelling (targetHz) both work.
   const camel = Object.fromEntries(Object.entries(fields).map(([k, v]) => [k.replace(/-([a-z])/g, (_, c: string) => c.toUpperCase()), v]))
@@ -35,5 +40,5 @@ export async function analyzeUpload(bytes: Uint8Array, fields: Record<string, st
     if (error instanceof AnalysisError) fail(error.status, error.message)
     throw error
   }
-  return runAnalysis(bytes, options)
+  return (await measureStrike(bytes, options)).json
 }

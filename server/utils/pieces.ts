@@ -51,7 +51,10 @@ export async function listPieces(db: Executor, member: Member, query: PieceQuery
       .orderBy(...SORTS[query.sort]!)
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize),
-    db.select({ n: count() }).from(pieces).innerJoin(sets, eq(sets.id, pieces.setId)).where(filter),
+    // Only a text search needs the sets; without it the count reads the pieces' indexes alone.
+    query.q
+      ? db.select({ n: count() }).from(pieces).innerJoin(sets, eq(sets.id, pieces.setId)).where(filter)
+      : db.select({ n: count() }).from(pieces).where(filter),
   ])
   return { items, total: total?.n ?? 0, page: query.page, pageSize: query.pageSize }
 }

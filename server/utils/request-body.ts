@@ -3,6 +3,8 @@ import { getHeader } from 'h3'
 import { fail } from './http-errors'
 
 const RAW_BODY = Symbol.for('h3RawBody')
+/** A strike of a few seconds is well under this; a longer declared body is not given its memory up front. */
+const PREALLOCATE_MAX_BYTES = 8 * 1024 * 1024
 
 /** Whether the request says it carries a body (a length above zero, or chunked). */
 export function hasBody(event: H3Event): boolean {
@@ -30,6 +32,10 @@ export async function readBodyLimited(event: H3Event, maxBytes: number, tooLarge
   const declared = Number.parseInt(getHeader(event, 'content-length') ?? '', 10)
   if (Number.isFinite(declared) && declared > maxBytes) refuseTooLarge(event, tooLarge)
   const body = new Promise<Buffer>((resolve, reject) => {
+    // With a declared length the bytes stream straight into one buffer of that size; a
+    // chunked body, or one declaring more than PREALLOCATE_MAX_BYTES (memory is held only
+    // for bytes that came), collects its chunks and joins them at the end.
+    const whole = Number.isFinite(declared) && declared > 0 && declared <= PREALLOCATE_MAX_BYTES ? Buffer.allocUnsafeSlow(declared) : null
     const chunks: Buffer[] = []
     let received = 0
     const cleanup = () => {
@@ -51,12 +57,14 @@ export async function readBodyLimited(event: H3Event, maxBytes: number, tooLarge
         }
         return
       }
-      chunks.push(chunk)
+      if (!whole) chunks.push(chunk)
+      else if (received <= whole.length) chunk.copy(whole, received - chunk.length)
+      else onError(new Error('The request body is longer than its Content-Length.'))
     }
     const onEnd = () => {
       cleanup()
       // Always a fresh buffer holding only the body: a single socket chunk's memory can also hold the request's headers.
-      resolve(Buffer.concat(chunks, received))
+      resolve(whole ? whole.subarray(0, received) : Buffer.concat(chunks, received))
     }
     const onError = (error: Error) => {
       cleanup()

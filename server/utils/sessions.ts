@@ -37,15 +37,11 @@ export interface SessionMember {
   role: Role | null
 }
 
-/**
- * The signed-in user behind a token, with the workshop they act in: the session's
- * current one, or `workshopOverride` (e.g. an X-Workshop-Id header) when given.
- * A workshop the user is not a member of gives role null.
- */
-export async function findSessionMember(db: Executor, token: string, secret: string, workshopOverride?: string): Promise<SessionMember | null> {
-  // One round trip per request: session, user and (when there is one) the membership.
-  const workshopId = workshopOverride ? sql`${workshopOverride}::uuid` : sql`${sessions.workshopId}`
-  const [row] = await db
+/** The session lookup of every request, built once per database with placeholders. */
+function sessionMemberQuery(db: Executor) {
+  // The X-Workshop-Id override when given, else the session's current workshop.
+  const workshopId = sql`coalesce(${sql.placeholder('workshopOverride')}::uuid, ${sessions.workshopId})`
+  return db
     .select({
       sessionId: sessions.id, userId: users.id, email: users.email, name: users.name,
       mustChangePassword: users.mustChangePassword, workshopId: sql<string | null>`${workshopId}`,
@@ -55,8 +51,24 @@ export async function findSessionMember(db: Executor, token: string, secret: str
     .innerJoin(users, eq(users.id, sessions.userId))
     .leftJoin(memberships, and(eq(memberships.userId, users.id), sql`${memberships.workshopId} = ${workshopId}`))
     .leftJoin(workshops, eq(workshops.id, memberships.workshopId))
-    .where(and(eq(sessions.tokenHash, hashToken(token, secret)), gt(sessions.expiresAt, new Date())))
+    .where(and(eq(sessions.tokenHash, sql.placeholder('tokenHash')), gt(sessions.expiresAt, sql.placeholder('now'))))
     .limit(1)
+    // A named statement: PostgreSQL parses and plans it once per connection, not on every request.
+    .prepare('session_member')
+}
+
+const preparedLookups = new WeakMap<Executor, ReturnType<typeof sessionMemberQuery>>()
+
+/**
+ * The signed-in user behind a token, with the workshop they act in: the session's
+ * current one, or `workshopOverride` (e.g. an X-Workshop-Id header) when given.
+ * A workshop the user is not a member of gives role null.
+ */
+export async function findSessionMember(db: Executor, token: string, secret: string, workshopOverride?: string): Promise<SessionMember | null> {
+  // One round trip per request: session, user and (when there is one) the membership.
+  let lookup = preparedLookups.get(db)
+  if (!lookup) preparedLookups.set(db, lookup = sessionMemberQuery(db))
+  const [row] = await lookup.execute({ tokenHash: hashToken(token, secret), workshopOverride: workshopOverride ?? null, now: new Date().toISOString() })
   if (!row) return null
   return { ...row, workshopName: row.workshopName ?? null, role: row.role ?? null }
 }

@@ -1,11 +1,11 @@
 import { randomUUID } from 'node:crypto'
-import { and, eq, sql } from 'drizzle-orm'
+import { and, eq, getTableColumns, sql } from 'drizzle-orm'
 import { pieces, sets, strikeAnalyses, strikes, templateVersions } from '../database/schema'
 import type { Database } from '../database/client'
 import type { AnalysisResult } from '../../shared/analysis/types'
 import { STAGE_LABELS, STRIKEABLE_STAGES, type PieceStage } from '../../shared/records/stages'
 import type { Member } from './auth'
-import { runAnalysis } from './analysis'
+import { measureStrike } from './analysis'
 import { audit } from './audit'
 import { fail } from './http-errors'
 import type { UploadedFile } from './multipart'
@@ -35,6 +35,9 @@ export function pendingAudioKey(workshopId: string, strikeId: string, extension:
   return `${PENDING_STRIKE_AUDIO}${workshopId}/${strikeId}.${extension}`
 }
 
+/** A strike's columns but its result, which the caller already holds. */
+const { analysis: _analysis, ...STRIKE_COLUMNS } = getTableColumns(strikes)
+
 /** PostgreSQL's "lock not available" (lock_timeout) and "serialization failure". */
 const BUSY_CODES = new Set(['55P03', '40001'])
 
@@ -60,12 +63,13 @@ export async function recordStrike(
     .innerJoin(sets, eq(sets.id, pieces.setId))
     .innerJoin(templateVersions, eq(templateVersions.id, pieces.templateVersionId))
     .where(and(eq(pieces.id, pieceId), eq(pieces.workshopId, member.workshopId)))
+    .prepare('strike_piece').execute()
   if (!row) fail(404, 'No such piece in this workshop.')
   const { piece, set, template } = row
   checkStrikeable(piece.stage)
   checkAssignee(member, piece.assigneeId)
 
-  const analysis = await runAnalysis(file.bytes, {
+  const { result: analysis, json: analysisJson } = await measureStrike(file.bytes, {
     note: piece.note,
     targetHz: piece.targetHz,
     referenceHz: set.referenceHz,
@@ -89,23 +93,27 @@ export async function recordStrike(
       // A strike never waits long for a busy piece; the pending upload must not outlive the sweep's age.
       await tx.execute(sql`set local lock_timeout = '20s'`)
       // Lock the piece and read it again: its stage or assignee may have changed while the engine ran.
+      // Named statements (here and below): parsed once per connection, one round trip each after that.
       const [current] = await tx.select({ stage: pieces.stage, assigneeId: pieces.assigneeId }).from(pieces).where(eq(pieces.id, pieceId)).for('update')
+        .prepare('strike_lock_piece').execute()
       if (!current || !STRIKEABLE_STAGES.includes(current.stage)) fail(409, 'The piece changed stage while the strike was measured; strike it again.')
       checkAssignee(member, current.assigneeId)
       const verdict = analysis.verdict
       const worst = worstCents(analysis)
+      // The worker's JSON text goes to both rows as it is; the stored result is not read back.
+      const stored = sql`${analysisJson}::jsonb`
       const [strike] = await tx.insert(strikes).values({
         id: strikeId, workshopId: member.workshopId, pieceId, userId: member.userId, stage: current.stage,
         temperatureC: conditions.temperatureC ?? null, humidityPct: conditions.humidityPct ?? null,
         audioKey, audioBytes: file.bytes.byteLength, audioType: file.type || 'application/octet-stream', audioName: file.filename.slice(0, 200),
-        engineVersion: analysis.engineVersion, analysis, templateVersionId: template.id,
+        engineVersion: analysis.engineVersion, analysis: stored, templateVersionId: template.id,
         fundamentalHz: analysis.fundamentalHz, worstCents: worst, verdict,
-      }).returning()
+      }).returning(STRIKE_COLUMNS).prepare('strike_insert').execute()
       // The first entry of the strike's result history.
       await tx.insert(strikeAnalyses).values({
-        workshopId: member.workshopId, strikeId, engineVersion: analysis.engineVersion, analysis, verdict, worstCents: worst,
+        workshopId: member.workshopId, strikeId, engineVersion: analysis.engineVersion, analysis: stored, verdict, worstCents: worst,
         fundamentalHz: analysis.fundamentalHz, applied: true, reason: 'recorded', createdBy: member.userId, createdAt: strike!.createdAt,
-      })
+      }).prepare('strike_analysis_insert').execute()
       // A blank or returned piece is being tuned as soon as it is struck; a strike while
       // roughing or in review leaves the stage alone.
       const stage = current.stage === 'rework' || current.stage === 'blank' ? 'tuning' : current.stage
@@ -115,7 +123,7 @@ export async function recordStrike(
         strikeCount: sql`${pieces.strikeCount} + 1`, latestStrikeId: strikeId, latestVerdict: verdict,
         latestWorstCents: worst, latestFundamentalHz: analysis.fundamentalHz, latestStrikeAt: strike!.createdAt,
         stage, ...claim, updatedAt: new Date(),
-      }).where(eq(pieces.id, pieceId))
+      }).where(eq(pieces.id, pieceId)).prepare('strike_piece_update').execute()
       if (stage !== current.stage) {
         await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.stage', subjectType: 'piece', subjectId: pieceId, fromState: current.stage, toState: stage, reason: 'struck' })
       }

@@ -13,13 +13,18 @@ export interface AnalysisTask {
  * sentence) because class identity does not survive structured cloning.
  */
 export type AnalysisReply
-  = | { ok: true, result: AnalysisResult }
+  = | { ok: true, result: AnalysisResult, json: string }
     | { ok: false, status: AnalysisErrorStatus, code: string, message: string }
 
-/** The pool's task: decode and measure one strike off the request thread. */
+/**
+ * The pool's task: decode and measure one strike off the request thread. The result also
+ * comes back as JSON text, written here once, so the request thread stores and sends it
+ * without serialising it again.
+ */
 export default async function analyze(task: AnalysisTask): Promise<AnalysisReply> {
   try {
-    return { ok: true, result: await analyzeStrike(task.bytes, task.options) }
+    const result = await analyzeStrike(task.bytes, task.options)
+    return { ok: true, result, json: JSON.stringify(result) }
   }
   catch (error) {
     if (error instanceof AnalysisError) return { ok: false, status: error.status, code: error.code, message: error.message }

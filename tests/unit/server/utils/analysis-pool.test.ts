@@ -19,6 +19,15 @@ describe('analysis pool (worker threads from the TypeScript source through tsx)'
     expect(await pool.run(bytes, options)).toEqual(await analyzeStrike(bytes, options))
   }, 60_000)
 
+  it('measure brings the result and its JSON text, written once in the worker, with the caller\'s bytes untouched', async () => {
+    const bytes = fixture('strike-48k.flac')
+    const before = Buffer.from(bytes)
+    const { result, json } = await pool.measure(bytes, { targetHz: 440 })
+    expect(JSON.parse(json)).toEqual(JSON.parse(JSON.stringify(result)))
+    expect(json).toBe(JSON.stringify(result))
+    expect(Buffer.from(bytes).equals(before)).toBe(true)
+  }, 60_000)
+
   it('brings a refusal back as an AnalysisError with its status and sentence', async () => {
     const error = await pool.run(fixture('not-audio.txt'), {}).catch(e => e)
     expect(error).toBeInstanceOf(AnalysisError)

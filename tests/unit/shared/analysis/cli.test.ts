@@ -10,7 +10,7 @@ const root = fileURLToPath(new URL('../../../../', import.meta.url))
 const fixture = (name: string) => `tests/fixtures/audio/${name}`
 
 function cli(...args: string[]) {
-  const run = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/analyze.ts', ...args], { cwd: root, encoding: 'utf8', timeout: 60_000 })
+  const run = spawnSync(process.execPath, ['scripts/run-built.mjs', 'analyze', ...args], { cwd: root, encoding: 'utf8', timeout: 60_000 })
   return { code: run.status, stdout: run.stdout, stderr: run.stderr }
 }
 

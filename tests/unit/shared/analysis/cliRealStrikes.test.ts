@@ -12,7 +12,7 @@ import { REALISTIC_CASES, renderRealisticCase, tunedTruth } from '../../../suppo
 const root = fileURLToPath(new URL('../../../../', import.meta.url))
 
 function cliJson(file: string, targetHz: number, ratios: number[]) {
-  const run = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/analyze.ts', file, '--target-hz', String(targetHz), '--ratios', ratios.join(','), '--json'], { cwd: root, encoding: 'utf8', timeout: 90_000 })
+  const run = spawnSync(process.execPath, ['scripts/run-built.mjs', 'analyze', file, '--target-hz', String(targetHz), '--ratios', ratios.join(','), '--json'], { cwd: root, encoding: 'utf8', timeout: 90_000 })
   expect(run.stderr).toBe('')
   expect(run.status).toBe(0)
   return JSON.parse(run.stdout)

@@ -1,0 +1,1 @@
+CREATE INDEX "pieces_workshop_cents_idx" ON "pieces" USING btree ("workshop_id",abs("latest_worst_cents") desc nulls last,"id");
