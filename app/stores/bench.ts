@@ -1,4 +1,5 @@
 import { defineStore } from 'pinia'
+import { computed, markRaw, ref, shallowRef, watch } from 'vue'
 import type { AnalysisResult } from '#shared/analysis/types'
 
 export type CaptureState = 'off' | 'listening' | 'armed' | 'recording' | 'uploading'

@@ -1,3 +1,6 @@
+import { defineStore } from 'pinia'
+import { computed, ref } from 'vue'
+
 /** Pieces ticked in the Pieces table, kept across pages and filter changes until cleared. */
 export const usePieceSelectionStore = defineStore('pieceSelection', () => {
   const ids = ref<string[]>([])

@@ -1,3 +1,6 @@
+import { defineStore } from 'pinia'
+import { computed, ref } from 'vue'
+
 /** The supervisor's place in the review queue: which piece is open, kept by id so a refresh does not jump. */
 export const useReviewCursorStore = defineStore('reviewCursor', () => {
   const ids = ref<string[]>([])

@@ -5,6 +5,7 @@ import PgBoss from 'pg-boss'
 import { mailMessages } from '../database/schema'
 import type { Database } from '../database/client'
 import type { BackgroundJob } from './certificate-pdf-job'
+import { sendClaimedJob } from './job-claim'
 import { deliverMessage, needsJob, unscheduledMail, type DeliveryLease, type SmtpConfig } from './mail'
 import type { BlobStorage } from './storage'
 
@@ -104,17 +105,12 @@ export class MailQueue {
         await job.sweep(this.boss).catch(error => this.log(`Tonewright background jobs: could not schedule (${(error as Error).message}); will try again.`))
       }
       for (const { id } of await unscheduledMail(o.db)) {
-        const [claimed] = await o.db.update(mailMessages).set({ jobId: 'claimed', claimedBy: null, claimedUntil: null })
-          .where(and(eq(mailMessages.id, id), needsJob())).returning({ id: mailMessages.id })
-        if (!claimed) continue
-        try {
-          const jobId = await this.boss.send(MAIL_QUEUE, { messageId: id }, { retryLimit: o.retryLimit, retryDelay: o.retryDelayS, retryBackoff: true })
-          await o.db.update(mailMessages).set({ jobId: jobId ?? 'claimed' }).where(eq(mailMessages.id, id))
-        }
-        catch (error) {
-          await o.db.update(mailMessages).set({ jobId: null }).where(eq(mailMessages.id, id))
-          throw error
-        }
+        await sendClaimedJob(
+          async () => (await o.db.update(mailMessages).set({ jobId: 'claimed', claimedBy: null, claimedUntil: null })
+            .where(and(eq(mailMessages.id, id), needsJob())).returning({ id: mailMessages.id })).length > 0,
+          () => this.boss!.send(MAIL_QUEUE, { messageId: id }, { retryLimit: o.retryLimit, retryDelay: o.retryDelayS, retryBackoff: true }),
+          jobId => o.db.update(mailMessages).set({ jobId }).where(eq(mailMessages.id, id)),
+        )
       }
     }
     catch (error) {

@@ -2,6 +2,7 @@ import { and, eq, isNull, lt } from 'drizzle-orm'
 import PgBoss from 'pg-boss'
 import { reanalysisRuns } from '../database/schema'
 import type { Database } from '../database/client'
+import { sendClaimedJob } from './job-claim'
 import { executeReanalysis, failReanalysis } from './reanalysis-run'
 import type { BlobStorage } from './storage'
 
@@ -85,17 +86,12 @@ export class ReanalysisQueue {
       const queued = await o.db.select({ id: reanalysisRuns.id }).from(reanalysisRuns)
         .where(and(eq(reanalysisRuns.status, 'queued'), isNull(reanalysisRuns.jobId))).limit(50)
       for (const { id } of queued) {
-        const [claimed] = await o.db.update(reanalysisRuns).set({ jobId: 'claimed' })
-          .where(and(eq(reanalysisRuns.id, id), eq(reanalysisRuns.status, 'queued'), isNull(reanalysisRuns.jobId))).returning({ id: reanalysisRuns.id })
-        if (!claimed) continue
-        try {
-          const jobId = await this.boss.send(REANALYSIS_QUEUE, { runId: id }, { retryLimit: 1, retryDelay: 10, expireInSeconds: 30 * 60 })
-          await o.db.update(reanalysisRuns).set({ jobId: jobId ?? 'claimed' }).where(eq(reanalysisRuns.id, id))
-        }
-        catch (error) {
-          await o.db.update(reanalysisRuns).set({ jobId: null }).where(eq(reanalysisRuns.id, id))
-          throw error
-        }
+        await sendClaimedJob(
+          async () => (await o.db.update(reanalysisRuns).set({ jobId: 'claimed' })
+            .where(and(eq(reanalysisRuns.id, id), eq(reanalysisRuns.status, 'queued'), isNull(reanalysisRuns.jobId))).returning({ id: reanalysisRuns.id })).length > 0,
+          () => this.boss!.send(REANALYSIS_QUEUE, { runId: id }, { retryLimit: 1, retryDelay: 10, expireInSeconds: 30 * 60 }),
+          jobId => o.db.update(reanalysisRuns).set({ jobId }).where(eq(reanalysisRuns.id, id)),
+        )
       }
     }
     catch (error) {

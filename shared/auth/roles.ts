@@ -1,6 +1,6 @@
 /**
  * Roles and what each may do. One table, used by the server to answer 403 and by
- * the client to hide what a role cannot use (see shared/product notes: owner,
+ * the client to hide what a role cannot use (README.md, Roles and stages: owner,
  * supervisor, benchmaker, office).
  */
 export const ROLES = ['owner', 'supervisor', 'benchmaker', 'office'] as const
@@ -64,7 +64,7 @@ export interface NavItem {
   devOnly?: boolean
 }
 
-/** The navigation, in the order of the product notes. */
+/** The navigation, in the order README.md lists it (Roles and stages). */
 export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Bench', to: '/bench', permission: 'bench:strike' },
   { label: 'Pieces', to: '/pieces', permission: 'pieces:read' },

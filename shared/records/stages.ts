@@ -1,6 +1,6 @@
 import type { Role } from '../auth/roles'
 
-/** Piece stages in workflow order, then the side exits (see the product notes). */
+/** Piece stages in workflow order, then the side exits (README.md, Roles and stages). */
 export const PIECE_STAGES = ['blank', 'roughed', 'tuning', 'review', 'approved', 'certified', 'shipped', 'rework', 'scrapped'] as const
 export type PieceStage = (typeof PIECE_STAGES)[number]
 

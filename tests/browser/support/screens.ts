@@ -1,7 +1,7 @@
 import { expect } from 'vitest'
 import type { Locator } from 'playwright-core'
 
-// What each role may open, from the product notes' role table (owner: everything;
+// What each role may open, from the role table in README.md (Roles and stages) (owner: everything;
 // supervisor: review and sign-off plus bench rights; benchmaker: the bench; office:
 // sets, buyers, certificates, read everything). The test server is a production
 // build, so the development-only Mailbox is never among them.

@@ -27,7 +27,7 @@ describe('sets', () => {
     await page.getByLabel('Buyer\'s e-mail').fill('rowan@example.test')
     await page.getByLabel('From note').fill('A2')
     await page.getByLabel('To note').fill('C7')
-    // source: product notes: a 4.3-octave marimba, A2 to C7 chromatic, is one set of 52 pieces
+    // common practice: a 4.3-octave marimba, A2 to C7 chromatic, is one set of 52 bars
     await expectText(page.getByTestId('range-preview'), /^52 pieces/)
     await page.getByLabel('Chromatic (with accidentals)').uncheck()
     // common practice: naturals only from A2 to C7 are A2, B2, four octaves of seven, and C7: 2 + 28 + 1 = 31

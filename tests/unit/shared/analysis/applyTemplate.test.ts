@@ -24,7 +24,7 @@ describe('applyTemplate', () => {
     const result = applyTemplate(base, partials, target!, template!, null)
     expect(base).toEqual(before)
     expect(result).not.toBe(base)
-    // source: cents = 1200 · log2(measured / target), the trade's definition (product notes)
+    // source: cents = 1200 · log2(measured / target), the trade's definition (common practice)
     expect(result.matches![0]!.cents).toBeCloseTo(3, 6)
     expect(result.fundamentalHz).toBe(partials[0]!.frequencyHz)
     expect(result.verdict).not.toBeNull()

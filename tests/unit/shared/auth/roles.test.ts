@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { can, navItemsFor, permissionForPath, ROLES, type Permission, type Role } from '../../../../shared/auth/roles'
 
-// The expected rights come from the role table of the product notes
-// (shared/product.md, "Who uses it, and for what"), written out here by hand so
-// that a change to the code's table has to be made twice on purpose.
+// The expected rights come from the role table in README.md ("Roles and stages"),
+// written out here by hand so that a change to the code's table has to be made twice on purpose.
 const expected: Record<Permission, Role[]> = {
   'workshop:read': ['owner', 'supervisor', 'benchmaker', 'office'],
   'workshop:manage': ['owner'],

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { allowedMoves, stageMoveProblem, stageMoveRoleProblem, STRIKEABLE_STAGES } from '../../../../shared/records/stages'
 
-// The stage order and side exits of the product notes (shared/product.md):
+// The stage order and side exits written in README.md (Roles and stages):
 // blank → roughed → tuning → review → approved → certified → shipped; rework back to tuning; scrapped.
 describe('piece stages', () => {
   it('follows the workflow forward and lets rework go back to tuning', () => {

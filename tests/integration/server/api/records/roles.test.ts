@@ -5,7 +5,7 @@ import { createSet, postStrike, strikeWav, templateId } from '../../../support/r
 type Role = 'owner' | 'supervisor' | 'benchmaker' | 'office'
 const ROLES: Role[] = ['owner', 'supervisor', 'benchmaker', 'office']
 
-// The role × route matrix of the product notes (shared/product.md, roles table):
+// The role × route matrix of the role table in README.md (Roles and stages):
 // owner everything; supervisor review and all benchmaker rights; benchmaker strikes
 // and moves pieces; office sets, buyers, shipping, reads everything.
 interface Ctx { setId: string, pieceId: string, templateId: string, strikeId: string }
