@@ -1,11 +1,12 @@
 import type { ReanalysisResult } from '#shared/reanalysis/types'
+import type { ReanalysisScope, ReanalysisStatus } from '#shared/records/lists'
 
 export interface ReanalysisRunView {
   id: string
-  scope: 'piece' | 'set'
+  scope: ReanalysisScope
   setId: string
   pieceId: string | null
-  status: 'queued' | 'running' | 'done' | 'failed'
+  status: ReanalysisStatus
   engineVersion: string
   requestedAt: string
   finishedAt: string | null

@@ -1,4 +1,5 @@
-import type { StoredTemplatePartial, TemplateFamily } from '../schema'
+import type { StoredTemplatePartial } from '../schema'
+import type { TemplateFamily } from '../../../shared/records/lists'
 
 export interface StarterTemplate {
   family: TemplateFamily
