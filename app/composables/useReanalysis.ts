@@ -16,7 +16,7 @@ export interface ReanalysisRunView {
 }
 
 /** A set's or a piece's latest re-measurement: start one, follow it until it ends, then tell the page. */
-export function useReanalysis(scope: 'set' | 'piece', id: string, onFinished: () => void) {
+export function useReanalysis(scope: ReanalysisScope, id: string, onFinished: () => void) {
   const api = useApiFetch()
   const run = ref<ReanalysisRunView | null>(null)
   const problem = ref<string | null>(null)

@@ -13,7 +13,7 @@ import { familyOf, hex, type Family, type Tone } from './palette'
  */
 export type Shape = 'disc' | 'triangle-up' | 'triangle-down' | 'open-square' | 'ring' | 'crossed-square' | 'check' | 'cross' | 'clock' | 'dot-ring' | 'swatch'
 
-export type LookGroup = 'verdict' | 'stage' | 'status' | 'message'
+export type LookGroup = 'verdict' | 'stage' | 'status' | 'message' | 'advice'
 
 export interface Look {
   group: LookGroup
@@ -69,6 +69,8 @@ export const MEANINGS = {
   // Messages: something went wrong, or something to know.
   error: look('message', { colour: 'madder-500', text: 'madder-700', tint: 'madder-50', edge: 'madder-100' }, 'cross', 'error'),
   info: look('message', { colour: 'heather-500', text: 'heather-700', tint: 'heather-50', edge: 'heather-100' }, 'dot-ring', 'note'),
+  // Advice at the bench: where to remove material (never drawn like sharp or flat).
+  advice: look('advice', { colour: 'brass-600', text: 'brass-700', tint: 'brass-100', edge: 'brass-400' }, 'swatch', 'remove material here'),
 } as const satisfies Record<string, Look>
 
 export type Meaning = keyof typeof MEANINGS

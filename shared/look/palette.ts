@@ -4,7 +4,7 @@
  * Warm workshop paper and ink; spruce green, kiln orange and slate blue are kept for
  * the verdicts (within, sharp, flat: an orange/blue pair stays distinguishable for the
  * common colour-vision deficiencies, and shape and text carry the verdict as well);
- * brass is the accent; madder is for errors, heather for notices, lagoon for what is
+ * brass is the accent and the mark of advice (where to remove material); madder is for errors, heather for notices, lagoon for what is
  * finished well, mulberry for what was sent back or withdrawn.
  */
 export const PALETTE = {
@@ -13,7 +13,7 @@ export const PALETTE = {
   spruce: { 50: '#eaf4ef', 100: '#cfe6da', 500: '#2f7d5b', 600: '#25664a', 700: '#1c4f39' },
   kiln: { 50: '#fbeee6', 100: '#f5d3bf', 500: '#c45a1c', 600: '#a34812', 700: '#7f370c' },
   slate: { 50: '#ebf0f8', 100: '#cdd9ec', 500: '#3b62a8', 600: '#2f4f8a', 700: '#243d6b' },
-  brass: { 100: '#f3e6c4', 400: '#c9a13f', 500: '#a9832a', 700: '#6e5416' },
+  brass: { 100: '#f3e6c4', 400: '#c9a13f', 500: '#a9832a', 600: '#8c6b20', 700: '#6e5416' },
   madder: { 50: '#fbeaee', 100: '#f3c7d2', 500: '#b3294e', 600: '#93203f', 700: '#731931' },
   heather: { 50: '#f0ecf7', 100: '#dcd2ec', 500: '#6b4fa3', 700: '#463372' },
   lagoon: { 50: '#e5f2f3', 100: '#c2e0e3', 400: '#3e97a0', 500: '#1f7580', 600: '#1a636b', 700: '#134a50' },

@@ -51,6 +51,8 @@ describe('the meaning map', () => {
     expect(MEANINGS.info.colour).not.toBe(MEANINGS.flat.colour)
     expect(MEANINGS.approved.colour).not.toBe(MEANINGS.within.colour)
     expect(MEANINGS.scrapped.colour).not.toBe(MEANINGS.missing.colour)
+    // Advice (where to remove material) has marks of its own, never the sharp or flat ones.
+    expect([MEANINGS.sharp.colour, MEANINGS.flat.colour]).not.toContain(MEANINGS.advice.colour)
   })
 
   it('has a look for every partial state, piece verdict, stage and status', () => {
