@@ -1,6 +1,6 @@
 import { PIECE_STAGES, type PieceStage } from '#shared/records/stages'
 import { isOneOf, PIECE_VERDICTS, type PartialState } from '#shared/records/lists'
-import { lookHex, MEANINGS, STAGE_MEANING, verdictMeaning } from '#shared/look/meanings'
+import { lookClasses, lookHex, MEANINGS, STAGE_MEANING, verdictMeaning, type Meaning } from '#shared/look/meanings'
 
 /** A piece's latest verdict as a mark: within, sharp or flat by the worst partial's sign, or missing. */
 export function pieceState(verdict: string | null | undefined, worstCents: number | null | undefined): PartialState | null {
@@ -15,6 +15,11 @@ export const STAGE_FILL = Object.fromEntries(PIECE_STAGES.map(s => [s, lookHex(S
 
 /** Text colour that reads on each stage fill. */
 export const STAGE_TEXT = Object.fromEntries(PIECE_STAGES.map(s => [s, lookHex(STAGE_MEANING[s]).onColour])) as Record<PieceStage, string>
+
+/** A meaning's Tailwind classes, for templates: `lookOf('error').text`. */
+export function lookOf(meaning: Meaning) {
+  return lookClasses(meaning)
+}
 
 /** The word shown for a partial state (within, sharp, flat, missing). */
 export function stateWord(state: PartialState): string {
