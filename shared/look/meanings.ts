@@ -9,7 +9,7 @@ import { familyOf, hex, type Family, type Tone } from './palette'
  * the certificate show is told by a colour, a shape and a word taken from this map, and
  * no two meanings share a colour. The verdict families (spruce, kiln, slate) and the
  * message families (madder, heather) belong to their group alone, so a verdict never
- * looks like an error, a notice or a stage.
+ * looks like an error, a notice, a piece of advice or a stage.
  */
 export type Shape = 'disc' | 'triangle-up' | 'triangle-down' | 'open-square' | 'ring' | 'crossed-square' | 'check' | 'cross' | 'clock' | 'dot-ring' | 'swatch'
 
