@@ -2,6 +2,7 @@
 // runtime config, overridden by NUXT_* environment variables at start.
 import { buildAnalysisWorker } from './scripts/build-analysis-worker'
 import { addWorkerEntries } from './server/workers/entries'
+import { ROLES } from './shared/auth/roles'
 
 export default defineNuxtConfig({
   // Local modules in modules/ (the development-only Mailbox) are registered by Nuxt itself.
@@ -100,7 +101,7 @@ export default defineNuxtConfig({
           name: 'string',
           workshopId: 'string',
           workshopName: 'string',
-          role: '\'owner\' | \'supervisor\' | \'benchmaker\' | \'office\'',
+          role: ROLES.map(role => `'${role}'`).join(' | '),
           workshops: '{ id: string, name: string, role: string }[]',
           mustChangePassword: 'boolean',
         },

@@ -1,11 +1,12 @@
 import type { ReanalysisResult } from '#shared/reanalysis/types'
+import type { ReanalysisScope, ReanalysisStatus } from '#shared/records/lists'
 
 export interface ReanalysisRunView {
   id: string
-  scope: 'piece' | 'set'
+  scope: ReanalysisScope
   setId: string
   pieceId: string | null
-  status: 'queued' | 'running' | 'done' | 'failed'
+  status: ReanalysisStatus
   engineVersion: string
   requestedAt: string
   finishedAt: string | null
@@ -15,7 +16,7 @@ export interface ReanalysisRunView {
 }
 
 /** A set's or a piece's latest re-measurement: start one, follow it until it ends, then tell the page. */
-export function useReanalysis(scope: 'set' | 'piece', id: string, onFinished: () => void) {
+export function useReanalysis(scope: ReanalysisScope, id: string, onFinished: () => void) {
   const api = useApiFetch()
   const run = ref<ReanalysisRunView | null>(null)
   const problem = ref<string | null>(null)

@@ -1,44 +1,29 @@
-import type { PartialState } from '#shared/format/numbers'
-import type { PieceStage } from '#shared/records/stages'
+import { PIECE_STAGES, type PieceStage } from '#shared/records/stages'
+import { isOneOf, PIECE_VERDICTS, type PartialState } from '#shared/records/lists'
+import { lookClasses, lookHex, MEANINGS, STAGE_MEANING, verdictMeaning, type Meaning } from '#shared/look/meanings'
 
 /** A piece's latest verdict as a mark: within, sharp or flat by the worst partial's sign, or missing. */
 export function pieceState(verdict: string | null | undefined, worstCents: number | null | undefined): PartialState | null {
-  if (!verdict) return null
-  if (verdict === 'within') return 'within'
-  if (verdict === 'incomplete' || worstCents === null || worstCents === undefined) return 'missing'
-  return worstCents > 0 ? 'sharp' : 'flat'
+  if (!isOneOf(PIECE_VERDICTS, verdict)) return null
+  return verdictMeaning(verdict, worstCents)
 }
 
-export const VERDICT_WORDS: Record<string, string> = { within: 'within', outside: 'outside', incomplete: 'incomplete' }
+export const VERDICT_WORDS: Record<string, string> = Object.fromEntries(PIECE_VERDICTS.map(v => [v, v]))
 
-/**
- * Stage colours (our palette): paper tones before tuning, brass while tuned,
- * spruce once signed off, kiln for rework, faint ink when out of the flow.
- * Always shown with the stage's name beside it.
- */
-export const STAGE_FILL: Record<PieceStage, string> = {
-  blank: '#ece6d9',
-  roughed: '#d9d0bd',
-  tuning: '#c9a13f',
-  review: '#6e5416',
-  approved: '#2f7d5b',
-  certified: '#1c4f39',
-  shipped: '#4a5059',
-  rework: '#c45a1c',
-  scrapped: '#7b818a',
-}
+/** Stage colours from the meaning map; always shown with the stage's name beside them. */
+export const STAGE_FILL = Object.fromEntries(PIECE_STAGES.map(s => [s, lookHex(STAGE_MEANING[s]).colour])) as Record<PieceStage, string>
 
 /** Text colour that reads on each stage fill. */
-export const STAGE_TEXT: Record<PieceStage, string> = {
-  blank: '#1f2329',
-  roughed: '#1f2329',
-  tuning: '#1f2329',
-  review: '#f6f3ec',
-  approved: '#f6f3ec',
-  certified: '#f6f3ec',
-  shipped: '#f6f3ec',
-  rework: '#f6f3ec',
-  scrapped: '#f6f3ec',
+export const STAGE_TEXT = Object.fromEntries(PIECE_STAGES.map(s => [s, lookHex(STAGE_MEANING[s]).onColour])) as Record<PieceStage, string>
+
+/** A meaning's Tailwind classes, for templates: `lookOf('error').text`. */
+export function lookOf(meaning: Meaning) {
+  return lookClasses(meaning)
+}
+
+/** The word shown for a partial state (within, sharp, flat, missing). */
+export function stateWord(state: PartialState): string {
+  return MEANINGS[state].word
 }
 
 export function formatWhen(value: string | Date | null | undefined): string {

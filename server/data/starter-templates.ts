@@ -1,4 +1,5 @@
-import type { StoredTemplatePartial, TemplateFamily } from '../database/schema'
+import type { StoredTemplatePartial } from '../database/schema'
+import type { TemplateFamily } from '../../shared/records/lists'
 
 export interface StarterTemplate {
   family: TemplateFamily

@@ -3,6 +3,12 @@ import {
   boolean, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid,
 } from 'drizzle-orm/pg-core'
 import type { TemplatePartialSpec } from '../../shared/analysis/types'
+import { ROLES } from '../../shared/auth/roles'
+import { PIECE_STAGES } from '../../shared/records/stages'
+import {
+  ANALYSIS_REASONS, CERTIFICATE_PDF_STATUSES, CERTIFICATE_STATUSES, MAIL_KINDS, MAIL_STATUSES, PIECE_VERDICTS,
+  REANALYSIS_SCOPES, REANALYSIS_STATUSES, REVIEW_DECISIONS, TEMPERATURE_UNITS, TEMPLATE_FAMILIES,
+} from '../../shared/records/lists'
 
 /** A workshop is a tenant: every other row hangs off one. */
 export const workshops = pgTable('workshops', {
@@ -10,7 +16,7 @@ export const workshops = pgTable('workshops', {
   name: text('name').notNull(),
   address: text('address').notNull().default(''),
   referenceHz: doublePrecision('reference_hz').notNull().default(440),
-  temperatureUnit: text('temperature_unit', { enum: ['C', 'F'] }).notNull().default('C'),
+  temperatureUnit: text('temperature_unit', { enum: TEMPERATURE_UNITS }).notNull().default('C'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 })
 
@@ -27,7 +33,7 @@ export const memberships = pgTable('memberships', {
   id: uuid('id').primaryKey().defaultRandom(),
   workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
   userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
-  role: text('role', { enum: ['owner', 'supervisor', 'benchmaker', 'office'] }).notNull(),
+  role: text('role', { enum: ROLES }).notNull(),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [
   uniqueIndex('memberships_workshop_user_key').on(t.workshopId, t.userId),
@@ -77,9 +83,6 @@ export type AuditEvent = typeof auditEvents.$inferSelect
 
 /** One partial of a ratio template, as stored in a template version (the engine's own shape). */
 export type StoredTemplatePartial = TemplatePartialSpec
-
-export const TEMPLATE_FAMILIES = ['bar', 'plate', 'tube', 'note field', 'bell', 'membrane', 'tine'] as const
-export type TemplateFamily = (typeof TEMPLATE_FAMILIES)[number]
 
 /** A ratio template; its content lives in immutable versions. */
 export const ratioTemplates = pgTable('ratio_templates', {
@@ -151,8 +154,6 @@ export const sets = pgTable('sets', {
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [index('sets_workshop_idx').on(t.workshopId, t.createdAt), uniqueIndex('sets_workshop_serial_key').on(t.workshopId, t.serial)])
 
-export const PIECE_STAGE_VALUES = ['blank', 'roughed', 'tuning', 'review', 'approved', 'certified', 'shipped', 'rework', 'scrapped'] as const
-
 /** One bar, plate, note field, bell or drum. Latest-strike columns are kept for fast lists. */
 export const pieces = pgTable('pieces', {
   id: uuid('id').primaryKey().defaultRandom(),
@@ -164,12 +165,12 @@ export const pieces = pgTable('pieces', {
   targetHz: doublePrecision('target_hz').notNull(),
   templateVersionId: uuid('template_version_id').notNull().references(() => templateVersions.id),
   lotId: uuid('lot_id').references(() => lots.id, { onDelete: 'set null' }),
-  stage: text('stage', { enum: PIECE_STAGE_VALUES }).notNull().default('blank'),
+  stage: text('stage', { enum: PIECE_STAGES }).notNull().default('blank'),
   assigneeId: uuid('assignee_id').references(() => users.id, { onDelete: 'set null' }),
   strikeCount: integer('strike_count').notNull().default(0),
   reworkCount: integer('rework_count').notNull().default(0),
   latestStrikeId: uuid('latest_strike_id'),
-  latestVerdict: text('latest_verdict', { enum: ['within', 'outside', 'incomplete'] }),
+  latestVerdict: text('latest_verdict', { enum: PIECE_VERDICTS }),
   latestWorstCents: doublePrecision('latest_worst_cents'),
   latestFundamentalHz: doublePrecision('latest_fundamental_hz'),
   latestStrikeAt: timestamp('latest_strike_at', { withTimezone: true }),
@@ -198,7 +199,7 @@ export const strikes = pgTable('strikes', {
   workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
   pieceId: uuid('piece_id').notNull().references(() => pieces.id, { onDelete: 'cascade' }),
   userId: uuid('user_id').references(() => users.id, { onDelete: 'set null' }),
-  stage: text('stage', { enum: PIECE_STAGE_VALUES }).notNull(),
+  stage: text('stage', { enum: PIECE_STAGES }).notNull(),
   temperatureC: doublePrecision('temperature_c'),
   humidityPct: doublePrecision('humidity_pct'),
   audioKey: text('audio_key').notNull(),
@@ -210,16 +211,12 @@ export const strikes = pgTable('strikes', {
   templateVersionId: uuid('template_version_id').references(() => templateVersions.id),
   fundamentalHz: doublePrecision('fundamental_hz'),
   worstCents: doublePrecision('worst_cents'),
-  verdict: text('verdict', { enum: ['within', 'outside', 'incomplete'] }),
+  verdict: text('verdict', { enum: PIECE_VERDICTS }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [
   index('strikes_piece_idx').on(t.pieceId, t.createdAt),
   index('strikes_workshop_user_idx').on(t.workshopId, t.userId, t.createdAt),
 ])
-
-export const VERDICT_VALUES = ['within', 'outside', 'incomplete'] as const
-export const REANALYSIS_STATUSES = ['queued', 'running', 'done', 'failed'] as const
-export type ReanalysisStatus = (typeof REANALYSIS_STATUSES)[number]
 
 /**
  * A request to re-measure the stored strikes of a piece or a set with the current
@@ -230,7 +227,7 @@ export const reanalysisRuns = pgTable('reanalysis_runs', {
   workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
   setId: uuid('set_id').notNull().references(() => sets.id, { onDelete: 'cascade' }),
   pieceId: uuid('piece_id').references(() => pieces.id, { onDelete: 'cascade' }),
-  scope: text('scope', { enum: ['piece', 'set'] }).notNull(),
+  scope: text('scope', { enum: REANALYSIS_SCOPES }).notNull(),
   status: text('status', { enum: REANALYSIS_STATUSES }).notNull().default('queued'),
   reason: text('reason').notNull().default(''),
   /** The engine version that measured the run (set when it finishes). */
@@ -259,11 +256,11 @@ export const strikeAnalyses = pgTable('strike_analyses', {
   strikeId: uuid('strike_id').notNull().references(() => strikes.id, { onDelete: 'cascade' }),
   engineVersion: text('engine_version').notNull(),
   analysis: jsonb('analysis').notNull(),
-  verdict: text('verdict', { enum: VERDICT_VALUES }),
+  verdict: text('verdict', { enum: PIECE_VERDICTS }),
   worstCents: doublePrecision('worst_cents'),
   fundamentalHz: doublePrecision('fundamental_hz'),
   applied: boolean('applied').notNull().default(true),
-  reason: text('reason', { enum: ['recorded', 'reanalyze'] }).notNull(),
+  reason: text('reason', { enum: ANALYSIS_REASONS }).notNull(),
   runId: uuid('run_id').references(() => reanalysisRuns.id, { onDelete: 'set null' }),
   createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
@@ -279,7 +276,7 @@ export const reviews = pgTable('reviews', {
   pieceId: uuid('piece_id').notNull().references(() => pieces.id, { onDelete: 'cascade' }),
   strikeId: uuid('strike_id').references(() => strikes.id),
   supervisorId: uuid('supervisor_id').references(() => users.id, { onDelete: 'set null' }),
-  decision: text('decision', { enum: ['approve', 'return', 'reopen'] }).notNull(),
+  decision: text('decision', { enum: REVIEW_DECISIONS }).notNull(),
   comment: text('comment').notNull().default(''),
   overrideReason: text('override_reason'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
@@ -296,10 +293,6 @@ export type ReanalysisRun = typeof reanalysisRuns.$inferSelect
 export type StrikeAnalysis = typeof strikeAnalyses.$inferSelect
 
 // ---------------------------------------------------------------- certificates and mail
-
-export const CERTIFICATE_STATUSES = ['valid', 'superseded', 'revoked'] as const
-export type CertificateStatus = (typeof CERTIFICATE_STATUSES)[number]
-export const CERTIFICATE_PDF_STATUSES = ['pending', 'ready'] as const
 
 /**
  * A signed tuning certificate. `content` is frozen at signing; `contentHash` is the
@@ -340,9 +333,6 @@ export const certificates = pgTable('certificates', {
   index('certificates_pdf_pending_idx').on(t.pdfStatus, t.pdfJobId),
 ])
 
-export const MAIL_KINDS = ['certificate', 'invitation', 'password-reset'] as const
-export const MAIL_STATUSES = ['queued', 'sent', 'failed'] as const
-
 /**
  * The outbox: every e-mail is a row first; a background job delivers it. Password
  * resets belong to no workshop, so `workshop_id` may be null for them alone.
@@ -381,7 +371,7 @@ export const invitations = pgTable('invitations', {
   workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
   email: text('email').notNull(),
   name: text('name').notNull().default(''),
-  role: text('role', { enum: ['owner', 'supervisor', 'benchmaker', 'office'] }).notNull(),
+  role: text('role', { enum: ROLES }).notNull(),
   tokenHash: text('token_hash').notNull(),
   invitedBy: uuid('invited_by').references(() => users.id, { onDelete: 'set null' }),
   expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),

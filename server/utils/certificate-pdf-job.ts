@@ -1,6 +1,7 @@
 import { and, eq, isNull, lt, or, sql } from 'drizzle-orm'
 import type PgBoss from 'pg-boss'
-import { certificates, type CertificateStatus } from '../database/schema'
+import { certificates } from '../database/schema'
+import type { CertificateStatus } from '../../shared/records/lists'
 import type { Database } from '../database/client'
 import type { CertificateContent } from '../../shared/certificates/content'
 import { renderPdfOffThread } from './certificate-pdf-pool'

@@ -2,36 +2,35 @@ import pdfmake from 'pdfmake'
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
 import QRCode from 'qrcode'
 import type { CertificateContent, CertificatePartial } from '../../shared/certificates/content'
-import { formatCents } from '../../shared/format/numbers'
+import { formatCents, partialState } from '../../shared/format/numbers'
+import { CERTIFICATE_MEANING, lookHex, PARTIAL_MEANING, verdictMeaning, type Meaning } from '../../shared/look/meanings'
+import { markSvg } from '../../shared/look/markSvg'
+import { hex, WHITE } from '../../shared/look/palette'
+import { CERTIFICATE_STATUSES, isOneOf } from '../../shared/records/lists'
 import { configurePdfFonts } from './certificate-pdf-fonts'
 
 export type Paper = 'A4' | 'LETTER'
 
-const INK = '#1f2329'
-const SOFT = '#4a5059'
-const FAINT = '#7b818a'
-const LINE = '#d9d0bd'
-const SPRUCE = '#2f7d5b'
-const KILN = '#c45a1c'
-const SLATE = '#3b62a8'
-const BRASS = '#a9832a'
-
-type Mark = 'within' | 'sharp' | 'flat' | 'missing'
-
-function markOf(p: CertificatePartial): Mark {
-  if (p.missing || p.cents === null) return 'missing'
-  if (p.within) return 'within'
-  return p.cents > 0 ? 'sharp' : 'flat'
-}
+const INK = hex('ink')
+const SOFT = hex('ink-soft')
+const FAINT = hex('ink-faint')
+const LINE = hex('paper-line')
+const BRASS = hex('brass-500')
 
 /** Shape and colour together, as on screen: filled circle, up triangle, down triangle, hollow square. */
-const MARK_SVG: Record<Mark, string> = {
-  within: `<svg width="7" height="7" viewBox="0 0 14 14"><circle cx="7" cy="7" r="6" fill="${SPRUCE}"/></svg>`,
-  sharp: `<svg width="7" height="7" viewBox="0 0 14 14"><polygon points="7,1 13,13 1,13" fill="${KILN}"/></svg>`,
-  flat: `<svg width="7" height="7" viewBox="0 0 14 14"><polygon points="1,1 13,1 7,13" fill="${SLATE}"/></svg>`,
-  missing: `<svg width="7" height="7" viewBox="0 0 14 14"><rect x="2" y="2" width="10" height="10" fill="none" stroke="${FAINT}" stroke-width="2"/></svg>`,
+const markOf = (q: CertificatePartial) => PARTIAL_MEANING[partialState(q)]
+
+/** The piece's verdict word in the colour of its worst required partial, as the screens show it. */
+function verdictColour(p: CertificateContent['pieces'][number]): string {
+  const worst = p.partials.filter(q => q.required && !q.within && q.cents !== null).sort((a, b) => Math.abs(b.cents!) - Math.abs(a.cents!))[0]
+  return lookHex(verdictMeaning(p.verdict, worst?.cents)).colour
 }
-const MARK_COLOUR: Record<Mark, string> = { within: SPRUCE, sharp: KILN, flat: SLATE, missing: FAINT }
+
+/** A certificate's standing in its own colour (superseded, revoked). */
+function statusColour(status: string): string {
+  const meaning: Meaning = isOneOf(CERTIFICATE_STATUSES, status) ? CERTIFICATE_MEANING[status] : 'revoked'
+  return lookHex(meaning).colour
+}
 
 const hz = (v: number | null) => (v === null ? '—' : `${v.toFixed(2)} Hz`)
 const num = (v: number) => (v < 0 ? `−${Math.abs(v)}` : String(v))
@@ -49,14 +48,14 @@ function pieceRow(p: CertificateContent['pieces'][number]): TableCell[] {
     lines(q => ({ text: hz(q.measuredHz), font: 'PlexMono', alignment: 'right' })),
     lines(q => ({
       columns: [
-        { svg: MARK_SVG[markOf(q)], width: 9, margin: [0, 2, 0, 0] },
-        { text: formatCents(q.cents), font: 'PlexMono', color: MARK_COLOUR[markOf(q)], alignment: 'right' },
+        { svg: markSvg(markOf(q), 7), width: 9, margin: [0, 2, 0, 0] },
+        { text: formatCents(q.cents), font: 'PlexMono', color: lookHex(markOf(q)).colour, alignment: 'right' },
       ],
     })),
     lines(q => ({ text: `±${q.toleranceCents} ¢`, font: 'PlexMono', alignment: 'right' })),
     {
       stack: [
-        { text: verdictText, bold: true, color: p.verdict === 'within' ? SPRUCE : KILN },
+        { text: verdictText, bold: true, color: verdictColour(p) },
         ...(p.overrideReason ? [{ text: `approved with override: ${p.overrideReason}`, fontSize: 7, color: SOFT }] : []),
       ],
     },
@@ -71,7 +70,7 @@ function field(label: string, value: string): Content[] {
 
 /** The document definition of a certificate (pure: the same content gives the same layout). */
 export async function certificateDocument(content: CertificateContent, status: string, paper: Paper): Promise<TDocumentDefinitions> {
-  const qr = await QRCode.toDataURL(content.verificationUrl, { errorCorrectionLevel: 'M', margin: 0, width: 240, color: { dark: INK, light: '#ffffff' } })
+  const qr = await QRCode.toDataURL(content.verificationUrl, { errorCorrectionLevel: 'M', margin: 0, width: 240, color: { dark: INK, light: WHITE } })
   const signedAt = new Date(content.signedAt)
   const signedText = `${signedAt.toISOString().slice(0, 10)} ${signedAt.toISOString().slice(11, 16)} UTC`
   const i = content.instrument
@@ -88,12 +87,12 @@ export async function certificateDocument(content: CertificateContent, status: s
       small: { fontSize: 8, color: SOFT },
     },
     // A revoked or superseded certificate says so across every page and in every header.
-    ...(status !== 'valid' ? { watermark: { text: status.toUpperCase(), color: KILN, opacity: 0.18, bold: true, angle: -40 } } : {}),
+    ...(status !== 'valid' ? { watermark: { text: status.toUpperCase(), color: statusColour(status), opacity: 0.18, bold: true, angle: -40 } } : {}),
     header: (currentPage: number) => ({
       margin: [48, 24, 48, 0],
       columns: [
         { text: currentPage === 1 ? content.workshop.name : `Tuning certificate · ${content.workshop.name}`, color: SOFT, fontSize: 8 },
-        { text: [`Certificate No. ${content.number}`, ...(status !== 'valid' ? [{ text: ` · ${status.toUpperCase()}`, color: KILN }] : [])], alignment: 'right', bold: true, fontSize: 9 },
+        { text: [`Certificate No. ${content.number}`, ...(status !== 'valid' ? [{ text: ` · ${status.toUpperCase()}`, color: statusColour(status) }] : [])], alignment: 'right', bold: true, fontSize: 9 },
       ],
     }),
     footer: (currentPage: number, pageCount: number) => ({
@@ -110,7 +109,7 @@ export async function certificateDocument(content: CertificateContent, status: s
             width: '*',
             stack: [
               { text: 'Tuning certificate', style: 'h1' },
-              { text: [{ text: 'No. ', color: SOFT }, { text: content.number, bold: true }, ...(status !== 'valid' ? [{ text: `  (${status.toUpperCase()})`, color: KILN, bold: true }] : [])], fontSize: 12 },
+              { text: [{ text: 'No. ', color: SOFT }, { text: content.number, bold: true }, ...(status !== 'valid' ? [{ text: `  (${status.toUpperCase()})`, color: statusColour(status), bold: true }] : [])], fontSize: 12 },
               ...(content.supersedes ? [{ text: `Supersedes certificate ${content.supersedes}.`, style: 'small', margin: [0, 2, 0, 0] } as Content] : []),
               {
                 margin: [0, 12, 0, 0],

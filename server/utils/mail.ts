@@ -3,6 +3,7 @@ import nodemailer, { type Transporter } from 'nodemailer'
 import { certificates, mailMessages, type MailMessage } from '../database/schema'
 import type { Database, Executor } from '../database/client'
 import type { CertificateContent } from '../../shared/certificates/content'
+import { hex, WHITE } from '../../shared/look/palette'
 import { fail } from './http-errors'
 import type { BlobStorage } from './storage'
 
@@ -14,12 +15,12 @@ const escapeHtml = (s: string) => s.replace(/[&<>"']/g, c => ({ '&': '&amp;', '<
 
 /** A simple HTML version of short paragraphs, with links made clickable. */
 function htmlOf(title: string, paragraphs: string[]) {
-  const body = paragraphs.map(p => `<p style="margin:0 0 12px">${escapeHtml(p).replace(/(https?:\/\/\S+)/g, '<a href="$1" style="color:#6e5416">$1</a>')}</p>`).join('\n')
-  return `<!doctype html><html><body style="font-family:'IBM Plex Sans',Arial,sans-serif;color:#1f2329;background:#f6f3ec;padding:24px">
-<div style="max-width:560px;margin:0 auto;background:#ffffff;border:1px solid #d9d0bd;border-radius:8px;padding:24px">
+  const body = paragraphs.map(p => `<p style="margin:0 0 12px">${escapeHtml(p).replace(/(https?:\/\/\S+)/g, `<a href="$1" style="color:${hex('brass-700')}">$1</a>`)}</p>`).join('\n')
+  return `<!doctype html><html><body style="font-family:'IBM Plex Sans',Arial,sans-serif;color:${hex('ink')};background:${hex('paper')};padding:24px">
+<div style="max-width:560px;margin:0 auto;background:${WHITE};border:1px solid ${hex('paper-line')};border-radius:8px;padding:24px">
 <h1 style="font-size:18px;margin:0 0 16px">${escapeHtml(title)}</h1>
 ${body}
-<p style="margin:16px 0 0;color:#7b818a;font-size:12px">Sent by Tonewright.</p>
+<p style="margin:16px 0 0;color:${hex('ink-faint')};font-size:12px">Sent by Tonewright.</p>
 </div></body></html>`
 }
 

@@ -1,3 +1,5 @@
+import type { PartialDirection, PieceVerdict } from '../records/lists'
+
 /** One template partial: a target ratio to the fundamental with its tolerance. */
 export interface TemplatePartialSpec {
   label: string
@@ -100,11 +102,11 @@ export interface PartialMatch {
   within: boolean
   missing: boolean
   required: boolean
-  direction: 'sharp' | 'flat' | 'on' | null
+  direction: PartialDirection | null
   amplitudeDb: number | null
 }
 
-export type Verdict = 'within' | 'outside' | 'incomplete'
+export type Verdict = PieceVerdict
 
 /** The JSON contract of one analysis (field names fixed by the issue; extra fields allowed). */
 export interface AnalysisResult {

@@ -1,4 +1,5 @@
 import type { PartialMatch } from '../analysis/types'
+import type { PieceVerdict } from '../records/lists'
 import { uncertaintyText, type StoredPartial } from './uncertaintyText'
 
 /** One tuned partial of one piece as frozen on a certificate. */
@@ -23,7 +24,7 @@ export interface CertificatePiece {
   temperatureC: number | null
   humidityPct: number | null
   partials: CertificatePartial[]
-  verdict: 'within' | 'outside' | 'incomplete'
+  verdict: PieceVerdict
   /** The supervisor's reason when a piece was approved although its strike was not within. */
   overrideReason: string | null
 }

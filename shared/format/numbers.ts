@@ -1,3 +1,5 @@
+import type { PartialState } from '../records/lists'
+
 /** Signed cents with one decimal and the unit, using a true minus sign: "+3.2 ¢", "−0.4 ¢". */
 export function formatCents(cents: number | null | undefined, digits = 1): string {
   if (cents === null || cents === undefined || !Number.isFinite(cents)) return '—'
@@ -17,18 +19,9 @@ export function formatNumber(value: number | null | undefined, unit: string, dig
   return `${text} ${unit}`
 }
 
-export type PartialState = 'within' | 'sharp' | 'flat' | 'missing'
-
 /** The state a matched partial is shown in: within its band, sharp or flat outside it, or missing. */
 export function partialState(match: { within: boolean, missing: boolean, cents: number | null }): PartialState {
   if (match.missing || match.cents === null) return 'missing'
   if (match.within) return 'within'
   return match.cents > 0 ? 'sharp' : 'flat'
-}
-
-export const STATE_WORDS: Record<PartialState, string> = {
-  within: 'within',
-  sharp: 'sharp',
-  flat: 'flat',
-  missing: 'missing',
 }

@@ -1,3 +1,5 @@
+import { isOneOf, PIECE_VERDICTS, type PieceVerdict } from '../records/lists'
+
 /**
  * What changed between two results of the same strike (before and after a
  * re-measurement): engine version, verdict, worst deviation and each template
@@ -7,12 +9,10 @@
 /** A deviation change smaller than this is below what the screens print (0.1 ¢) and counts as unchanged. */
 export const CENTS_CHANGE_THRESHOLD = 0.05
 
-export type VerdictValue = 'within' | 'outside' | 'incomplete'
-
 /** The parts of a stored result a comparison reads (older engines may lack fields). */
 export interface ResultSummary {
   engineVersion: string
-  verdict: VerdictValue | null
+  verdict: PieceVerdict | null
   worstCents: number | null
   matches: { label: string, ratio: number, cents: number | null, within: boolean, missing: boolean }[]
 }
@@ -32,8 +32,8 @@ export interface PartialChange {
 export interface ResultChange {
   oldEngineVersion: string
   newEngineVersion: string
-  oldVerdict: VerdictValue | null
-  newVerdict: VerdictValue | null
+  oldVerdict: PieceVerdict | null
+  newVerdict: PieceVerdict | null
   oldWorstCents: number | null
   newWorstCents: number | null
   verdictChanged: boolean
@@ -77,8 +77,6 @@ export function compareResults(before: ResultSummary, after: ResultSummary): Res
   }
 }
 
-const VERDICTS: readonly string[] = ['within', 'outside', 'incomplete']
-
 /** Reads a stored analysis JSON defensively into the summary a comparison needs. */
 export function summarise(engineVersion: string, verdict: string | null, worstCents: number | null, analysis: unknown): ResultSummary {
   const raw = (analysis && typeof analysis === 'object' ? (analysis as { matches?: unknown }).matches : null)
@@ -91,5 +89,5 @@ export function summarise(engineVersion: string, verdict: string | null, worstCe
         missing: m.missing === true,
       }))
     : []
-  return { engineVersion, verdict: verdict && VERDICTS.includes(verdict) ? verdict as VerdictValue : null, worstCents, matches }
+  return { engineVersion, verdict: isOneOf(PIECE_VERDICTS, verdict) ? verdict : null, worstCents, matches }
 }

@@ -66,6 +66,3 @@ export function stageMoveProblem(role: Role, from: PieceStage, to: PieceStage): 
 
 /** Stages in which a strike may be recorded. */
 export const STRIKEABLE_STAGES: readonly PieceStage[] = ['blank', 'roughed', 'tuning', 'rework', 'review']
-
-export const VERDICTS = ['within', 'outside', 'incomplete'] as const
-export type PieceVerdict = (typeof VERDICTS)[number]

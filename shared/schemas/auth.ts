@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { ROLES } from '../auth/roles'
+import { wordsOr } from '../format/words'
 
 export const EmailSchema = z.string({ required_error: 'Enter an e-mail address' })
   .trim().toLowerCase().email('Enter a valid e-mail address').max(254, 'That e-mail address is too long')
@@ -21,7 +22,7 @@ export const SignUpSchema = z.object({
 })
 export type SignUpInput = z.infer<typeof SignUpSchema>
 
-export const RoleSchema = z.enum(ROLES, { errorMap: () => ({ message: 'Choose a role: owner, supervisor, benchmaker or office' }) })
+export const RoleSchema = z.enum(ROLES, { errorMap: () => ({ message: `Choose a role: ${wordsOr(ROLES)}` }) })
 
 export const AddMemberSchema = z.object({
   name: z.string({ required_error: 'Enter the member\'s name' }).trim().min(1, 'Enter the member\'s name').max(120, 'That name is too long'),

@@ -1,5 +1,7 @@
 import { z } from 'zod'
 import { EmailSchema, PasswordSchema, RoleSchema } from './auth'
+import { PAPER_SIZES } from '../records/lists'
+import { wordsOr } from '../format/words'
 
 export const SendCertificateSchema = z.object({ to: EmailSchema.optional() }).default({})
 export const RevokeCertificateSchema = z.object({
@@ -9,7 +11,7 @@ export const ReissueCertificateSchema = z.object({
   reason: z.string({ required_error: 'Give the reason for re-issuing' }).trim().min(5, 'Give a reason of at least 5 characters').max(500, 'A reason is at most 500 characters'),
 })
 export const PdfQuerySchema = z.object({
-  paper: z.enum(['a4', 'letter'], { errorMap: () => ({ message: 'Choose the paper: a4 or letter' }) }).default('a4'),
+  paper: z.enum(PAPER_SIZES, { errorMap: () => ({ message: `Choose the paper: ${wordsOr(PAPER_SIZES)}` }) }).default('a4'),
   download: z.enum(['0', '1']).optional(),
 })
 export const CertificateListQuerySchema = z.object({ set: z.string().uuid('Choose a set').optional() })

@@ -1,8 +1,8 @@
 import { z } from 'zod'
 import { parseNoteName } from '../analysis/parseNoteName'
-import { PIECE_STAGES, VERDICTS } from '../records/stages'
-
-export const TEMPLATE_FAMILY_VALUES = ['bar', 'plate', 'tube', 'note field', 'bell', 'membrane', 'tine'] as const
+import { PIECE_STAGES } from '../records/stages'
+import { PIECE_VERDICTS, TEMPLATE_FAMILIES } from '../records/lists'
+import { wordsOr } from '../format/words'
 
 const finite = (what: string) => z.number({ required_error: `Enter ${what}`, invalid_type_error: `${what} must be a number` }).finite(`${what} must be a number`)
 
@@ -14,7 +14,7 @@ export const TemplatePartialInputSchema = z.object({
 })
 
 export const TemplateInputSchema = z.object({
-  family: z.enum(TEMPLATE_FAMILY_VALUES, { errorMap: () => ({ message: 'Choose a family: bar, plate, tube, note field, bell, membrane or tine' }) }),
+  family: z.enum(TEMPLATE_FAMILIES, { errorMap: () => ({ message: `Choose a family: ${wordsOr(TEMPLATE_FAMILIES)}` }) }),
   name: z.string().trim().min(2, 'Name the template').max(120, 'A template name is at most 120 characters'),
   partials: z.array(TemplatePartialInputSchema).min(1, 'A template needs at least one partial').max(12, 'A template has at most 12 partials')
     .refine(ps => new Set(ps.map(p => p.ratio)).size === ps.length, 'Two partials have the same ratio'),
@@ -54,8 +54,8 @@ export const CreateSetSchema = z.object({
 })
 export type CreateSetInput = z.infer<typeof CreateSetSchema>
 
-const stage = z.enum(PIECE_STAGES, { errorMap: () => ({ message: 'Choose a stage: blank, roughed, tuning, review, approved, certified, shipped, rework or scrapped' }) })
-const verdict = z.enum([...VERDICTS, 'none'], { errorMap: () => ({ message: 'Choose a verdict: within, outside, incomplete or none' }) })
+const stage = z.enum(PIECE_STAGES, { errorMap: () => ({ message: `Choose a stage: ${wordsOr(PIECE_STAGES)}` }) })
+const verdict = z.enum([...PIECE_VERDICTS, 'none'], { errorMap: () => ({ message: `Choose a verdict: ${wordsOr([...PIECE_VERDICTS, 'none'])}` }) })
 
 export const PIECE_SORTS = ['position', '-position', 'note', '-note', 'stage', '-stage', 'updated', '-updated', 'cents', '-cents', 'strikes', '-strikes'] as const
 
