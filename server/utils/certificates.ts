@@ -4,11 +4,12 @@ import {
   certificates, lots, pieces, reviews, sets, strikes, templateVersions, workshops, type Certificate,
 } from '../database/schema'
 import type { Database, Executor } from '../database/client'
-import type { PartialMatch } from '../../shared/analysis/types'
 import { ROLE_LABELS } from '../../shared/auth/roles'
+import { isFinished } from '../../shared/records/stages'
 import { canonicalJson } from '../../shared/certificates/canonicalJson'
-import { buildCertificateContent, type CertificateContent } from '../../shared/certificates/content'
-import type { StoredPartial } from '../../shared/certificates/uncertaintyText'
+import { buildCertificateContent } from '../../shared/certificates/content'
+import { parseStoredAnalysis } from '../../shared/schemas/analysis'
+import { parseCertificateContent } from '../../shared/schemas/certificateContent'
 import type { Member } from './auth'
 import { audit } from './audit'
 import type { Paper } from './certificate-pdf'
@@ -101,7 +102,7 @@ async function issueIn(tx: Tx, member: Member, setId: string, siteUrl: string, r
     .innerJoin(templateVersions, eq(templateVersions.id, pieces.templateVersionId))
     .where(eq(pieces.setId, setId)).orderBy(asc(pieces.position)).for('update', { of: pieces })
   const live = rows.filter(r => r.piece.stage !== 'scrapped')
-  const notReady = live.filter(r => !['approved', 'certified', 'shipped'].includes(r.piece.stage))
+  const notReady = live.filter(r => !isFinished(r.piece.stage))
   if (live.length === 0) fail(409, 'This set has no pieces to certify.')
   if (notReady.length) {
     const names = notReady.slice(0, 5).map(r => r.piece.note).join(', ')
@@ -128,10 +129,10 @@ async function issueIn(tx: Tx, member: Member, setId: string, siteUrl: string, r
     pieces: live.map(({ piece, template }) => {
       const strike = strikeById.get(piece.approvedStrikeId!)
       if (!strike) fail(409, `The approved strike of ${piece.note} is missing.`)
-      const analysis = strike.analysis as { matches?: PartialMatch[], partials?: StoredPartial[] }
+      const analysis = parseStoredAnalysis(strike.analysis)
       return {
         position: piece.position, note: piece.note, targetHz: piece.targetHz, lotId: piece.lotId, template,
-        strike: { temperatureC: strike.temperatureC, humidityPct: strike.humidityPct, verdict: strike.verdict, engineVersion: strike.engineVersion, matches: analysis.matches ?? [], partials: analysis.partials ?? [] },
+        strike: { temperatureC: strike.temperatureC, humidityPct: strike.humidityPct, verdict: strike.verdict, engineVersion: strike.engineVersion, matches: analysis.matches ?? [], partials: analysis.partials },
         overrideReason: overrideByStrike.get(strike.id) ?? null,
       }
     }),
@@ -142,7 +143,7 @@ async function issueIn(tx: Tx, member: Member, setId: string, siteUrl: string, r
     await tx.update(certificates).set({ status: 'superseded', ...PDF_PENDING() }).where(eq(certificates.id, previous.id))
   }
   const [certificate] = await tx.insert(certificates).values({
-    workshopId: member.workshopId, setId, number, code, content: content as unknown as Record<string, unknown>, contentHash,
+    workshopId: member.workshopId, setId, number, code, content, contentHash,
     pdfKey: certificatePdfKey(member.workshopId, number, 'valid'), ...PDF_PENDING(),
     signerId: member.userId, signerName: member.name, signedAt, supersedesId: previous?.id ?? null, reissueReason: reissue?.reason ?? null,
   }).returning()
@@ -181,7 +182,7 @@ export async function certificatePdf(db: Executor, storage: BlobStorage, worksho
     if (!bytes) fail(404, 'The PDF of this certificate is missing from storage.')
     return { pending: false as const, bytes, filename: `${cert.number}.pdf` }
   }
-  const bytes = await renderPdfOffThread(cert.content as unknown as CertificateContent, cert.status, paper)
+  const bytes = await renderPdfOffThread(parseCertificateContent(cert.content), cert.status, paper)
   return { pending: false as const, bytes, filename: `${cert.number}-letter.pdf` }
 }
 
@@ -217,7 +218,7 @@ export async function sendCertificate(db: Database, member: Member, id: string, 
       const [current] = cert.supersededById ? await tx.select({ number: certificates.number }).from(certificates).where(eq(certificates.id, cert.supersededById)) : []
       fail(409, `Certificate ${cert.number} has been superseded${current ? ` by ${current.number}` : ''}; send the current certificate instead.`)
     }
-    const content = cert.content as unknown as CertificateContent
+    const content = parseCertificateContent(cert.content)
     const address = to ?? content.buyer.email
     const mail = certificateMail(content, cert.status)
     const message = await queueMail(tx, {
