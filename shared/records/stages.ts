@@ -116,6 +116,13 @@ export function assigneeAfter(role: Role, userId: string, assigneeId: string | n
   return assigneeId ?? (role === 'benchmaker' ? userId : null)
 }
 
+/** A supervisor's decisions, each its own audited action: the stage it starts from and the one it leads to. */
+export const DECISION_MOVES = {
+  approve: { from: 'review', to: 'approved' },
+  return: { from: 'review', to: 'rework' },
+  reopen: { from: 'approved', to: 'tuning' },
+} as const satisfies Record<string, { from: PieceStage, to: PieceStage }>
+
 /**
  * Composite moves: a stage reached through another one in one change (one request,
  * one transaction). A piece goes to review through tuning, so the Bench sends a blank,

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import {
-  allowedMoves, arrivalProblem, assigneeAfter, assigneeProblem, AT_BENCH_STAGES, FINISHED_STAGES, isCompositeMove, isFinished,
+  allowedMoves, arrivalProblem, DECISION_MOVES, assigneeAfter, assigneeProblem, AT_BENCH_STAGES, FINISHED_STAGES, isCompositeMove, isFinished,
   isPieceStage, isStrikeable, MOVE_TARGETS, stageAfterStrike, stageMoveProblem, stageMoveRoleProblem, stagePath, STRIKEABLE_STAGES,
 } from '../../../../shared/records/stages'
 
@@ -112,5 +112,13 @@ describe('piece stages', () => {
     expect(stagePath('office', 'roughed', 'review', 'tuning')).toMatchObject({ steps: null, status: 403, problem: expect.stringMatching(/office/) })
     expect(stagePath('benchmaker', 'tuning', 'scrapped')).toMatchObject({ steps: null, status: 403 })
     expect(stagePath('benchmaker', 'blank', 'review')).toMatchObject({ steps: null, status: 409, problem: expect.stringMatching(/cannot go/) })
+  })
+
+  it('gives each supervisor decision its own move, none of them a plain change', () => {
+    // Product notes: review → approved; rework is returned by a supervisor and goes back to tuning.
+    expect(DECISION_MOVES.approve).toEqual({ from: 'review', to: 'approved' })
+    expect(DECISION_MOVES.return).toEqual({ from: 'review', to: 'rework' })
+    expect(DECISION_MOVES.reopen).toEqual({ from: 'approved', to: 'tuning' })
+    for (const { from, to } of Object.values(DECISION_MOVES)) expect(allowedMoves(from)).not.toContain(to)
   })
 })

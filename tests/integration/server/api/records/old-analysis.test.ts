@@ -10,11 +10,8 @@ import { canonicalJson } from '../../../../../shared/certificates/canonicalJson'
 const LATER_PARTIAL_FIELDS = ['modulationHz', 'modulationDepthDb', 'crossCheckCents', 'uncertaintyCents', 'uncertaintyDecayPct']
 
 function engineOneShape(analysis: Record<string, any>) {
-  const partials = (analysis.partials as Record<string, unknown>[]).map((p) => {
-    const old = { ...p }
-    for (const key of LATER_PARTIAL_FIELDS) delete old[key]
-    return old
-  })
+  const partials = (analysis.partials as Record<string, unknown>[])
+    .map(p => Object.fromEntries(Object.entries(p).filter(([key]) => !LATER_PARTIAL_FIELDS.includes(key))))
   const { bands: _bands, dynamicRangeDb: _range, ...parameters } = analysis.parameters
   return { ...analysis, engineVersion: '1.0.0', partials, parameters }
 }
