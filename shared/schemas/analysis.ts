@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { VERDICTS } from '../records/stages'
 
 /*
  * The engine's result as JSON, the one source of its types (shared/analysis/types.ts
@@ -64,7 +65,7 @@ export const PartialMatchSchema = z.object({
 /** The matches of a stored result, read on their own (lists select only them); null when the result has none. */
 export const StoredMatchesSchema = z.array(PartialMatchSchema).nullable().catch(null)
 
-export const VerdictSchema = z.enum(['within', 'outside', 'incomplete'])
+export const VerdictSchema = z.enum(VERDICTS)
 
 /** One resolution: its window and hop, and the band of frequencies whose partials it measures. */
 export const AnalysisBandParametersSchema = z.object({
