@@ -10,7 +10,6 @@ import { requestReanalysis } from '../server/utils/reanalysis'
 import { executeReanalysis } from '../server/utils/reanalysis-run'
 import { storageConfigFromEnv, storageFromConfig } from '../server/utils/blob-storage'
 import { changeSummary, changeTable } from '../shared/reanalysis/changeTable'
-import type { ReanalysisResult } from '../shared/reanalysis/types'
 
 const USAGE = 'Usage: npm run reanalyze -- --set SERIAL [--workshop WORKSHOP_ID] [--reason TEXT] [--json]'
 
@@ -64,7 +63,8 @@ try {
   const storage = storageFromConfig(storageConfigFromEnv())
   const finished = await executeReanalysis(db, storage, run.id)
   if (!finished) throw new Error('The re-measurement was stopped by another process before it finished.')
-  const result = finished.result as unknown as ReanalysisResult
+  const result = finished.result
+  if (!result) throw new Error('The re-measurement finished without a result.')
   if (args.json) console.log(JSON.stringify({ runId: finished.id, set: { serial: args.set, name: set.name }, ...result }, null, 2))
   else {
     console.log(`${set.name} (serial ${args.set}), re-measurement ${finished.id}`)

@@ -1,5 +1,5 @@
 import { encodeWav } from '#shared/analysis/encodeWav'
-import { STRIKEABLE_STAGES, type PieceStage } from '#shared/records/stages'
+import { isStrikeable } from '#shared/records/stages'
 import type { RecordedStrike } from '~/composables/useStrikeUpload'
 import { useBenchStore, type StrikeAudio } from '~/stores/bench'
 import type { BenchPiece } from '~/composables/useBenchPiece'
@@ -59,7 +59,7 @@ export function useBenchCapture({ pieceId, piece, showStrike, refreshPiece, refr
     void refreshSet()
   }
 
-  const strikeable = computed(() => Boolean(piece.value && STRIKEABLE_STAGES.includes(piece.value.stage as PieceStage)))
+  const strikeable = computed(() => Boolean(piece.value && isStrikeable(piece.value.stage)))
 
   return { capture, onUploaded, strikeable }
 }

@@ -1,23 +1,23 @@
-import { STRIKEABLE_STAGES, type PieceStage } from '#shared/records/stages'
+import { AT_BENCH_STAGES, COMPOSITE_MOVES, isPieceStage, stagePath } from '#shared/records/stages'
+import type { Role } from '#shared/auth/roles'
 import type { BenchPiece, BenchSet } from '~/composables/useBenchPiece'
 
 interface PieceInSet { id: string, position: number, stage: string }
 
 /** The next piece to strike after this one: the next strikeable position, else any other strikeable piece. */
 export function nextPieceAfter<P extends PieceInSet>(pieces: readonly P[], currentId: string | null): P | null {
-  const list = pieces.filter(p => STRIKEABLE_STAGES.includes(p.stage as PieceStage) && p.stage !== 'review')
+  const list = pieces.filter(p => isPieceStage(p.stage) && AT_BENCH_STAGES.includes(p.stage))
   const here = pieces.find(p => p.id === currentId)?.position ?? -1
   return list.find(p => p.position > here) ?? list.find(p => p.id !== currentId) ?? null
 }
 
-/** A struck piece before review can be sent there. */
-export function canSendToReview(piece: { strikeCount: number, stage: string } | null | undefined) {
-  return Boolean(piece && piece.strikeCount > 0 && ['blank', 'roughed', 'tuning', 'rework'].includes(piece.stage))
-}
-
-/** The stage moves that take a piece to review: review is reached from tuning, so a blank, roughed or reworked piece passes through it. */
-export function movesToReview(stage: string): PieceStage[] {
-  return stage === 'blank' || stage === 'roughed' || stage === 'rework' ? ['tuning', 'review'] : ['review']
+/**
+ * A struck piece can be sent to review when this role may make the move, through tuning
+ * where it is not there yet (a composite move of the stage table: one request).
+ */
+export function canSendToReview(piece: { strikeCount: number, stage: string } | null | undefined, role: Role | null | undefined) {
+  if (!piece || piece.strikeCount === 0 || !role || !isPieceStage(piece.stage)) return false
+  return stagePath(role, piece.stage, 'review', COMPOSITE_MOVES.review).steps !== null
 }
 
 export interface BenchNextStepDeps {
@@ -38,7 +38,8 @@ export function useBenchNextStep({ pieceId, piece, set, refreshPiece, refreshSet
   const problem = ref<string | null>(null)
   const busy = ref(false)
 
-  const canReview = computed(() => canSendToReview(piece.value))
+  const { role } = useMember()
+  const canReview = computed(() => canSendToReview(piece.value, role.value))
   const nextPiece = computed(() => nextPieceAfter(set.value?.pieces ?? [], pieceId.value))
 
   function goTo(id: string) {
@@ -52,9 +53,8 @@ export function useBenchNextStep({ pieceId, piece, set, refreshPiece, refreshSet
     problem.value = null
     message.value = null
     try {
-      for (const to of movesToReview(piece.value.stage)) {
-        await api(`/api/pieces/${piece.value.id}/stage`, { method: 'POST', body: { to } })
-      }
+      // One request, one transaction: through tuning when the piece is not there yet.
+      await api(`/api/pieces/${piece.value.id}/stage`, { method: 'POST', body: { to: 'review', via: COMPOSITE_MOVES.review } })
       message.value = `${piece.value.note} is in review.`
       await Promise.all([refreshPiece(), refreshSet()])
     }

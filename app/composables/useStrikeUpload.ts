@@ -45,12 +45,15 @@ export function useStrikeUpload() {
         if (e.lengthComputable) onProgress?.(e.loaded / e.total)
       }
       xhr.onload = () => {
-        const body = xhr.response as { message?: string } | null
         if (xhr.status >= 200 && xhr.status < 300) {
           onProgress?.(1)
-          resolve(body as unknown as RecordedStrike)
+          // A 2xx answer is the stored strike (JSON, typed by the route).
+          resolve(xhr.response as RecordedStrike)
         }
-        else reject(new UploadError(body?.message ?? `The upload failed (${xhr.status}).`, xhr.status))
+        else {
+          const body = xhr.response as { message?: string } | null
+          reject(new UploadError(body?.message ?? `The upload failed (${xhr.status}).`, xhr.status))
+        }
       }
       xhr.onerror = () => reject(new UploadError('The server could not be reached. Check the connection and try again.', 0))
       xhr.send(form)

@@ -15,5 +15,9 @@ export function createDatabase(url: string, options: { max?: number } = {}) {
 }
 
 export type Database = ReturnType<typeof createDatabase>['db']
+/** An open transaction. */
+export type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0]
 /** A database or an open transaction: services accept either. */
-export type Executor = Database | Parameters<Parameters<Database['transaction']>[0]>[0]
+export type Executor = Database | Transaction
+/** What a service that opens its own transaction needs: the database, or a transaction (in which it nests as a savepoint). */
+export type Transactor = Pick<Transaction, 'transaction'>

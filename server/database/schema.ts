@@ -9,6 +9,9 @@ import {
   ANALYSIS_REASONS, CERTIFICATE_PDF_STATUSES, CERTIFICATE_STATUSES, MAIL_KINDS, MAIL_STATUSES, PIECE_VERDICTS,
   REANALYSIS_SCOPES, REANALYSIS_STATUSES, REVIEW_DECISIONS, TEMPERATURE_UNITS, TEMPLATE_FAMILIES,
 } from '../../shared/records/lists'
+import type { ReanalysisResult } from '../../shared/reanalysis/types'
+import type { StoredAnalysis } from '../../shared/schemas/analysis'
+import type { StoredCertificateContent } from '../../shared/schemas/certificateContent'
 
 /** A workshop is a tenant: every other row hangs off one. */
 export const workshops = pgTable('workshops', {
@@ -207,7 +210,7 @@ export const strikes = pgTable('strikes', {
   audioType: text('audio_type').notNull(),
   audioName: text('audio_name').notNull().default(''),
   engineVersion: text('engine_version').notNull(),
-  analysis: jsonb('analysis').notNull(),
+  analysis: jsonb('analysis').$type<StoredAnalysis>().notNull(),
   templateVersionId: uuid('template_version_id').references(() => templateVersions.id),
   fundamentalHz: doublePrecision('fundamental_hz'),
   worstCents: doublePrecision('worst_cents'),
@@ -233,7 +236,7 @@ export const reanalysisRuns = pgTable('reanalysis_runs', {
   /** The engine version that measured the run (set when it finishes). */
   engineVersion: text('engine_version'),
   jobId: text('job_id'),
-  result: jsonb('result').$type<Record<string, unknown>>(),
+  result: jsonb('result').$type<ReanalysisResult>(),
   error: text('error'),
   requestedBy: uuid('requested_by').references(() => users.id, { onDelete: 'set null' }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
@@ -255,7 +258,7 @@ export const strikeAnalyses = pgTable('strike_analyses', {
   workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
   strikeId: uuid('strike_id').notNull().references(() => strikes.id, { onDelete: 'cascade' }),
   engineVersion: text('engine_version').notNull(),
-  analysis: jsonb('analysis').notNull(),
+  analysis: jsonb('analysis').$type<StoredAnalysis>().notNull(),
   verdict: text('verdict', { enum: PIECE_VERDICTS }),
   worstCents: doublePrecision('worst_cents'),
   fundamentalHz: doublePrecision('fundamental_hz'),
@@ -305,7 +308,7 @@ export const certificates = pgTable('certificates', {
   number: text('number').notNull(),
   code: text('code').notNull(),
   status: text('status', { enum: CERTIFICATE_STATUSES }).notNull().default('valid'),
-  content: jsonb('content').$type<Record<string, unknown>>().notNull(),
+  content: jsonb('content').$type<StoredCertificateContent>().notNull(),
   contentHash: text('content_hash').notNull(),
   pdfKey: text('pdf_key').notNull(),
   // The PDF is rendered by a job after the signing transaction commits, and again when

@@ -4,11 +4,11 @@ import {
   certificates, lots, pieces, reviews, sets, strikes, templateVersions, workshops, type Certificate,
 } from '../database/schema'
 import type { Executor } from '../database/client'
-import type { PartialMatch } from '../../shared/analysis/types'
 import { ROLE_LABELS } from '../../shared/auth/roles'
 import { canonicalJson } from '../../shared/certificates/canonicalJson'
 import { buildCertificateContent, type CertificateContent } from '../../shared/certificates/content'
-import type { StoredPartial } from '../../shared/certificates/uncertaintyText'
+import { isFinished } from '../../shared/records/stages'
+import { parseStoredAnalysis } from '../../shared/schemas/analysis'
 import type { Member } from './auth'
 import { fail } from './http-errors'
 
@@ -70,7 +70,7 @@ export function supersessionProblem(
 
 /** Why these live pieces cannot be certified yet, or null. */
 export function readinessProblem(live: { note: string, stage: string, approvedStrikeId: string | null }[]): string | null {
-  const notReady = live.filter(p => !['approved', 'certified', 'shipped'].includes(p.stage))
+  const notReady = live.filter(p => !isFinished(p.stage))
   if (live.length === 0) return 'This set has no pieces to certify.'
   if (notReady.length) {
     const names = notReady.slice(0, 5).map(p => p.note).join(', ')
@@ -141,10 +141,10 @@ export async function freezeCertificate(tx: Executor, member: Member, setId: str
     pieces: live.map(({ piece, template }) => {
       const strike = strikeById.get(piece.approvedStrikeId!)
       if (!strike) fail(409, `The approved strike of ${piece.note} is missing.`)
-      const analysis = strike.analysis as { matches?: PartialMatch[], partials?: StoredPartial[] }
+      const analysis = parseStoredAnalysis(strike.analysis)
       return {
         position: piece.position, note: piece.note, targetHz: piece.targetHz, lotId: piece.lotId, template,
-        strike: { temperatureC: strike.temperatureC, humidityPct: strike.humidityPct, verdict: strike.verdict, engineVersion: strike.engineVersion, matches: analysis.matches ?? [], partials: analysis.partials ?? [] },
+        strike: { temperatureC: strike.temperatureC, humidityPct: strike.humidityPct, verdict: strike.verdict, engineVersion: strike.engineVersion, matches: analysis.matches ?? [], partials: analysis.partials },
         overrideReason: overrideByStrike.get(strike.id) ?? null,
       }
     }),

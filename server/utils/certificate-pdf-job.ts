@@ -3,7 +3,7 @@ import type PgBoss from 'pg-boss'
 import { certificates } from '../database/schema'
 import type { CertificateStatus } from '../../shared/records/lists'
 import type { Database } from '../database/client'
-import type { CertificateContent } from '../../shared/certificates/content'
+import { parseCertificateContent } from '../../shared/schemas/certificateContent'
 import { renderPdfOffThread } from './certificate-pdf-pool'
 import type { BlobStorage } from './storage'
 
@@ -31,7 +31,7 @@ export async function renderPendingPdf(db: Database, storage: BlobStorage, certi
     .from(certificates).where(eq(certificates.id, certificateId))
   if (!cert) return 'missing'
   if (cert.pdfStatus === 'ready') return 'ready'
-  const bytes = await renderPdfOffThread(cert.content as unknown as CertificateContent, cert.status, 'A4')
+  const bytes = await renderPdfOffThread(parseCertificateContent(cert.content), cert.status, 'A4')
   const key = certificatePdfKey(cert.workshopId, cert.number, cert.status)
   await storage.put(key, bytes, 'application/pdf')
   const [done] = await db.update(certificates).set({ pdfStatus: 'ready', pdfKey: key, pdfJobId: null })

@@ -20,7 +20,7 @@ export async function storeCertificate(tx: Executor, member: Member, setId: stri
     await tx.update(certificates).set({ status: 'superseded', ...PDF_PENDING() }).where(eq(certificates.id, previous.id))
   }
   const [certificate] = await tx.insert(certificates).values({
-    workshopId: member.workshopId, setId, number, code, content: content as unknown as Record<string, unknown>, contentHash,
+    workshopId: member.workshopId, setId, number, code, content, contentHash,
     pdfKey: certificatePdfKey(member.workshopId, number, 'valid'), ...PDF_PENDING(),
     signerId: member.userId, signerName: member.name, signedAt, supersedesId: previous?.id ?? null, reissueReason: reason,
   }).returning()

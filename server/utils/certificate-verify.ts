@@ -2,10 +2,11 @@ import { createHash, timingSafeEqual } from 'node:crypto'
 import { eq } from 'drizzle-orm'
 import { certificates } from '../database/schema'
 import type { Executor } from '../database/client'
-import type { CertificateContent } from '../../shared/certificates/content'
+import { CertificateContentSchema } from '../../shared/schemas/certificateContent'
 import { hashContent } from './certificate-freeze'
 
 const UNKNOWN_HASH = createHash('sha256').update('no such certificate').digest('hex')
+const UNREADABLE_INSTRUMENT = { name: '', model: '', serial: '', range: '', pieceCount: 0, scrappedCount: 0, lots: [] }
 
 function hashMatches(stored: string, recomputed: string) {
   const a = Buffer.from(stored.padEnd(64, '0').slice(0, 64), 'hex')
@@ -24,8 +25,11 @@ export async function verifyCertificate(db: Executor, code: string) {
     return null
   }
   const cert = row.cert
-  const content = cert.content as unknown as CertificateContent
-  const recomputed = hashContent(content)
+  // The hash covers the content as stored; the parsed copy is only for display. Content
+  // that does not read as a certificate at all has been altered: it is shown empty and fails.
+  const recomputed = hashContent(cert.content)
+  const parsed = CertificateContentSchema.safeParse(cert.content)
+  const content = parsed.success ? parsed.data : null
   const [superseding] = cert.supersededById
     ? await db.select({ number: certificates.number, code: certificates.code }).from(certificates).where(eq(certificates.id, cert.supersededById))
     : []
@@ -34,19 +38,19 @@ export async function verifyCertificate(db: Executor, code: string) {
     number: cert.number,
     signedAt: cert.signedAt,
     signerName: cert.signerName,
-    workshop: { name: content.workshop?.name ?? '' },
-    buyerOrganisation: content.buyer?.organisation || content.buyer?.name || '',
-    instrument: content.instrument,
-    referenceHz: content.referenceHz,
-    temperament: content.temperament,
-    conditions: { temperatureC: content.conditions?.temperatureC ?? null, humidityPct: content.conditions?.humidityPct ?? null },
-    pieces: (content.pieces ?? []).map(p => ({
+    workshop: { name: content?.workshop.name ?? '' },
+    buyerOrganisation: content?.buyer.organisation || content?.buyer.name || '',
+    instrument: content?.instrument ?? UNREADABLE_INSTRUMENT,
+    referenceHz: content?.referenceHz ?? null,
+    temperament: content?.temperament ?? '',
+    conditions: { temperatureC: content?.conditions.temperatureC ?? null, humidityPct: content?.conditions.humidityPct ?? null },
+    pieces: (content?.pieces ?? []).map(p => ({
       position: p.position, note: p.note, targetHz: p.targetHz, verdict: p.verdict,
       worstCents: p.partials.reduce<number | null>((w, q) => (q.cents !== null && (w === null || Math.abs(q.cents) > Math.abs(w)) ? q.cents : w), null),
       partials: p.partials.map(q => ({ label: q.label, cents: q.cents, toleranceCents: q.toleranceCents, within: q.within, missing: q.missing, required: q.required })),
     })),
     hash: cert.contentHash,
-    hashMatches: hashMatches(cert.contentHash, recomputed),
+    hashMatches: parsed.success && hashMatches(cert.contentHash, recomputed),
     revokedReason: cert.revokedReason,
     revokedAt: cert.revokedAt,
     supersededBy: superseding ? { number: superseding.number, code: superseding.code } : null,

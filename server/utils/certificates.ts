@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { certificates, pieces, type Certificate } from '../database/schema'
 import type { Database, Executor } from '../database/client'
-import type { CertificateContent } from '../../shared/certificates/content'
+import { parseCertificateContent } from '../../shared/schemas/certificateContent'
 import type { Member } from './auth'
 import { audit } from './audit'
 import { freezeCertificate, type Reissue } from './certificate-freeze'
@@ -74,7 +74,7 @@ export async function certificatePdf(db: Executor, storage: BlobStorage, worksho
     if (!bytes) fail(404, 'The PDF of this certificate is missing from storage.')
     return { pending: false as const, bytes, filename: `${cert.number}.pdf` }
   }
-  const bytes = await renderPdfOffThread(cert.content as unknown as CertificateContent, cert.status, paper)
+  const bytes = await renderPdfOffThread(parseCertificateContent(cert.content), cert.status, paper)
   return { pending: false as const, bytes, filename: `${cert.number}-letter.pdf` }
 }
 
@@ -110,7 +110,7 @@ export async function sendCertificate(db: Database, member: Member, id: string, 
       const [current] = cert.supersededById ? await tx.select({ number: certificates.number }).from(certificates).where(eq(certificates.id, cert.supersededById)) : []
       fail(409, `Certificate ${cert.number} has been superseded${current ? ` by ${current.number}` : ''}; send the current certificate instead.`)
     }
-    const content = cert.content as unknown as CertificateContent
+    const content = parseCertificateContent(cert.content)
     const address = to ?? content.buyer.email
     const mail = certificateMail(content, cert.status)
     const message = await queueMail(tx, {

@@ -1,9 +1,9 @@
 import { and, asc, avg, count, eq, gte, inArray, sql } from 'drizzle-orm'
 import { memberships, pieces, sets, strikes, users } from '../database/schema'
 import type { Executor } from '../database/client'
+import { FINISHED_STAGES } from '../../shared/records/stages'
+import { StoredMatchesSchema } from '../../shared/schemas/analysis'
 import { listSets } from './sets'
-
-const DONE = ['approved', 'certified', 'shipped'] as const
 
 /** Monday 00:00 UTC of the current week. */
 function weekStart(now = new Date()): Date {
@@ -17,9 +17,9 @@ export async function dashboardFor(db: Executor, workshopId: string) {
   const [setRows, [queue], [done], [firstPass], [perPiece], weekly] = await Promise.all([
     listSets(db, workshopId),
     db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), eq(pieces.stage, 'review'))),
-    db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, DONE))),
-    db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, DONE), eq(pieces.reworkCount, 0))),
-    db.select({ v: avg(pieces.strikeCount) }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, DONE))),
+    db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, FINISHED_STAGES))),
+    db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, FINISHED_STAGES), eq(pieces.reworkCount, 0))),
+    db.select({ v: avg(pieces.strikeCount) }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, FINISHED_STAGES))),
     db.select({ userId: users.id, name: users.name, strikes: sql<number>`count(${strikes.id})::int` })
       .from(memberships)
       .innerJoin(users, eq(users.id, memberships.userId))
@@ -47,7 +47,7 @@ export async function reviewQueue(db: Executor, workshopId: string) {
     strikeCount: pieces.strikeCount, reworkCount: pieces.reworkCount, latestStrikeId: pieces.latestStrikeId,
     latestVerdict: pieces.latestVerdict, latestWorstCents: pieces.latestWorstCents, updatedAt: pieces.updatedAt,
     assigneeName: users.name,
-    matches: sql<unknown>`(select ${strikes.analysis} -> 'matches' from ${strikes} where ${strikes.id} = ${pieces.latestStrikeId})`,
+    matches: sql<unknown>`(select ${strikes.analysis} -> 'matches' from ${strikes} where ${strikes.id} = ${pieces.latestStrikeId})`.mapWith(v => StoredMatchesSchema.parse(v)),
     temperatureC: sql<number | null>`(select ${strikes.temperatureC} from ${strikes} where ${strikes.id} = ${pieces.latestStrikeId})`,
   }).from(pieces)
     .innerJoin(sets, eq(sets.id, pieces.setId))

@@ -2,7 +2,8 @@ import { and, asc, count, desc, eq, ilike, inArray, isNull, or, sql, type SQL } 
 import { lots, pieces, reviews, sets, strikes, templateVersions, users } from '../database/schema'
 import type { Database, Executor } from '../database/client'
 import type { PieceQuery } from '../../shared/schemas/records'
-import { stageMoveProblem, stageMoveRoleProblem, type PieceStage } from '../../shared/records/stages'
+import { parseStoredAnalysis, StoredMatchesSchema } from '../../shared/schemas/analysis'
+import { arrivalProblem, assigneeAfter, assigneeProblem, stagePath, type PieceStage } from '../../shared/records/stages'
 import type { Member } from './auth'
 import { audit } from './audit'
 import { fail } from './http-errors'
@@ -73,7 +74,7 @@ export async function getPiece(db: Executor, workshopId: string, pieceId: string
     id: strikes.id, createdAt: strikes.createdAt, stage: strikes.stage, userId: strikes.userId, userName: users.name,
     temperatureC: strikes.temperatureC, humidityPct: strikes.humidityPct, fundamentalHz: strikes.fundamentalHz,
     worstCents: strikes.worstCents, verdict: strikes.verdict, engineVersion: strikes.engineVersion,
-    matches: sql<unknown>`${strikes.analysis} -> 'matches'`,
+    matches: sql<unknown>`${strikes.analysis} -> 'matches'`.mapWith(v => StoredMatchesSchema.parse(v)),
   }).from(strikes).leftJoin(users, eq(users.id, strikes.userId))
     .where(and(eq(strikes.pieceId, pieceId), eq(strikes.workshopId, workshopId)))
     .orderBy(desc(strikes.createdAt))
@@ -98,31 +99,36 @@ export async function getPiece(db: Executor, workshopId: string, pieceId: string
 export async function getStrike(db: Executor, workshopId: string, strikeId: string) {
   const [row] = await db.select().from(strikes).where(and(eq(strikes.id, strikeId), eq(strikes.workshopId, workshopId)))
   if (!row) fail(404, 'No such strike in this workshop.')
-  return row
+  // Older engines' results are read in the current shape.
+  return { ...row, analysis: parseStoredAnalysis(row.analysis) }
 }
 
-async function movePiece(tx: Executor, member: Member, pieceId: string, to: PieceStage, reason?: string) {
+async function movePiece(tx: Executor, member: Member, pieceId: string, to: PieceStage, reason?: string, via?: PieceStage) {
   const [piece] = await tx.select().from(pieces)
     .where(and(eq(pieces.id, pieceId), eq(pieces.workshopId, member.workshopId))).for('update')
   if (!piece) fail(404, 'No such piece in this workshop.')
   const label = `${piece.note} (piece ${piece.position})`
   // What the role may never do is a 403; a move the piece's stage does not allow is a 409.
-  const roleProblem = stageMoveRoleProblem(member.role, to)
-  if (roleProblem) fail(403, `${label}: ${roleProblem}`)
-  const problem = stageMoveProblem(member.role, piece.stage, to)
-  if (problem) fail(409, `${label}: ${problem}`)
-  if (member.role === 'benchmaker' && piece.assigneeId && piece.assigneeId !== member.userId) {
-    fail(403, `${label} is assigned to someone else.`)
-  }
-  if (to === 'review' && piece.strikeCount === 0) fail(409, `${label} has no strike yet: record one before sending it to review.`)
-  const assigneeId = piece.assigneeId ?? (member.role === 'benchmaker' ? member.userId : null)
+  const path = stagePath(member.role, piece.stage, to, via)
+  if (path.problem !== null) fail(path.status, `${label}: ${path.problem}`)
+  const notYours = assigneeProblem(member.role, member.userId, piece.assigneeId)
+  if (notYours) fail(403, `${label} ${notYours}`)
+  const notYet = arrivalProblem(to, piece.strikeCount)
+  if (notYet) fail(409, `${label} ${notYet}`)
+  const assigneeId = assigneeAfter(member.role, member.userId, piece.assigneeId)
   const [updated] = await tx.update(pieces).set({ stage: to, assigneeId, updatedAt: new Date() }).where(eq(pieces.id, pieceId)).returning()
-  await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.stage', subjectType: 'piece', subjectId: pieceId, fromState: piece.stage, toState: to, reason })
+  // Each step of a composite move is audited as the plain move it stands for.
+  let from = piece.stage
+  for (const step of path.steps) {
+    await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.stage', subjectType: 'piece', subjectId: pieceId, fromState: from, toState: step, reason })
+    from = step
+  }
   return updated!
 }
 
-export function changeStage(db: Database, member: Member, pieceId: string, to: PieceStage, reason?: string) {
-  return db.transaction(tx => movePiece(tx, member, pieceId, to, reason))
+/** One piece to `to`, through `via` when it is a composite move of the stage table; all steps or none. */
+export function changeStage(db: Database, member: Member, pieceId: string, to: PieceStage, reason?: string, via?: PieceStage) {
+  return db.transaction(tx => movePiece(tx, member, pieceId, to, reason, via))
 }
 
 /** All or nothing: one piece that may not move stops the whole change. */

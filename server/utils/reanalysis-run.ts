@@ -5,18 +5,21 @@ import type { Database, Executor } from '../database/client'
 import type { AnalysisResult } from '../../shared/analysis/types'
 import { ENGINE_VERSION } from '../../shared/analysis/version'
 import { compareResults, summarise } from '../../shared/reanalysis/compareResults'
+import { isFinished } from '../../shared/records/stages'
 import type { ReanalysedPiece, ReanalysedStrike, ReanalysisResult } from '../../shared/reanalysis/types'
 import { runAnalysis } from './analysis'
 import { audit } from './audit'
 import type { BlobStorage } from './storage'
 import { worstCents } from './strikes'
 
-/** A piece's verdict is signed from approval on: re-measuring never moves it. */
-export const SIGNED_STAGES: readonly string[] = ['approved', 'certified', 'shipped']
-
 type Measure = (bytes: Uint8Array, options: Parameters<typeof runAnalysis>[1]) => Promise<AnalysisResult>
 
 interface Measured { strike: typeof strikes.$inferSelect, analysis: AnalysisResult | null, error: string | null }
+
+/** A run's result so far (every run is created with one; an empty one stands in for a row without). */
+function resultOf(run: ReanalysisRun): ReanalysisResult {
+  return run.result ?? { engineVersion: ENGINE_VERSION, strikeCount: 0, pieceCount: 0, done: false, pieces: [] }
+}
 
 function plainError(error: unknown): string {
   const e = error as { statusCode?: number, message?: string }
@@ -41,10 +44,11 @@ async function commitPiece(db: Database, run: ReanalysisRun, pieceId: string, me
     const [piece] = await tx.select().from(pieces).where(eq(pieces.id, pieceId)).for('update')
     if (!piece) return null
     // Another worker of the same run got here first: keep its entry.
-    const result = current.result as unknown as ReanalysisResult
+    const result = resultOf(current)
     const already = result.pieces.find(p => p.pieceId === pieceId)
     if (already) return already
-    const signed = SIGNED_STAGES.includes(piece.stage)
+    // A piece's verdict is signed from approval on: re-measuring never moves it.
+    const signed = isFinished(piece.stage)
     await backfillHistory(tx, measured.map(m => m.strike.id))
     const rows: ReanalysedStrike[] = []
     let latest: { verdict: AnalysisResult['verdict'], worst: number | null, fundamentalHz: number | null } | null = null
@@ -109,7 +113,7 @@ export async function executeReanalysis(db: Database, storage: BlobStorage, runI
   const ids = await db.select({ pieceId: pieces.id }).from(strikes).innerJoin(pieces, eq(pieces.id, strikes.pieceId))
     .where(scope).orderBy(asc(pieces.position), asc(strikes.createdAt))
   const pieceIds = [...new Set(ids.map(r => r.pieceId))]
-  const started = run.result as unknown as ReanalysisResult
+  const started = resultOf(run)
   const done = new Set(started.pieces.map(p => p.pieceId))
   await db.update(reanalysisRuns).set({ result: sql`${reanalysisRuns.result} || jsonb_build_object('pieceCount', ${pieceIds.length}::int, 'strikeCount', ${ids.length}::int)` })
     .where(eq(reanalysisRuns.id, runId))
@@ -154,7 +158,7 @@ async function finishRun(db: Database, run: ReanalysisRun) {
   return db.transaction(async (tx) => {
     const [current] = await tx.select().from(reanalysisRuns).where(eq(reanalysisRuns.id, run.id)).for('update')
     if (!current || current.status !== 'running') return null
-    const result = { ...(current.result as unknown as ReanalysisResult), done: true }
+    const result = { ...resultOf(current), done: true }
     const [finished] = await tx.update(reanalysisRuns).set({ status: 'done', engineVersion: ENGINE_VERSION, finishedAt: new Date(), result })
       .where(eq(reanalysisRuns.id, run.id)).returning()
     const strikeRows = result.pieces.flatMap(p => p.strikes)

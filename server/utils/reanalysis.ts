@@ -27,7 +27,7 @@ export function runView(run: ReanalysisRun) {
     finishedAt: run.finishedAt,
     error: run.error,
     statusUrl: `/api/reanalysis/${run.id}`,
-    result: (run.result ?? null) as ReanalysisResult | null,
+    result: run.result,
   }
 }
 export type ReanalysisRunView = ReturnType<typeof runView>

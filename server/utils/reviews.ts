@@ -1,6 +1,7 @@
 import { and, eq, sql } from 'drizzle-orm'
 import { pieces, reviews, strikes } from '../database/schema'
 import type { Database, Executor } from '../database/client'
+import { DECISION_MOVES, isFinished } from '../../shared/records/stages'
 import type { Member } from './auth'
 import { audit } from './audit'
 import { fail } from './http-errors'
@@ -19,8 +20,8 @@ async function lockPiece(tx: Executor, member: Member, pieceId: string) {
 export function approvePiece(db: Database, member: Member, pieceId: string, input: { strikeId: string, overrideReason?: string, comment?: string }) {
   return db.transaction(async (tx) => {
     const piece = await lockPiece(tx, member, pieceId)
-    if (piece.stage === 'approved' || piece.stage === 'certified' || piece.stage === 'shipped') fail(409, 'This piece is already approved.')
-    if (piece.stage !== 'review') fail(409, 'Only a piece in review can be approved.')
+    if (isFinished(piece.stage)) fail(409, 'This piece is already approved.')
+    if (piece.stage !== DECISION_MOVES.approve.from) fail(409, 'Only a piece in review can be approved.')
     const [strike] = await tx.select({ id: strikes.id, verdict: strikes.verdict }).from(strikes)
       .where(and(eq(strikes.id, input.strikeId), eq(strikes.pieceId, pieceId)))
     if (!strike) fail(404, 'That strike does not belong to this piece.')
@@ -32,10 +33,10 @@ export function approvePiece(db: Database, member: Member, pieceId: string, inpu
       workshopId: member.workshopId, pieceId, strikeId: strike.id, supervisorId: member.userId, decision: 'approve',
       comment: input.comment ?? '', overrideReason: strike.verdict === 'within' ? null : input.overrideReason ?? null,
     }).returning()
-    await tx.update(pieces).set({ stage: 'approved', approvedStrikeId: strike.id, approvedAt: new Date(), updatedAt: new Date() }).where(eq(pieces.id, pieceId))
+    await tx.update(pieces).set({ stage: DECISION_MOVES.approve.to, approvedStrikeId: strike.id, approvedAt: new Date(), updatedAt: new Date() }).where(eq(pieces.id, pieceId))
     await audit(tx, {
       workshopId: member.workshopId, actorId: member.userId, action: 'piece.approve', subjectType: 'piece', subjectId: pieceId,
-      fromState: 'review', toState: 'approved', reason: input.overrideReason ?? input.comment ?? null, details: { strikeId: strike.id, override: strike.verdict !== 'within' },
+      fromState: DECISION_MOVES.approve.from, toState: DECISION_MOVES.approve.to, reason: input.overrideReason ?? input.comment ?? null, details: { strikeId: strike.id, override: strike.verdict !== 'within' },
     })
     return review!
   })
@@ -44,12 +45,12 @@ export function approvePiece(db: Database, member: Member, pieceId: string, inpu
 export function returnPiece(db: Database, member: Member, pieceId: string, comment: string) {
   return db.transaction(async (tx) => {
     const piece = await lockPiece(tx, member, pieceId)
-    if (piece.stage !== 'review') fail(409, 'Only a piece in review can be returned for rework.')
+    if (piece.stage !== DECISION_MOVES.return.from) fail(409, 'Only a piece in review can be returned for rework.')
     const [review] = await tx.insert(reviews).values({
       workshopId: member.workshopId, pieceId, strikeId: piece.latestStrikeId, supervisorId: member.userId, decision: 'return', comment,
     }).returning()
-    await tx.update(pieces).set({ stage: 'rework', reworkCount: sql`${pieces.reworkCount} + 1`, updatedAt: new Date() }).where(eq(pieces.id, pieceId))
-    await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.return', subjectType: 'piece', subjectId: pieceId, fromState: 'review', toState: 'rework', reason: comment })
+    await tx.update(pieces).set({ stage: DECISION_MOVES.return.to, reworkCount: sql`${pieces.reworkCount} + 1`, updatedAt: new Date() }).where(eq(pieces.id, pieceId))
+    await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.return', subjectType: 'piece', subjectId: pieceId, fromState: DECISION_MOVES.return.from, toState: DECISION_MOVES.return.to, reason: comment })
     return review!
   })
 }
@@ -59,12 +60,12 @@ export function reopenPiece(db: Database, member: Member, pieceId: string, reaso
   return db.transaction(async (tx) => {
     const piece = await lockPiece(tx, member, pieceId)
     if (piece.stage === 'certified' || piece.stage === 'shipped') fail(409, 'This piece is on a certificate: revoke the certificate before reopening it.')
-    if (piece.stage !== 'approved') fail(409, 'Only an approved piece can be reopened.')
+    if (piece.stage !== DECISION_MOVES.reopen.from) fail(409, 'Only an approved piece can be reopened.')
     const [review] = await tx.insert(reviews).values({
       workshopId: member.workshopId, pieceId, strikeId: piece.approvedStrikeId, supervisorId: member.userId, decision: 'reopen', comment: reason,
     }).returning()
-    await tx.update(pieces).set({ stage: 'tuning', approvedStrikeId: null, approvedAt: null, updatedAt: new Date() }).where(eq(pieces.id, pieceId))
-    await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.reopen', subjectType: 'piece', subjectId: pieceId, fromState: 'approved', toState: 'tuning', reason })
+    await tx.update(pieces).set({ stage: DECISION_MOVES.reopen.to, approvedStrikeId: null, approvedAt: null, updatedAt: new Date() }).where(eq(pieces.id, pieceId))
+    await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.reopen', subjectType: 'piece', subjectId: pieceId, fromState: DECISION_MOVES.reopen.from, toState: DECISION_MOVES.reopen.to, reason })
     return review!
   })
 }

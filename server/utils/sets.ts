@@ -1,9 +1,10 @@
 import { and, asc, count, desc, eq, sql } from 'drizzle-orm'
 import { pieces, ratioTemplates, sets, templateVersions, type TemplateVersion } from '../database/schema'
-import type { Database, Executor } from '../database/client'
+import type { Database, Executor, Transactor } from '../database/client'
 import type { CreateSetInput } from '../../shared/schemas/records'
 import { noteToFrequencyHz } from '../../shared/analysis/noteToFrequencyHz'
 import { expandNoteRange, noteToMidi } from '../../shared/records/noteRange'
+import { FINISHED_STAGES } from '../../shared/records/stages'
 import { audit } from './audit'
 import { conflictOnDuplicate, fail } from './http-errors'
 import { currentVersionOf } from './templates'
@@ -14,7 +15,7 @@ export function targetFor(note: string, referenceHz: number, offsets: Record<str
 }
 
 /** Creates a set and all its pieces, from the note range, in one transaction. */
-export async function createSet(db: Database, workshopId: string, actorId: string, input: CreateSetInput) {
+export async function createSet(db: Transactor, workshopId: string, actorId: string, input: CreateSetInput) {
   let notes: string[]
   try {
     notes = expandNoteRange(input.fromNote, input.toNote, input.chromatic)
@@ -71,7 +72,7 @@ export async function listSets(db: Executor, workshopId: string) {
 export function progress(byStage: Record<string, number>) {
   const total = Object.values(byStage).reduce((a, b) => a + b, 0)
   const scrapped = byStage.scrapped ?? 0
-  const done = (byStage.approved ?? 0) + (byStage.certified ?? 0) + (byStage.shipped ?? 0)
+  const done = FINISHED_STAGES.reduce((n, stage) => n + (byStage[stage] ?? 0), 0)
   const live = total - scrapped
   return { pieceCount: total, approvedCount: done, liveCount: live, certifiable: live > 0 && done === live }
 }

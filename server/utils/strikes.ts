@@ -3,7 +3,7 @@ import { and, eq, getTableColumns, sql } from 'drizzle-orm'
 import { pieces, sets, strikeAnalyses, strikes, templateVersions } from '../database/schema'
 import type { Database } from '../database/client'
 import type { AnalysisResult } from '../../shared/analysis/types'
-import { STAGE_LABELS, STRIKEABLE_STAGES, type PieceStage } from '../../shared/records/stages'
+import { assigneeAfter, assigneeProblem, isStrikeable, STAGE_LABELS, stageAfterStrike, type PieceStage } from '../../shared/records/stages'
 import type { Member } from './auth'
 import { measureStrike } from './analysis'
 import { audit } from './audit'
@@ -96,7 +96,7 @@ export async function recordStrike(
       // Named statements (here and below): parsed once per connection, one round trip each after that.
       const [current] = await tx.select({ stage: pieces.stage, assigneeId: pieces.assigneeId }).from(pieces).where(eq(pieces.id, pieceId)).for('update')
         .prepare('strike_lock_piece').execute()
-      if (!current || !STRIKEABLE_STAGES.includes(current.stage)) fail(409, 'The piece changed stage while the strike was measured; strike it again.')
+      if (!current || !isStrikeable(current.stage)) fail(409, 'The piece changed stage while the strike was measured; strike it again.')
       checkAssignee(member, current.assigneeId)
       const verdict = analysis.verdict
       const worst = worstCents(analysis)
@@ -114,15 +114,12 @@ export async function recordStrike(
         workshopId: member.workshopId, strikeId, engineVersion: analysis.engineVersion, analysis: stored, verdict, worstCents: worst,
         fundamentalHz: analysis.fundamentalHz, applied: true, reason: 'recorded', createdBy: member.userId, createdAt: strike!.createdAt,
       }).prepare('strike_analysis_insert').execute()
-      // A blank or returned piece is being tuned as soon as it is struck; a strike while
-      // roughing or in review leaves the stage alone.
-      const stage = current.stage === 'rework' || current.stage === 'blank' ? 'tuning' : current.stage
-      // An unassigned piece struck by a benchmaker becomes theirs; an assignment is never replaced.
-      const claim = current.assigneeId === null && member.role === 'benchmaker' ? { assigneeId: member.userId } : {}
+      const stage = stageAfterStrike(current.stage)
+      const assigneeId = assigneeAfter(member.role, member.userId, current.assigneeId)
       await tx.update(pieces).set({
         strikeCount: sql`${pieces.strikeCount} + 1`, latestStrikeId: strikeId, latestVerdict: verdict,
         latestWorstCents: worst, latestFundamentalHz: analysis.fundamentalHz, latestStrikeAt: strike!.createdAt,
-        stage, ...claim, updatedAt: new Date(),
+        stage, assigneeId, updatedAt: new Date(),
       }).where(eq(pieces.id, pieceId)).prepare('strike_piece_update').execute()
       if (stage !== current.stage) {
         await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.stage', subjectType: 'piece', subjectId: pieceId, fromState: current.stage, toState: stage, reason: 'struck' })
@@ -141,13 +138,14 @@ export async function recordStrike(
 }
 
 function checkStrikeable(stage: PieceStage) {
-  if (!STRIKEABLE_STAGES.includes(stage)) {
+  if (!isStrikeable(stage)) {
     fail(409, `This piece is ${STAGE_LABELS[stage].toLowerCase()}; ${stage === 'approved' ? 'a supervisor must reopen it before it is struck again' : 'it takes no more strikes'}.`)
   }
 }
 
 function checkAssignee(member: Member, assigneeId: string | null) {
-  if (member.role === 'benchmaker' && assigneeId && assigneeId !== member.userId) fail(403, 'This piece is assigned to someone else.')
+  const problem = assigneeProblem(member.role, member.userId, assigneeId)
+  if (problem) fail(403, `This piece ${problem}`)
 }
 
 function postgresCode(error: unknown): string | undefined {

@@ -1,71 +1,14 @@
-import type { PartialMatch } from '../analysis/types'
-import type { PieceVerdict } from '../records/lists'
+import type { z } from 'zod'
+import type { PartialMatch, Verdict } from '../analysis/types'
+import type { CertificateContentSchema, CertificatePartialSchema, CertificatePieceSchema, RangeSchema } from '../schemas/certificateContent'
 import { uncertaintyText, type StoredPartial } from './uncertaintyText'
 
 /** One tuned partial of one piece as frozen on a certificate. */
-export interface CertificatePartial {
-  label: string
-  targetHz: number
-  measuredHz: number | null
-  /** Signed deviation used for the verdict (normalised to the reference temperature where a coefficient is set). */
-  cents: number | null
-  toleranceCents: number
-  required: boolean
-  within: boolean
-  missing: boolean
-}
-
-export interface CertificatePiece {
-  position: number
-  note: string
-  targetHz: number
-  template: string
-  lot: string | null
-  temperatureC: number | null
-  humidityPct: number | null
-  partials: CertificatePartial[]
-  verdict: PieceVerdict
-  /** The supervisor's reason when a piece was approved although its strike was not within. */
-  overrideReason: string | null
-}
-
-export interface Range { min: number, max: number }
-
+export type CertificatePartial = z.output<typeof CertificatePartialSchema>
+export type CertificatePiece = z.output<typeof CertificatePieceSchema>
+export type Range = z.output<typeof RangeSchema>
 /** The frozen content of a certificate; its canonical JSON is what the hash covers. */
-export interface CertificateContent {
-  format: 'tonewright-certificate/1'
-  number: string
-  verificationUrl: string
-  supersedes: string | null
-  workshop: { name: string, address: string }
-  buyer: { name: string, organisation: string, email: string }
-  instrument: {
-    name: string
-    model: string
-    serial: string
-    range: string
-    pieceCount: number
-    scrappedCount: number
-    lots: { code: string, material: string, species: string }[]
-  }
-  referenceHz: number
-  temperament: string
-  conditions: {
-    temperatureC: Range | null
-    humidityPct: Range | null
-    strikeCount: number
-    normalisation: { template: string, referenceTemperatureC: number, coefficientCentsPerC: number }[]
-    statement: string
-  }
-  method: string
-  decisionRule: string
-  uncertainty: string
-  engineVersions: string[]
-  pieces: CertificatePiece[]
-  signer: { name: string, role: string }
-  signedAt: string
-  scope: string
-}
+export type CertificateContent = z.output<typeof CertificateContentSchema>
 
 /** The set's columns a certificate reads (kept here so shared/ does not import the database schema). */
 interface InstrumentSetFields {
@@ -101,7 +44,7 @@ export interface ContentInput {
     strike: {
       temperatureC: number | null
       humidityPct: number | null
-      verdict: string | null
+      verdict: Verdict | null
       engineVersion: string
       matches: PartialMatch[]
       /** The strike's measured partials; from engine 2 on they carry `uncertaintyCents`. */
@@ -195,7 +138,7 @@ export function buildCertificateContent(input: ContentInput): CertificateContent
         within: m.within,
         missing: m.missing,
       })),
-      verdict: (p.strike.verdict ?? 'incomplete') as CertificatePiece['verdict'],
+      verdict: p.strike.verdict ?? 'incomplete',
       overrideReason: p.overrideReason,
     })),
     signer: input.signer,

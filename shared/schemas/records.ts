@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { parseNoteName } from '../analysis/parseNoteName'
-import { PIECE_STAGES } from '../records/stages'
+import { COMPOSITE_MOVES, isCompositeMove, PIECE_STAGES } from '../records/stages'
 import { PIECE_VERDICTS, TEMPLATE_FAMILIES } from '../records/lists'
 import { wordsOr } from '../format/words'
 
@@ -71,7 +71,13 @@ export const PieceQuerySchema = z.object({
 })
 export type PieceQuery = z.infer<typeof PieceQuerySchema>
 
-export const StageChangeSchema = z.object({ to: stage, reason: z.string().trim().max(500, 'A reason is at most 500 characters').optional() })
+const COMPOSITE_MOVE_NAMES = Object.entries(COMPOSITE_MOVES).map(([to, via]) => `${to} through ${via}`).join(', ')
+// `via`: a composite move of the stage table (review through tuning), made in one transaction.
+export const StageChangeSchema = z.object({
+  to: stage,
+  via: stage.optional(),
+  reason: z.string().trim().max(500, 'A reason is at most 500 characters').optional(),
+}).refine(b => !b.via || isCompositeMove(b.to, b.via), { message: `A move through another stage is one of: ${COMPOSITE_MOVE_NAMES}`, path: ['via'] })
 export const BulkStageSchema = z.object({
   pieceIds: z.array(z.string().uuid('A piece id is not valid')).min(1, 'Choose at least one piece').max(200, 'Change at most 200 pieces at once'),
   to: stage,

@@ -1,5 +1,5 @@
 import { eq, sql } from 'drizzle-orm'
-import type { Database, Executor } from '../client'
+import type { Executor, Transaction } from '../client'
 import { lots, pieces, reviews, strikeAnalyses, strikes, templateVersions, users } from '../schema'
 import { analyzeSamples } from '../../../shared/analysis/analyzeSamples'
 import { encodeWav } from '../../../shared/analysis/encodeWav'
@@ -59,7 +59,7 @@ function strikeCountFor(stage: PieceStage, random: ReturnType<typeof seededRando
 }
 
 async function seedSetStrikes(
-  db: Database, storage: BlobStorage, workshopId: string, setId: string, people: People,
+  db: Transaction, storage: BlobStorage, workshopId: string, setId: string, people: People,
   stageOf: (i: number, n: number) => PieceStage, seed: number, decayScale: number,
 ) {
   const random = seededRandom(seed)
@@ -137,7 +137,7 @@ async function templateIdByName(db: Executor, workshopId: string, name: string) 
 }
 
 /** The demo workshop's lots, a 4.3-octave marimba and a 3-octave glockenspiel, with strikes. */
-export async function seedDemoRecords(db: Database, storage: BlobStorage, workshopId: string) {
+export async function seedDemoRecords(db: Transaction, storage: BlobStorage, workshopId: string) {
   const byEmail = async (email: string) => (await db.select({ id: users.id }).from(users).where(eq(users.email, email)))[0]!.id
   const people: People = {
     owner: await byEmail('owner@tonewright.test'),

@@ -23,7 +23,7 @@ export async function seedDemo(db: Database, storage: BlobStorage) {
     const [ownerRow] = await tx.select({ id: users.id }).from(users).where(eq(users.email, owner.email))
     await addStarterTemplates(tx, workshop!.id, ownerRow!.id)
     // Drizzle transactions nest (savepoints), so the services' own transactions run inside this one.
-    await seedDemoRecords(tx as unknown as Database, storage, workshop!.id)
+    await seedDemoRecords(tx, storage, workshop!.id)
   })
   return { created: true, workshopName: DEMO_WORKSHOP.name }
 }

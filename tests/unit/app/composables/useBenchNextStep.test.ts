@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { allowedMoves, type PieceStage } from '../../../../shared/records/stages'
-import { canSendToReview, movesToReview, nextPieceAfter } from '../../../../app/composables/useBenchNextStep'
+import { allowedMoves, COMPOSITE_MOVES, stagePath, type PieceStage } from '../../../../shared/records/stages'
+import { canSendToReview, nextPieceAfter } from '../../../../app/composables/useBenchNextStep'
 
 const piece = (id: string, position: number, stage: PieceStage) => ({ id, position, stage })
 
@@ -28,24 +28,25 @@ describe('nextPieceAfter', () => {
 })
 
 describe('sending to review from the Bench', () => {
-  it('needs a strike and a stage before review', () => {
-    for (const stage of ['blank', 'roughed', 'tuning', 'rework']) expect(canSendToReview({ strikeCount: 1, stage })).toBe(true)
-    for (const stage of ['review', 'approved', 'certified', 'shipped', 'scrapped']) expect(canSendToReview({ strikeCount: 3, stage })).toBe(false)
-    expect(canSendToReview({ strikeCount: 0, stage: 'tuning' })).toBe(false)
-    expect(canSendToReview(null)).toBe(false)
+  it('needs a strike, a stage before review and a role that may make the move', () => {
+    for (const stage of ['blank', 'roughed', 'tuning', 'rework']) expect(canSendToReview({ strikeCount: 1, stage }, 'benchmaker')).toBe(true)
+    for (const stage of ['review', 'approved', 'certified', 'shipped', 'scrapped']) expect(canSendToReview({ strikeCount: 3, stage }, 'benchmaker')).toBe(false)
+    expect(canSendToReview({ strikeCount: 0, stage: 'tuning' }, 'benchmaker')).toBe(false)
+    expect(canSendToReview({ strikeCount: 1, stage: 'tuning' }, 'office')).toBe(false)
+    expect(canSendToReview(null, 'owner')).toBe(false)
   })
 
-  it('takes only moves the stage table allows, ending in review', () => {
+  it('takes only moves the stage table allows, through tuning, ending in review', () => {
     for (const from of ['blank', 'roughed', 'tuning', 'rework'] as const) {
-      const moves = movesToReview(from)
-      expect(moves.at(-1)).toBe('review')
+      const path = stagePath('benchmaker', from, 'review', COMPOSITE_MOVES.review)
+      expect(path.steps?.at(-1)).toBe('review')
       let at: PieceStage = from
-      for (const to of moves) {
+      for (const to of path.steps ?? []) {
         expect(allowedMoves(at)).toContain(to)
         at = to
       }
     }
-    expect(movesToReview('rework')).toEqual(['tuning', 'review'])
-    expect(movesToReview('tuning')).toEqual(['review'])
+    expect(stagePath('benchmaker', 'rework', 'review', COMPOSITE_MOVES.review).steps).toEqual(['tuning', 'review'])
+    expect(stagePath('benchmaker', 'tuning', 'review', COMPOSITE_MOVES.review).steps).toEqual(['review'])
   })
 })

@@ -177,7 +177,7 @@ describe('the whole chain on a synthetic bar', () => {
       expect(result.matches![0]).toHaveProperty(key)
     }
     expect(result.parameters).toMatchObject({ window: 'blackman-harris' })
-    for (const key of ['windowS', 'zeroPad', 'hopS']) expect(typeof (result.parameters as unknown as Record<string, unknown>)[key]).toBe('number')
+    for (const key of ['windowS', 'zeroPad', 'hopS'] as const) expect(typeof result.parameters[key]).toBe('number')
     expect(result.parameters.zeroPad).toBeGreaterThanOrEqual(2)
     const frequencies = result.partials.map(p => p.frequencyHz)
     expect(frequencies).toEqual([...frequencies].sort((a, b) => a - b))
