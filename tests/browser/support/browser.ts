@@ -1,6 +1,7 @@
 import { mkdirSync } from 'node:fs'
 import { join } from 'node:path'
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
+import { afterAll, beforeAll } from 'vitest'
 
 export const BASE_URL = process.env.TW_BASE_URL ?? 'http://127.0.0.1:3100'
 export const ARTEFACTS = join(process.cwd(), 'test-results', 'screenshots')
@@ -55,4 +56,16 @@ export async function signInAs(page: Page, email: string, password = DEMO_PASSWO
   await page.getByLabel('Password').fill(password)
   await page.getByRole('button', { name: 'Sign in' }).click()
   await page.waitForURL(url => !url.pathname.startsWith('/signin'), { timeout: 20_000 })
+}
+
+/** One browser for a test file: launched before its tests, closed after them. */
+export function useBrowser(extraArgs: string[] = []): { newPage: () => Promise<Page> } {
+  let session: Awaited<ReturnType<typeof launch>> | undefined
+  beforeAll(async () => {
+    session = await launch(extraArgs)
+  })
+  afterAll(async () => {
+    await session?.close()
+  })
+  return { newPage: () => session!.newPage() }
 }

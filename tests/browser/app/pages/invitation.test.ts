@@ -1,16 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { api, newWorkshop, uniqueEmail } from '../../../integration/support/http'
 import { waitForMailTo } from '../../../integration/support/mail'
-import { BASE_URL, launch, screenshot, signInAs } from '../../support/browser'
+import { BASE_URL, screenshot, signInAs, useBrowser } from '../../support/browser'
 
-let session: Awaited<ReturnType<typeof launch>>
-
-beforeAll(async () => {
-  session = await launch()
-})
-afterAll(async () => {
-  await session?.close()
-})
+const session = useBrowser()
 
 describe('invitation and password reset screens', () => {
   it('the owner invites by e-mail and the invited person joins from the link', async () => {

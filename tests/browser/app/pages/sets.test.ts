@@ -1,16 +1,9 @@
 import { randomUUID } from 'node:crypto'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { BASE_URL, launch, screenshot, signInAs } from '../../support/browser'
+import { describe, expect, it } from 'vitest'
+import { BASE_URL, screenshot, signInAs, useBrowser } from '../../support/browser'
 import { ROLES, expectText } from '../../support/screens'
 
-let session: Awaited<ReturnType<typeof launch>>
-
-beforeAll(async () => {
-  session = await launch()
-})
-afterAll(async () => {
-  await session?.close()
-})
+const session = useBrowser()
 
 describe('sets', () => {
   it('office creates a set through the form, with a live count of the pieces the range makes', async () => {

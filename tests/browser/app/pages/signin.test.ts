@@ -1,14 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { BASE_URL, launch, screenshot, signInAs } from '../../support/browser'
+import { describe, expect, it } from 'vitest'
+import { BASE_URL, screenshot, signInAs, useBrowser } from '../../support/browser'
 
-let session: Awaited<ReturnType<typeof launch>>
-
-beforeAll(async () => {
-  session = await launch()
-})
-afterAll(async () => {
-  await session?.close()
-})
+const session = useBrowser()
 
 describe('signing in', () => {
   it('sends a visitor to the sign-in page', async () => {
