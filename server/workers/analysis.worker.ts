@@ -1,6 +1,9 @@
 import { AnalysisError, type AnalysisErrorStatus } from '../../shared/analysis/AnalysisError'
 import { analyzeStrike } from '../../shared/analysis/analyzeStrike'
 import type { AnalysisResult, AnalyzeOptions } from '../../shared/analysis/types'
+import { lowerThreadPriority } from './lowerThreadPriority'
+
+lowerThreadPriority()
 
 /** What the request thread sends: the file's bytes and the engine's options. */
 export interface AnalysisTask {

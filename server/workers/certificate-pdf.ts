@@ -2,6 +2,9 @@
 // server/workers/entries.ts): renders one certificate PDF off the thread that answers requests.
 import type { CertificateContent } from '../../shared/certificates/content'
 import { renderCertificatePdf, type Paper } from '../utils/certificate-pdf'
+import { lowerThreadPriority } from './lowerThreadPriority'
+
+lowerThreadPriority()
 
 export interface CertificatePdfTask { content: CertificateContent, status: string, paper: Paper }
 

@@ -1,4 +1,5 @@
-import { readFileSync } from 'node:fs'
+import { readdirSync, readFileSync } from 'node:fs'
+import { getPriority } from 'node:os'
 import { fileURLToPath } from 'node:url'
 import { afterAll, describe, expect, it } from 'vitest'
 import { AnalysisError } from '../../../../shared/analysis/AnalysisError'
@@ -17,6 +18,16 @@ describe('analysis pool (worker threads from the TypeScript source through tsx)'
     const bytes = fixture('strike-48k.flac')
     const options = { targetHz: 440, ratios: [1, 2.7565], tolerances: [5, 10] }
     expect(await pool.run(bytes, options)).toEqual(await analyzeStrike(bytes, options))
+  }, 60_000)
+
+  it('runs its threads at nice 10 and leaves the request thread at its own priority', async () => {
+    const before = getPriority()
+    await pool.measure(fixture('strike-48k.flac'), { targetHz: 440 })
+    // Niceness of every thread of this process: field 19 of /proc/<pid>/task/<tid>/stat (source: proc(5)).
+    const niceness = readdirSync('/proc/self/task')
+      .map(t => Number(readFileSync(`/proc/self/task/${t}/stat`, 'utf8').split(') ')[1]!.split(' ')[16]))
+    expect(niceness).toContain(10)
+    expect(getPriority()).toBe(before)
   }, 60_000)
 
   it('measure brings the result and its JSON text, written once in the worker, with the caller\'s bytes untouched', async () => {
