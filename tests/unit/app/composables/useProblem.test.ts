@@ -19,4 +19,15 @@ describe('useProblem', () => {
     })
     expect(problem.value).toBe('The server could not be reached. Check the connection and try again.')
   })
+
+  it('is busy only while the request runs, also when it fails', async () => {
+    const { busy, attempt } = useProblem()
+    let seen: boolean | undefined
+    await attempt(async () => {
+      seen = busy.value
+      throw new Error('boom')
+    })
+    expect(seen).toBe(true)
+    expect(busy.value).toBe(false)
+  })
 })
