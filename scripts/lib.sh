@@ -37,7 +37,9 @@ ensure_node_modules() {
   [ -f "$ROOT/node_modules/.tonewright-lock" ] && have=$(cat "$ROOT/node_modules/.tonewright-lock")
   if [ ! -d "$ROOT/node_modules" ] || [ "$want" != "$have" ]; then
     log "Installing node modules (npm ci)…"
-    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+    # The font packages' install step would otherwise start a telemetry process that calls
+    # out to the network; only the npm registry is reached from set-up.
+    (cd "$ROOT" && IBM_TELEMETRY_DISABLED=true npm ci --no-audit --no-fund --loglevel=error)
     echo "$want" > "$ROOT/node_modules/.tonewright-lock"
   fi
 }
