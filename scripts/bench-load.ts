@@ -4,7 +4,8 @@
  *
  *   npm run bench:load [-- --requests 24 --in-flight 4 --engine-runs 8]
  *
- * With a real 4 s strike (the tubular-bells-c5 fixture, rendered if missing) it prints:
+ * With a real strike (the whole tubular-bells-c5 recording, 9 s, rendered if missing: longer
+ * than a 4 s strike, so the rates are lower; the ratios compare the same file) it prints:
  * POST /api/analyze and POST /api/pieces/:id/strikes throughput (strikes/s) and latency
  * (p50/p95) with `--in-flight` requests at a time, /api/health latency polled all along,
  * the engine's single-thread rate in this process on the same file (measured before and
