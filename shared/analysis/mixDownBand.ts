@@ -56,20 +56,20 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
   const delay = (length - 1) / 2
   const count = Math.max(0, Math.floor((endIndex - startIndex - length) / factor) + 1)
   const omega = (2 * Math.PI * centerHz) / sampleRate
-  // Band-pass taps: the low-pass moved up to the band, phase referenced to the centre tap.
-  const gRe = new Float64Array(length)
-  const gIm = new Float64Array(length)
-  // Symmetric taps: g[c ± k] = h[c + k]·e^{∓iωk}, e^{iωk} by a rotation recurrence.
+  // Band-pass taps, folded: the low-pass moved up to the band, phase referenced to the
+  // centre tap, g[c ± k] = h[c + k]·e^{∓iωk}; the pair x[c+k], x[c−k] then costs two
+  // multiplications instead of four: Re += h cos ωk·(x₊ + x₋), Im += h sin ωk·(x₋ − x₊).
+  const hCos = new Float64Array(delay + 1)
+  const hSin = new Float64Array(delay + 1)
+  // e^{iωk} by a rotation recurrence.
   const cosStep = Math.cos(omega)
   const sinStep = Math.sin(omega)
   let cosK = 1
   let sinK = 0
   for (let k = 0; k <= delay; k++) {
     const h = taps[delay + k]!
-    gRe[delay + k] = h * cosK
-    gIm[delay + k] = -h * sinK
-    gRe[delay - k] = h * cosK
-    gIm[delay - k] = h * sinK
+    hCos[k] = h * cosK
+    hSin[k] = h * sinK
     const nextSin = sinK * cosStep + cosK * sinStep
     cosK = cosK * cosStep - sinK * sinStep
     sinK = nextSin
@@ -78,12 +78,14 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
   const im = new Float64Array(count)
   for (let m = 0; m < count; m++) {
     const base = startIndex + m * factor
-    let sRe = 0
+    const centre = base + delay
+    let sRe = hCos[0]! * signal[centre]!
     let sIm = 0
-    for (let j = 0; j < length; j++) {
-      const x = signal[base + j]!
-      sRe += x * gRe[j]!
-      sIm += x * gIm[j]!
+    for (let k = 1; k <= delay; k++) {
+      const after = signal[centre + k]!
+      const before = signal[centre - k]!
+      sRe += hCos[k]! * (after + before)
+      sIm += hSin[k]! * (before - after)
     }
     // Mix the output down by the phase of the carrier at the output's own time.
     const phase = -omega * (base + delay)
