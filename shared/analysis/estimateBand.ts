@@ -1,6 +1,7 @@
 import { dampedSinusoidCrb } from './dampedSinusoidCrb'
 import { matrixPencil } from './matrixPencil'
 import { mixDownBand } from './mixDownBand'
+import { phasorTable } from './phasorTable'
 import { refineExponentials } from './refineExponentials'
 
 /** One damped sinusoid found in a band. */
@@ -105,19 +106,13 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
     let hRe = band.taps[delay]!
     let hIm = 0
     const upStep = Math.exp(dampingPerSample)
-    const cosStep = Math.cos(omegaOffset)
-    const sinStep = Math.sin(omegaOffset)
+    const phasor = phasorTable(omegaOffset, delay + 1)
     let up = 1
-    let cosK = 1
-    let sinK = 0
     for (let j = 1; j <= delay; j++) {
       up *= upStep
-      const nextSin = sinK * cosStep + cosK * sinStep
-      cosK = cosK * cosStep - sinK * sinStep
-      sinK = nextSin
       const h = band.taps[delay + j]!
-      hRe += h * (up + 1 / up) * cosK
-      hIm += h * (1 / up - up) * sinK
+      hRe += h * (up + 1 / up) * phasor.cos[j]!
+      hIm += h * (1 / up - up) * phasor.sin[j]!
     }
     const gain = Math.hypot(hRe, hIm)
     const omega = omegaCenter + omegaOffset

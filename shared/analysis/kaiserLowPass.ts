@@ -1,4 +1,5 @@
 import { besselI0 } from './besselI0'
+import { phasorTable } from './phasorTable'
 
 /** Design of a linear-phase low-pass FIR filter. */
 export interface LowPassDesign {
@@ -28,23 +29,16 @@ export function kaiserLowPass(cutoffCycles: number, transitionCycles: number, de
   const taps = new Float64Array(order + 1)
   const norm = besselI0(beta)
   // Symmetric: compute one half; sin(2π f k) by a rotation recurrence.
-  const step = 2 * Math.PI * cutoffCycles
-  const cosStep = Math.cos(step)
-  const sinStep = Math.sin(step)
-  let sinK = 0
-  let cosK = 1
+  const { sin } = phasorTable(2 * Math.PI * cutoffCycles, half + 1)
   let sum = 0
   for (let k = 0; k <= half; k++) {
     const r = k / half
     const window = besselI0(beta * Math.sqrt(Math.max(0, 1 - r * r))) / norm
-    const sinc = k === 0 ? 2 * cutoffCycles : sinK / (Math.PI * k)
+    const sinc = k === 0 ? 2 * cutoffCycles : sin[k]! / (Math.PI * k)
     const value = window * sinc
     taps[half + k] = value
     taps[half - k] = value
     sum += k === 0 ? value : 2 * value
-    const nextSin = sinK * cosStep + cosK * sinStep
-    cosK = cosK * cosStep - sinK * sinStep
-    sinK = nextSin
   }
   for (let n = 0; n <= order; n++) taps[n]! /= sum
   return taps

@@ -1,4 +1,5 @@
 import { kaiserLowPass } from './kaiserLowPass'
+import { phasorTable } from './phasorTable'
 
 /** A complex-valued signal as two parallel arrays. */
 export interface ComplexSignal {
@@ -58,21 +59,12 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
   const omega = (2 * Math.PI * centerHz) / sampleRate
   // Band-pass taps, folded: the low-pass moved up to the band, phase referenced to the
   // centre tap, g[c ± k] = h[c + k]·e^{∓iωk}; the pair x[c+k], x[c−k] then costs two
-  // multiplications instead of four: Re += h cos ωk·(x₊ + x₋), Im += h sin ωk·(x₋ − x₊).
-  const hCos = new Float64Array(delay + 1)
-  const hSin = new Float64Array(delay + 1)
-  // e^{iωk} by a rotation recurrence.
-  const cosStep = Math.cos(omega)
-  const sinStep = Math.sin(omega)
-  let cosK = 1
-  let sinK = 0
+  // multiplications instead of four: Re += h cos ωk·(x₊ + x₋), Im += h sin ωk·(x₋ − x₊);
+  // e^{iωk} by a rotation recurrence (phasorTable).
+  const { cos: hCos, sin: hSin } = phasorTable(omega, delay + 1)
   for (let k = 0; k <= delay; k++) {
-    const h = taps[delay + k]!
-    hCos[k] = h * cosK
-    hSin[k] = h * sinK
-    const nextSin = sinK * cosStep + cosK * sinStep
-    cosK = cosK * cosStep - sinK * sinStep
-    sinK = nextSin
+    hCos[k]! *= taps[delay + k]!
+    hSin[k]! *= taps[delay + k]!
   }
   const re = new Float64Array(count)
   const im = new Float64Array(count)
