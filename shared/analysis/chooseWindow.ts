@@ -1,4 +1,4 @@
-import { nextPowerOfTwo } from './nextPowerOfTwo'
+import { windowLayout } from './windowLayout'
 
 /** Null-to-null main-lobe width of the 4-term Blackman–Harris window, in bins (Harris 1978). */
 export const MAIN_LOBE_BINS = 8
@@ -48,14 +48,6 @@ export function chooseWindow(needs: WindowNeeds, sampleRate: number): WindowChoi
   // Never shorter than the hop (span / 100), so consecutive frames always overlap or touch.
   const windowS = needs.windowS ?? Math.min(Math.max(needed, needs.spanS / 100), longest)
   const windowLength = Math.max(64, Math.min(Math.round(windowS * sampleRate), Math.floor(needs.spanS * sampleRate)))
-  const fftSize = nextPowerOfTwo(2 * windowLength)
   const hop = Math.max(1, Math.round(Math.max(windowLength / 4, (needs.spanS * sampleRate) / 100)))
-  return {
-    windowLength,
-    fftSize,
-    hop,
-    windowS: windowLength / sampleRate,
-    hopS: hop / sampleRate,
-    zeroPad: fftSize / windowLength,
-  }
+  return windowLayout(windowLength, hop, sampleRate)
 }

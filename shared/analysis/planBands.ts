@@ -1,5 +1,5 @@
 import { MAIN_LOBE_BINS, type WindowChoice } from './chooseWindow'
-import { nextPowerOfTwo } from './nextPowerOfTwo'
+import { windowLayout } from './windowLayout'
 
 /** One resolution of the multi-resolution analysis: a window and the band it measures. */
 export interface AnalysisBand extends WindowChoice {
@@ -60,14 +60,8 @@ export function planBands(
     if (ownFromHz >= 0.8 * range.maxHz) break
     const windowLength = Math.round(windowS * sampleRate)
     const hop = Math.max(1, Math.round(windowLength / 4))
-    const fftSize = nextPowerOfTwo(2 * windowLength)
     bands.push({
-      windowLength,
-      fftSize,
-      hop,
-      windowS: windowLength / sampleRate,
-      hopS: hop / sampleRate,
-      zeroPad: fftSize / windowLength,
+      ...windowLayout(windowLength, hop, sampleRate),
       fromHz: Math.max(range.minHz, ownFromHz - lobeHz / 2),
       ownFromHz,
       toHz: range.maxHz,
