@@ -1,4 +1,5 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix'
+import { complexPowers } from './complexPowers'
 import type { ComplexSignal } from './mixDownBand'
 import { selectModelOrder } from './selectModelOrder'
 import { solveNormalEquations } from './solveNormalEquations'
@@ -155,18 +156,14 @@ function fitAmplitudes(signal: ComplexSignal, poles: { re: number, im: number }[
   const k = poles.length
   const vandermonde = new Float64Array(2 * n * 2 * k)
   const cols = 2 * k
+  const powers = { re: new Float64Array(n), im: new Float64Array(n) }
   for (let p = 0; p < k; p++) {
-    let zr = 1
-    let zi = 0
-    const { re: pr, im: pi } = poles[p]!
+    const { re: zr, im: zi } = complexPowers(poles[p]!.re, poles[p]!.im, n, powers)
     for (let m = 0; m < n; m++) {
-      vandermonde[m * cols + p] = zr
-      vandermonde[m * cols + k + p] = -zi
-      vandermonde[(n + m) * cols + p] = zi
-      vandermonde[(n + m) * cols + k + p] = zr
-      const nr = zr * pr - zi * pi
-      zi = zr * pi + zi * pr
-      zr = nr
+      vandermonde[m * cols + p] = zr[m]!
+      vandermonde[m * cols + k + p] = -zi[m]!
+      vandermonde[(n + m) * cols + p] = zi[m]!
+      vandermonde[(n + m) * cols + k + p] = zr[m]!
     }
   }
   const rhs = new Float64Array(2 * n)

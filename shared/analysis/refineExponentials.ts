@@ -1,3 +1,4 @@
+import { complexPowers } from './complexPowers'
 import type { ExponentialFit } from './matrixPencil'
 import type { ComplexSignal } from './mixDownBand'
 import { solveNormalEquations } from './solveNormalEquations'
@@ -29,21 +30,24 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
     pRe: Float64Array.from(start.dampingNepers, d => -d),
     pIm: Float64Array.from(start.frequencyCycles, nu => 2 * Math.PI * nu),
   }
-  let current = residual(signal, params)
+  // Buffers reused across iterations and step halvings: the powers e^{p m}, two residuals
+  // (the current one and a trial), the Jacobian and the right-hand side.
+  const powers: ComplexSignal = { re: new Float64Array(n), im: new Float64Array(n) }
+  let current = residual(signal, params, powers, { re: new Float64Array(n), im: new Float64Array(n), sumSq: 0 })
+  let spare: Residual = { re: new Float64Array(n), im: new Float64Array(n), sumSq: 0 }
   // Columns: Δc (re part k, im part k), Δp (re part k, im part k), as φ(J), row by row.
   const cols = 4 * k
   const jacobian = new Float64Array(2 * n * cols)
+  const rhs = new Float64Array(2 * n)
   for (let it = 0; it < iterations; it++) {
     for (let q = 0; q < k; q++) {
       const cr = params.cRe[q]!
       const ci = params.cIm[q]!
-      // e^{p m} by the recurrence e^{p (m + 1)} = e^{p m}·e^{p} (no exp/cos/sin per sample).
       const stepMag = Math.exp(params.pRe[q]!)
-      const stepRe = stepMag * Math.cos(params.pIm[q]!)
-      const stepIm = stepMag * Math.sin(params.pIm[q]!)
-      let er = 1
-      let ei = 0
+      const { re: eRe, im: eIm } = complexPowers(stepMag * Math.cos(params.pIm[q]!), stepMag * Math.sin(params.pIm[q]!), n, powers)
       for (let m = 0; m < n; m++) {
+        const er = eRe[m]!
+        const ei = eIm[m]!
         const wr = m * (cr * er - ci * ei)
         const wi = m * (cr * ei + ci * er)
         const top = m * cols
@@ -56,12 +60,8 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
         jacobian[bottom + k + q] = wi
         jacobian[bottom + 2 * k + q] = er
         jacobian[bottom + 3 * k + q] = wr
-        const next = er * stepRe - ei * stepIm
-        ei = er * stepIm + ei * stepRe
-        er = next
       }
     }
-    const rhs = new Float64Array(2 * n)
     rhs.set(current.re)
     rhs.set(current.im, n)
     let step: Float64Array
@@ -80,10 +80,11 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
         pRe: params.pRe.map((v, q) => v + scale * step[k + q]!),
         pIm: params.pIm.map((v, q) => v + scale * step[3 * k + q]!),
       }
-      const next = residual(signal, trial)
+      const next = residual(signal, trial, powers, spare)
       if (next.sumSq < current.sumSq) {
         Object.assign(params, trial)
         const gain = (current.sumSq - next.sumSq) / current.sumSq
+        spare = current
         current = next
         accepted = true
         if (gain < 1e-10) it = iterations
@@ -109,28 +110,30 @@ interface Params {
   pIm: Float64Array
 }
 
-/** y − Σ c_k e^{p_k m} and its squared norm. */
-function residual(signal: ComplexSignal, p: Params): { re: Float64Array, im: Float64Array, sumSq: number } {
+interface Residual {
+  re: Float64Array
+  im: Float64Array
+  sumSq: number
+}
+
+/** y − Σ c_k e^{p_k m} and its squared norm, written into `out` (`powers` is scratch). */
+function residual(signal: ComplexSignal, p: Params, powers: ComplexSignal, out: Residual): Residual {
   const n = signal.re.length
-  const re = Float64Array.from(signal.re)
-  const im = Float64Array.from(signal.im)
+  const { re, im } = out
+  re.set(signal.re)
+  im.set(signal.im)
   for (let q = 0; q < p.cRe.length; q++) {
     const stepMag = Math.exp(p.pRe[q]!)
-    const stepRe = stepMag * Math.cos(p.pIm[q]!)
-    const stepIm = stepMag * Math.sin(p.pIm[q]!)
+    const { re: eRe, im: eIm } = complexPowers(stepMag * Math.cos(p.pIm[q]!), stepMag * Math.sin(p.pIm[q]!), n, powers)
     const cr = p.cRe[q]!
     const ci = p.cIm[q]!
-    let er = 1
-    let ei = 0
     for (let m = 0; m < n; m++) {
-      re[m]! -= cr * er - ci * ei
-      im[m]! -= cr * ei + ci * er
-      const next = er * stepRe - ei * stepIm
-      ei = er * stepIm + ei * stepRe
-      er = next
+      re[m]! -= cr * eRe[m]! - ci * eIm[m]!
+      im[m]! -= cr * eIm[m]! + ci * eRe[m]!
     }
   }
   let sumSq = 0
   for (let m = 0; m < n; m++) sumSq += re[m]! * re[m]! + im[m]! * im[m]!
-  return { re, im, sumSq }
+  out.sumSq = sumSq
+  return out
 }
