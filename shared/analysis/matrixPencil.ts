@@ -1,5 +1,6 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix'
 import { complexPowers } from './complexPowers'
+import { hermitianEigen } from './hermitianEigen'
 import type { ComplexSignal } from './mixDownBand'
 import { selectModelOrder } from './selectModelOrder'
 import { solveNormalEquations } from './solveNormalEquations'
@@ -38,7 +39,8 @@ export interface PencilSettings {
  * first row dropped) span shifted copies of the signal subspace, and the eigenvalues of
  * W₁⁺W₂ are the poles z_k. Amplitudes c_k follow by least squares on the Vandermonde matrix.
  *
- * Complex algebra runs on ml-matrix through the real embedding φ(A) = [[Re A, −Im A],
+ * YᴴY is decomposed as the complex Hermitian matrix it is (hermitianEigen); the rest of the
+ * complex algebra runs on ml-matrix through the real embedding φ(A) = [[Re A, −Im A],
  * [Im A, Re A]], which keeps products, inverses and singular values (each twice). Its
  * eigenvalues come in pairs z, z̄; multiplying by i first (in the subspace's own
  * coordinates) and keeping the upper half-plane picks the true z, valid for |ν| < ¼ —
@@ -56,17 +58,10 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
   const cols = pencil + 1
   if (n < 6 || rows < cols) throw new RangeError('matrixPencil needs at least six samples')
 
-  // Y^H·Y of the Hankel matrix (cols × cols, Hermitian), built by the shift recurrence
-  // G[j+1][k+1] = G[j][k] − conj(y_j)·y_k + conj(y_{j+rows})·y_{k+rows}, then its real
-  // embedding, whose eigenvalues are σ² (each twice) and eigenvectors [Re v; Im v].
+  // Y^H·Y of the Hankel matrix (cols × cols, Hermitian; its eigenvalues are σ²), upper
+  // triangle built by the shift recurrence
+  // G[j+1][k+1] = G[j][k] − conj(y_j)·y_k + conj(y_{j+rows})·y_{k+rows}.
   const { re, im } = signal
-  const gram = Array.from({ length: 2 * cols }, () => new Float64Array(2 * cols))
-  const put = (j: number, k: number, gr: number, gi: number) => {
-    gram[j]![k] = gr
-    gram[cols + j]![cols + k] = gr
-    gram[cols + j]![k] = gi
-    gram[j]![cols + k] = -gi
-  }
   const gRe = new Float64Array(cols * cols)
   const gIm = new Float64Array(cols * cols)
   for (let k = 0; k < cols; k++) {
@@ -89,26 +84,33 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
       gIm[j * cols + k] = gIm[a * cols + b]! - (re[a]! * im[b]! - im[a]! * re[b]!) + (re[c]! * im[d]! - im[c]! * re[d]!)
     }
   }
+  // hermitianEigen reads the lower triangle: G[k][j] = conj(G[j][k]).
   for (let j = 0; j < cols; j++) {
-    for (let k = j; k < cols; k++) {
-      put(j, k, gRe[j * cols + k]!, gIm[j * cols + k]!)
-      put(k, j, gRe[j * cols + k]!, -gIm[j * cols + k]!)
+    for (let k = j + 1; k < cols; k++) {
+      gRe[k * cols + j] = gRe[j * cols + k]!
+      gIm[k * cols + j] = -gIm[j * cols + k]!
     }
   }
-  const eigen = new EigenvalueDecomposition(new Matrix(gram), { assumeSymmetric: true })
-  const ascending = eigen.realEigenvalues
+  const eigen = hermitianEigen(gRe, gIm, cols)
   const singularValues = new Float64Array(cols)
-  for (let k = 0; k < cols; k++) singularValues[k] = Math.sqrt(Math.max(0, ascending[2 * cols - 1 - 2 * k]!))
+  for (let k = 0; k < cols; k++) singularValues[k] = Math.sqrt(Math.max(0, eigen.values[cols - 1 - k]!))
   const order = settings.order ?? selectModelOrder(singularValues, rows, { maxOrder, minOrder: settings.minOrder })
   if (!(Number.isInteger(order) && order >= 1 && order < cols)) throw new RangeError('matrixPencil needs an order between 1 and the pencil parameter')
 
-  // Signal subspace: 2K real vectors [Re w; Im w] with w = conj(v), row by row (2·cols × 2K).
-  const v = eigen.eigenvectorMatrix
+  // Signal subspace as 2K real vectors, row by row (2·cols × 2K): for each of the K dominant
+  // eigenvectors v, w = conj(v) and i·w as [Re; Im] (the real span of the complex subspace).
   const width = 2 * order
   const basis = new Float64Array(2 * cols * width)
-  for (let r = 0; r < 2 * cols; r++) {
-    const sign = r < cols ? 1 : -1
-    for (let k = 0; k < width; k++) basis[r * width + k] = sign * v.get(r, 2 * cols - 1 - k)
+  for (let q = 0; q < order; q++) {
+    const column = cols - 1 - q
+    for (let r = 0; r < cols; r++) {
+      const vr = eigen.vectorsRe[r * cols + column]!
+      const vi = eigen.vectorsIm[r * cols + column]!
+      basis[r * width + 2 * q] = vr
+      basis[(cols + r) * width + 2 * q] = -vi
+      basis[r * width + 2 * q + 1] = vi
+      basis[(cols + r) * width + 2 * q + 1] = vr
+    }
   }
   // W₁ (last row of each half dropped) and W₂ (first row dropped), then W₁⁺W₂ by least squares.
   const shifted = (skip: number) => {
