@@ -95,6 +95,7 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
   const omegaCenter = (2 * Math.PI * centerHz) / sampleRate
   const delay = (band.taps.length - 1) / 2
   const components: BandComponent[] = []
+  const phasors = { cos: new Float64Array(delay + 1), sin: new Float64Array(delay + 1) }
   for (let k = 0; k < order; k++) {
     const nu = fit.frequencyCycles[k]!
     if (Math.abs(nu) > 0.25) continue
@@ -106,7 +107,7 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
     let hRe = band.taps[delay]!
     let hIm = 0
     const upStep = Math.exp(dampingPerSample)
-    const phasor = phasorTable(omegaOffset, delay + 1)
+    const phasor = phasorTable(omegaOffset, delay + 1, phasors)
     let up = 1
     for (let j = 1; j <= delay; j++) {
       up *= upStep

@@ -27,6 +27,17 @@ describe('phasorTable', () => {
     expect(worst).toBeLessThan(1e-11)
   })
 
+  it('fills the table it is given', () => {
+    const out = { cos: new Float64Array(4), sin: new Float64Array(4) }
+    const table = phasorTable(Math.PI / 2, 3, out)
+    // source: unit-circle values at 0°, 90°, 180°
+    expect(table.cos).toBe(out.cos)
+    expect(out.cos[0]).toBe(1)
+    expect(out.sin[1]).toBeCloseTo(1, 15)
+    expect(out.cos[2]).toBeCloseTo(-1, 15)
+    expect(out.cos[3]).toBe(0)
+  })
+
   it('gives an empty table for count 0 and refuses a bad step or count', () => {
     expect(phasorTable(0.1, 0).cos.length).toBe(0)
     expect(() => phasorTable(Number.NaN, 4)).toThrow(RangeError)
