@@ -33,13 +33,20 @@ export function linkTracks(frames: SpectrumFrame[], settings: LinkSettings): Tra
 
   frames.forEach((frame, f) => {
     const pairs: { track: number, peak: number, distance: number }[] = []
+    // Peaks come by ascending frequency (shortTimePeaks): each track looks only at those
+    // within its limit, found by bisection, in the same order a full scan would meet them.
+    const { peaks } = frame
+    let ascending = true
+    for (let p = 1; p < peaks.length && ascending; p++) ascending = peaks[p - 1]!.frequencyHz <= peaks[p]!.frequencyHz
     open.forEach((track, t) => {
       const last = track.points[track.points.length - 1]!
       const limit = Math.max(last.frequencyHz * jumpRatio, settings.minJumpHz)
-      frame.peaks.forEach((peak, p) => {
-        const distance = Math.abs(peak.frequencyHz - last.frequencyHz)
+      let p = ascending ? firstAtLeast(peaks, last.frequencyHz - 2 * limit) : 0
+      for (; p < peaks.length; p++) {
+        const distance = Math.abs(peaks[p]!.frequencyHz - last.frequencyHz)
         if (distance <= limit) pairs.push({ track: t, peak: p, distance })
-      })
+        else if (ascending && peaks[p]!.frequencyHz > last.frequencyHz) break
+      }
     })
     pairs.sort((a, b) => a.distance - b.distance)
     const trackTaken = new Uint8Array(open.length)
@@ -69,4 +76,16 @@ export function linkTracks(frames: SpectrumFrame[], settings: LinkSettings): Tra
   })
   for (const track of open) done.push(track.points)
   return done.filter(points => points.length >= settings.minFrames)
+}
+
+/** Index of the first peak at or above `frequencyHz` (peaks ascending). */
+function firstAtLeast(peaks: readonly { frequencyHz: number }[], frequencyHz: number): number {
+  let lo = 0
+  let hi = peaks.length
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1
+    if (peaks[mid]!.frequencyHz < frequencyHz) lo = mid + 1
+    else hi = mid
+  }
+  return lo
 }
