@@ -18,7 +18,8 @@ export const CUT_PLAN_LIMITS = {
 } as const
 
 const L = CUT_PLAN_LIMITS
-const within = (what: string, [lo, hi]: readonly [number, number], unit: string) =>
+/** A finite number within a range, with one sentence naming the range and unit. */
+export const within = (what: string, [lo, hi]: readonly [number, number], unit: string) =>
   finite(what).min(lo, `${capitalised(what)} must be between ${lo} and ${hi}${unit}`).max(hi, `${capitalised(what)} must be between ${lo} and ${hi}${unit}`)
 
 export const ProfileStationSchema = z.object({
