@@ -1,7 +1,6 @@
-import { existsSync } from 'node:fs'
-import { dirname, join } from 'node:path'
-import { fileURLToPath, pathToFileURL } from 'node:url'
+import { pathToFileURL } from 'node:url'
 import Piscina from 'piscina'
+import { builtWorkerFile } from './built-worker'
 import { runBarModelTask, type BarModelReply, type BarModelTask } from '../../shared/barModel/runBarModelTask'
 
 /** Tasks waiting for the thread before new ones are refused. */
@@ -21,17 +20,6 @@ export interface BarModelPool {
   close(): Promise<void>
 }
 
-/** The worker built beside the server (server/workers/entries.ts), looked up from this chunk's folder upwards. */
-function builtWorker(): string | null {
-  let dir = dirname(fileURLToPath(import.meta.url))
-  for (let i = 0; i < 4; i++) {
-    const file = join(dir, 'workers', 'bar-model.mjs')
-    if (existsSync(file)) return file
-    dir = dirname(dir)
-  }
-  return null
-}
-
 let current: BarModelPool | undefined
 
 /**
@@ -41,7 +29,7 @@ let current: BarModelPool | undefined
  */
 export function useBarModelPool(): BarModelPool {
   if (current) return current
-  const file = builtWorker()
+  const file = builtWorkerFile('bar-model')
   if (!file) {
     current = {
       run: async task => runBarModelTask(task),
