@@ -1,21 +1,9 @@
-import { existsSync } from 'node:fs'
-import { dirname, join } from 'node:path'
-import { fileURLToPath, pathToFileURL } from 'node:url'
+import { pathToFileURL } from 'node:url'
 import Piscina from 'piscina'
 import type { CertificateContent } from '../../shared/certificates/content'
 import type { CertificatePdfTask } from '../workers/certificate-pdf'
+import { builtWorkerFile } from './built-worker'
 import { renderCertificatePdf, type Paper } from './certificate-pdf'
-
-/** The worker built beside the server (see server/workers/entries.ts), looked up from this chunk's folder upwards. */
-function builtWorker(): string | null {
-  let dir = dirname(fileURLToPath(import.meta.url))
-  for (let i = 0; i < 4; i++) {
-    const file = join(dir, 'workers', 'certificate-pdf.mjs')
-    if (existsSync(file)) return file
-    dir = dirname(dir)
-  }
-  return null
-}
 
 let pool: Piscina<CertificatePdfTask, Uint8Array> | null | undefined
 
@@ -27,7 +15,7 @@ let pool: Piscina<CertificatePdfTask, Uint8Array> | null | undefined
  */
 export async function renderPdfOffThread(content: CertificateContent, status: string, paper: Paper): Promise<Uint8Array> {
   if (pool === undefined) {
-    const file = builtWorker()
+    const file = builtWorkerFile('certificate-pdf')
     pool = file ? new Piscina<CertificatePdfTask, Uint8Array>({ filename: pathToFileURL(file).href, minThreads: 0, maxThreads: 1, idleTimeout: 60_000 }) : null
   }
   if (!pool) return renderCertificatePdf(content, status, paper)

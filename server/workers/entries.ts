@@ -7,6 +7,7 @@ import { resolve } from 'node:path'
  */
 export const WORKER_ENTRIES: Record<string, string> = {
   'workers/certificate-pdf': 'server/workers/certificate-pdf.ts',
+  'workers/bar-model': 'server/workers/bar-model.ts',
 }
 
 interface ModuleInfo { isExternal: boolean, importedIds: readonly string[] }

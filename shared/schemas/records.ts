@@ -4,7 +4,7 @@ import { COMPOSITE_MOVES, isCompositeMove, PIECE_STAGES } from '../records/stage
 import { PIECE_VERDICTS, TEMPLATE_FAMILIES } from '../records/lists'
 import { wordsOr } from '../format/words'
 
-const finite = (what: string) => z.number({ required_error: `Enter ${what}`, invalid_type_error: `${what} must be a number` }).finite(`${what} must be a number`)
+export const finite = (what: string) => z.number({ required_error: `Enter ${what}`, invalid_type_error: `${what} must be a number` }).finite(`${what} must be a number`)
 
 export const TemplatePartialInputSchema = z.object({
   label: z.string().trim().min(1, 'Name each partial').max(60, 'A partial name is at most 60 characters'),

@@ -14,7 +14,7 @@ describe('addWorkerEntries', () => {
   it('adds the worker entries beside the server entry, keeping index.mjs as the server', () => {
     const config: { input?: unknown, output?: unknown } = { input: '/nitro/entry.mjs', output: {} }
     addWorkerEntries(config, '/app')
-    expect(config.input).toEqual({ 'index': '/nitro/entry.mjs', 'workers/certificate-pdf': '/app/server/workers/certificate-pdf.ts' })
+    expect(config.input).toEqual({ 'index': '/nitro/entry.mjs', 'workers/certificate-pdf': '/app/server/workers/certificate-pdf.ts', 'workers/bar-model': '/app/server/workers/bar-model.ts' })
     const names = (config.output as { entryFileNames: (c: { name: string }) => string }).entryFileNames
     expect(names({ name: 'index' })).toBe('index.mjs')
     expect(names({ name: 'workers/certificate-pdf' })).toBe('[name].mjs')
