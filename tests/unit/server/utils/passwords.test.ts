@@ -12,7 +12,7 @@ describe('passwords', () => {
     expect(await checkPassword('bar-and-bell-2027', hash)).toBe(false)
     // The reference library agrees with what was stored.
     expect(await bcrypt.compare('bar-and-bell-2026', hash)).toBe(true)
-  })
+  }, 30_000) // bcrypt is slow on purpose: five hashes at cost 10
 
   it('answers false for an unknown member, whatever the password', async () => {
     expect(await checkPassword('not-a-real-password-tonewright', null)).toBe(false)
