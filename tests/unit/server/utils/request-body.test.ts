@@ -3,12 +3,7 @@ import { hasBody, readBodyLimited } from '../../../../server/utils/request-body'
 import { requestEvent } from '../../../support/h3Event'
 
 /** A POST whose body arrives in `chunks`, with these headers. */
-function streaming(headers: Record<string, string>, chunks: string[]) {
-  const event = requestEvent('POST', '/api/strikes', headers)
-  for (const chunk of chunks) event.node.req.push(Buffer.from(chunk))
-  event.node.req.push(null)
-  return event
-}
+const streaming = (headers: Record<string, string>, chunks: string[]) => requestEvent('POST', '/api/strikes', headers, chunks)
 
 const TOO_LARGE = 'The recording is larger than 10 bytes.'
 
