@@ -14,22 +14,24 @@ export function writeWav(
   const dataBytes = frames * blockAlign
   const out = new Uint8Array(44 + dataBytes)
   const view = new DataView(out.buffer)
-  const text = (offset: number, s: string) => {
-    for (let i = 0; i < s.length; i++) out[offset + i] = s.charCodeAt(i)
+  // The canonical 44-byte header, field by field in file order (RIFF/WAVE: a string is a
+  // four-character code, a number pair is a little-endian integer and its size in bytes).
+  const header: (string | [number, 2 | 4])[] = [
+    'RIFF', [36 + dataBytes, 4], 'WAVE',
+    'fmt ', [16, 4], [format === 'float32' ? 3 : 1, 2], [channels.length, 2], [sampleRate, 4], [sampleRate * blockAlign, 4], [blockAlign, 2], [bytesPerSample * 8, 2],
+    'data', [dataBytes, 4],
+  ]
+  let at = 0
+  for (const field of header) {
+    if (typeof field === 'string') {
+      for (const ch of field) view.setUint8(at++, ch.charCodeAt(0))
+      continue
+    }
+    const [value, size] = field
+    if (size === 2) view.setUint16(at, value, true)
+    else view.setUint32(at, value, true)
+    at += size
   }
-  text(0, 'RIFF')
-  view.setUint32(4, 36 + dataBytes, true)
-  text(8, 'WAVE')
-  text(12, 'fmt ')
-  view.setUint32(16, 16, true)
-  view.setUint16(20, format === 'float32' ? 3 : 1, true)
-  view.setUint16(22, channels.length, true)
-  view.setUint32(24, sampleRate, true)
-  view.setUint32(28, sampleRate * blockAlign, true)
-  view.setUint16(32, blockAlign, true)
-  view.setUint16(34, bytesPerSample * 8, true)
-  text(36, 'data')
-  view.setUint32(40, dataBytes, true)
   let offset = 44
   for (let i = 0; i < frames; i++) {
     for (const channel of channels) {

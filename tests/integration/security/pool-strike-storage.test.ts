@@ -120,40 +120,37 @@ describe('class: races — recording a strike never overwrites a change made whi
     bench = await memberWithRole(owner.token, 'benchmaker')
   })
 
-  it('the owner strikes an unassigned piece while a supervisor assigns it: the assignment stays', async () => {
-    const set = await createSet(owner.token)
-    const piece = set.pieces[0] as { id: string, targetHz: number }
+  /** Strike `piece` as `token` and, while the strike is being measured, give the piece to `assigneeId`. */
+  async function strikeWhileReassigned(token: string, piece: { id: string, targetHz: number }, assigneeId: string) {
     let reply: Awaited<ReturnType<typeof postStrike>> | undefined
     await holdingPiece(piece.id, async (tx) => {
-      const request = postStrike(owner.token, piece.id, strikeWav(piece.targetHz, [1, 4], [0, 0])).then((r) => {
+      const request = postStrike(token, piece.id, strikeWav(piece.targetHz, [1, 4], [0, 0])).then((r) => {
         reply = r
       })
       await until(() => filesUnder(STORAGE, `pending/strikes/${owner.workshopId}`).length === 1, 'the strike is measured')
-      // The assignment commits while the strike waits with its first read (unassigned) in hand.
-      await tx`update pieces set assignee_id = ${bench.userId} where id = ${piece.id}`
+      // The assignment commits while the strike waits with its first read of the piece in hand.
+      await tx`update pieces set assignee_id = ${assigneeId} where id = ${piece.id}`
       void request
     })
     await until(() => reply !== undefined, 'the strike answers')
-    expect(reply!.status).toBe(201)
+    return reply!
+  }
+
+  it('the owner strikes an unassigned piece while a supervisor assigns it: the assignment stays', async () => {
+    const set = await createSet(owner.token)
+    const piece = set.pieces[0] as { id: string, targetHz: number }
+    const reply = await strikeWhileReassigned(owner.token, piece, bench.userId)
+    expect(reply.status).toBe(201)
     const [row] = await sql`select assignee_id, strike_count, latest_strike_id from pieces where id = ${piece.id}`
-    expect(row).toEqual({ assignee_id: bench.userId, strike_count: 1, latest_strike_id: reply!.body.id })
+    expect(row).toEqual({ assignee_id: bench.userId, strike_count: 1, latest_strike_id: reply.body.id })
   }, 60_000)
 
   it('a benchmaker\'s strike on a piece given to someone else meanwhile is refused (403) and leaves nothing', async () => {
     const set = await createSet(owner.token)
     const piece = set.pieces[1] as { id: string, targetHz: number }
     const other = await memberWithRole(owner.token, 'benchmaker')
-    let reply: Awaited<ReturnType<typeof postStrike>> | undefined
-    await holdingPiece(piece.id, async (tx) => {
-      const request = postStrike(bench.token, piece.id, strikeWav(piece.targetHz, [1, 4], [0, 0])).then((r) => {
-        reply = r
-      })
-      await until(() => filesUnder(STORAGE, `pending/strikes/${owner.workshopId}`).length === 1, 'the strike is measured')
-      await tx`update pieces set assignee_id = ${other.userId} where id = ${piece.id}`
-      void request
-    })
-    await until(() => reply !== undefined, 'the strike answers')
-    expect(reply!.status).toBe(403)
+    const reply = await strikeWhileReassigned(bench.token, piece, other.userId)
+    expect(reply.status).toBe(403)
     const [row] = await sql`select assignee_id, strike_count from pieces where id = ${piece.id}`
     expect(row).toEqual({ assignee_id: other.userId, strike_count: 0 })
     expect(filesUnder(STORAGE, `pending/strikes/${owner.workshopId}`)).toEqual([])

@@ -1,12 +1,12 @@
 import { readdirSync, readFileSync } from 'node:fs'
 import { getPriority } from 'node:os'
-import { fileURLToPath } from 'node:url'
 import { afterAll, describe, expect, it } from 'vitest'
 import { AnalysisError } from '../../../../shared/analysis/AnalysisError'
 import { analyzeStrike } from '../../../../shared/analysis/analyzeStrike'
 import { AnalysisBusyError, createAnalysisPool, locateWorker } from '../../../../server/utils/analysis-pool'
+import { audioFixture } from '../../../support/audioFixture'
 
-const fixture = (name: string) => new Uint8Array(readFileSync(fileURLToPath(new URL(`../../../fixtures/audio/${name}`, import.meta.url))))
+const fixture = audioFixture
 
 describe('analysis pool (worker threads from the TypeScript source through tsx)', () => {
   const pool = createAnalysisPool({ threads: 1, maxQueue: 1 })

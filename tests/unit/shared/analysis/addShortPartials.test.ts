@@ -2,23 +2,21 @@ import { describe, expect, it } from 'vitest'
 import { addShortPartials } from '../../../../shared/analysis/addShortPartials'
 import { centsBetween } from '../../../../shared/analysis/centsBetween'
 import { expectedPartials } from '../../../../shared/analysis/expectedPartials'
-import { findStrike } from '../../../../shared/analysis/findStrike'
-import { synthStrike } from '../../../support/synthStrike'
+import { foundStrike } from '../../../support/foundStrike'
+import { measuredPartial } from '../../../support/partials'
 
 const sampleRate = 44100
 // A hard-mallet xylophone bar (our own scenario, as in findShortPartials.test.ts): C5 and its
 // tuned ×3 partial of T60 0.1 s (600 dB/s), 34 dB under the fundamental.
 // common practice: xylophone bars are tuned 1 : 3; the ×3 partial dies far faster than the fundamental.
-const x = synthStrike([
+const { signal: x, strike } = foundStrike([
   { frequencyHz: 523.25, amplitudeDb: -6, decayDbPerS: 20 },
   { frequencyHz: 1569.75, amplitudeDb: -40, decayDbPerS: 600 },
 ], { sampleRate, durationS: 1.5, onsetS: 0.05, noiseDb: -70, seed: 1 })
-const strike = findStrike(x, sampleRate, { attackSkipS: 0.005 })
 const level = { peakDb: 0, minAmplitudeDb: -90 }
-const fundamental = {
-  frequencyHz: 523.25, amplitudeDb: -6, decayDbPerS: 20, t60S: 3, r2: 0.99, startS: 0.1, endS: 1.9, stabilityCents: 0.01, beatHz: null, snrDb: 70,
-  frames: 60, modulationHz: null, modulationDepthDb: null, crossCheckCents: 0, uncertaintyCents: 0.01, uncertaintyDecayPct: 1,
-}
+const fundamental = measuredPartial({
+  frequencyHz: 523.25, amplitudeDb: -6, decayDbPerS: 20, t60S: 3, endS: 1.9, stabilityCents: 0.01, snrDb: 70, frames: 60,
+})
 
 describe('addShortPartials', () => {
   it('adds nothing without a template', () => {

@@ -1,14 +1,10 @@
 import { describe, expect, it } from 'vitest'
 import { applyTemplate } from '../../../../shared/analysis/applyTemplate'
 import { expectedPartials } from '../../../../shared/analysis/expectedPartials'
-import type { AnalysisResult, MeasuredPartial } from '../../../../shared/analysis/types'
+import type { AnalysisResult } from '../../../../shared/analysis/types'
+import { measuredPartial } from '../../../support/partials'
 
-function partial(frequencyHz: number): MeasuredPartial {
-  return {
-    frequencyHz, amplitudeDb: -20, decayDbPerS: 10, t60S: 6, r2: 0.99, startS: 0.1, endS: 2, stabilityCents: 0.1, beatHz: null, snrDb: 60,
-    frames: 50, modulationHz: null, modulationDepthDb: null, crossCheckCents: 0, uncertaintyCents: 0.01, uncertaintyDecayPct: 1,
-  }
-}
+const partial = (frequencyHz: number) => measuredPartial({ frequencyHz })
 
 describe('applyTemplate', () => {
   const { target, template } = expectedPartials({ targetHz: 400, ratios: [1, 3, 60] })

@@ -3,22 +3,14 @@ import { analyzeSamples, chooseWindow, MAIN_LOBE_BINS } from '../../../../shared
 import { dropSidebands } from '../../../../shared/analysis/dropSidebands'
 import { guardPartials, type PhysicalBounds } from '../../../../shared/analysis/guardPartials'
 import { measureModulation } from '../../../../shared/analysis/measureModulation'
-import type { TrackMeasurement } from '../../../../shared/analysis/measureTrack'
 import { mergeBands } from '../../../../shared/analysis/mergeBands'
 import { planBands } from '../../../../shared/analysis/planBands'
 import { windowSpan } from '../../../../shared/analysis/windowSpan'
 import { synthRealisticStrike, tremoloDepthDb } from '../../../../shared/synthesis/synthRealisticStrike'
 import { synthStrike } from '../../../support/synthStrike'
+import { trackReading } from '../../../support/partials'
 
 const settings = { shortestWindowS: 0.008, bandWindowRatio: 4, fastBandFrames: 100 }
-
-function partial(fields: Partial<TrackMeasurement>): TrackMeasurement {
-  return {
-    frequencyHz: 440, amplitudeDb: -20, decayDbPerS: 10, t60S: 6, r2: 0.99, startS: 0.1, endS: 2, stabilityCents: 0.1,
-    beatHz: null, snrDb: 60, frames: 50, modulationHz: null, modulationDepthDb: null,
-    refineSpanS: 1.9, windowS: 0.1, strongestFrameDb: -22, modulationFrom: null, ...fields,
-  }
-}
 
 describe('planBands (multi-resolution layout)', () => {
   const long = chooseWindow({ spacingHz: 50, lowestHz: 100, spanS: 3 }, 48000)
@@ -52,8 +44,8 @@ describe('planBands (multi-resolution layout)', () => {
 
 describe('mergeBands', () => {
   it('adds what only a fast band saw and lets it replace a reading its slow window smeared', () => {
-    const slow = [partial({ frequencyHz: 500, windowS: 0.2, decayDbPerS: 5 }), partial({ frequencyHz: 1500, windowS: 0.2, decayDbPerS: 60 })]
-    const fast = [partial({ frequencyHz: 500.1, windowS: 0.05, decayDbPerS: 5.1 }), partial({ frequencyHz: 1500.2, windowS: 0.05, decayDbPerS: 200 }), partial({ frequencyHz: 3000, windowS: 0.05 })]
+    const slow = [trackReading({ frequencyHz: 500, windowS: 0.2, decayDbPerS: 5 }), trackReading({ frequencyHz: 1500, windowS: 0.2, decayDbPerS: 60 })]
+    const fast = [trackReading({ frequencyHz: 500.1, windowS: 0.05, decayDbPerS: 5.1 }), trackReading({ frequencyHz: 1500.2, windowS: 0.05, decayDbPerS: 200 }), trackReading({ frequencyHz: 3000, windowS: 0.05 })]
     const merged = mergeBands([slow, fast], 6)
     // 5 dB/s × 0.2 s = 1 dB: the slow reading stands; 200 dB/s × 0.2 s = 40 dB: the fast one wins.
     expect(merged.map(p => [p.frequencyHz, p.windowS])).toEqual([[500, 0.2], [1500.2, 0.05], [3000, 0.05]])
@@ -65,13 +57,13 @@ describe('guardPartials (physical bounds)', () => {
 
   it('leaves out amplitudes above the file\'s peak, growth, impossible decays and frequencies outside the band', () => {
     const { kept, warnings } = guardPartials([
-      partial({ frequencyHz: 1870, amplitudeDb: 205, strongestFrameDb: 190 }),
-      partial({ frequencyHz: 600, decayDbPerS: -5 }),
-      partial({ frequencyHz: 700, decayDbPerS: 9000 }),
-      partial({ frequencyHz: 800, decayDbPerS: 100, startS: 0.1, endS: 2, snrDb: 40 }),
-      partial({ frequencyHz: 24000 }),
-      partial({ frequencyHz: 25, windowS: 0.1 }),
-      partial({ frequencyHz: 440 }),
+      trackReading({ frequencyHz: 1870, amplitudeDb: 205, strongestFrameDb: 190 }),
+      trackReading({ frequencyHz: 600, decayDbPerS: -5 }),
+      trackReading({ frequencyHz: 700, decayDbPerS: 9000 }),
+      trackReading({ frequencyHz: 800, decayDbPerS: 100, startS: 0.1, endS: 2, snrDb: 40 }),
+      trackReading({ frequencyHz: 24000 }),
+      trackReading({ frequencyHz: 25, windowS: 0.1 }),
+      trackReading({ frequencyHz: 440 }),
     ], bounds)
     expect(kept.map(p => p.frequencyHz)).toEqual([440])
     expect(warnings).toHaveLength(4)
@@ -80,8 +72,8 @@ describe('guardPartials (physical bounds)', () => {
 
   it('reports a barely negative rate as 0 dB/s with no T60, and an overshooting onset amplitude at its strongest frame', () => {
     const { kept, warnings } = guardPartials([
-      partial({ frequencyHz: 300, decayDbPerS: -0.4, t60S: null }),
-      partial({ frequencyHz: 350, amplitudeDb: -2, strongestFrameDb: -14 }),
+      trackReading({ frequencyHz: 300, decayDbPerS: -0.4, t60S: null }),
+      trackReading({ frequencyHz: 350, amplitudeDb: -2, strongestFrameDb: -14 }),
     ], bounds)
     expect(kept[0]).toMatchObject({ decayDbPerS: 0, t60S: null })
     expect(kept[1]!.amplitudeDb).toBe(-14)
@@ -115,12 +107,12 @@ describe('measureModulation', () => {
 
 describe('dropSidebands', () => {
   it('leaves out weaker partials k·f_m from a carrier with sidebands, keeps an unrelated neighbour', () => {
-    const carrier = partial({ frequencyHz: 784, amplitudeDb: -40, modulationHz: 6.75, modulationFrom: 'sidebands' })
+    const carrier = trackReading({ frequencyHz: 784, amplitudeDb: -40, modulationHz: 6.75, modulationFrom: 'sidebands' })
     const kept = dropSidebands([
       carrier,
-      partial({ frequencyHz: 790.75, amplitudeDb: -46 }),
-      partial({ frequencyHz: 770.5, amplitudeDb: -57 }),
-      partial({ frequencyHz: 795, amplitudeDb: -50 }),
+      trackReading({ frequencyHz: 790.75, amplitudeDb: -46 }),
+      trackReading({ frequencyHz: 770.5, amplitudeDb: -57 }),
+      trackReading({ frequencyHz: 795, amplitudeDb: -50 }),
     ])
     expect(kept.map(p => p.frequencyHz)).toEqual([784, 795])
   })

@@ -1,5 +1,3 @@
-import { readFileSync } from 'node:fs'
-import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import {
   AnalysisError,
@@ -13,9 +11,9 @@ import {
 } from '../../../../shared/analysis/index'
 import { synthStrike } from '../../../support/synthStrike'
 import { writeWav } from '../../../support/writeWav'
+import { audioFixture } from '../../../support/audioFixture'
 
-const fixture = (name: string) =>
-  new Uint8Array(readFileSync(fileURLToPath(new URL(`../../../fixtures/audio/${name}`, import.meta.url))))
+const fixture = audioFixture
 
 /** Expect an AnalysisError with this status and code; its message is one sentence. */
 async function expectRefusal(run: () => Promise<unknown> | unknown, status: number, code: string) {

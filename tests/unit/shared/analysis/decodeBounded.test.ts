@@ -1,12 +1,11 @@
-import { readFileSync } from 'node:fs'
-import { fileURLToPath } from 'node:url'
 import decode from 'audio-decode'
 import { describe, expect, it } from 'vitest'
 import { AnalysisError } from '../../../../shared/analysis/AnalysisError'
 import { decodeBounded } from '../../../../shared/analysis/decodeBounded'
 import { flacBomb, opusBomb } from '../../../support/audioBombs'
+import { audioFixture } from '../../../support/audioFixture'
 
-const fixture = (name: string) => new Uint8Array(readFileSync(fileURLToPath(new URL(`../../../fixtures/audio/${name}`, import.meta.url))))
+const fixture = audioFixture
 
 describe('decodeBounded', () => {
   it.each([

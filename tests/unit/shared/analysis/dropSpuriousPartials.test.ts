@@ -2,14 +2,9 @@ import { describe, expect, it } from 'vitest'
 import { dropSpuriousPartials } from '../../../../shared/analysis/dropSpuriousPartials'
 import { ENGINE_SETTINGS } from '../../../../shared/analysis/engineSettings'
 import type { TrackMeasurement } from '../../../../shared/analysis/measureTrack'
+import { trackReading } from '../../../support/partials'
 
-function partial(fields: Partial<TrackMeasurement>): TrackMeasurement {
-  return {
-    frequencyHz: 440, amplitudeDb: -20, decayDbPerS: 10, t60S: 6, r2: 0.99, startS: 0.1, endS: 2, stabilityCents: 0.1,
-    beatHz: null, snrDb: 60, frames: 50, modulationHz: null, modulationDepthDb: null,
-    refineSpanS: 1.9, windowS: 0.5, strongestFrameDb: -22, modulationFrom: null, ...fields,
-  }
-}
+const partial = (fields: Partial<TrackMeasurement>) => trackReading({ windowS: 0.5, ...fields })
 const settings = { strongestDb: -10, ...ENGINE_SETTINGS.spurious }
 
 describe('dropSpuriousPartials', () => {

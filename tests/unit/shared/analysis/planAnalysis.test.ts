@@ -1,15 +1,13 @@
 import { describe, expect, it } from 'vitest'
 import { MAIN_LOBE_BINS } from '../../../../shared/analysis/chooseWindow'
-import { findStrike } from '../../../../shared/analysis/findStrike'
 import { planAnalysis } from '../../../../shared/analysis/planAnalysis'
-import { synthStrike } from '../../../support/synthStrike'
+import { foundStrike } from '../../../support/foundStrike'
 
 const sampleRate = 48000
-const x = synthStrike([
+const { signal: x, strike } = foundStrike([
   { frequencyHz: 200, amplitudeDb: -6, decayDbPerS: 5 },
   { frequencyHz: 800, amplitudeDb: -14, decayDbPerS: 20 },
 ], { sampleRate, durationS: 3, onsetS: 0.05, noiseDb: -80, seed: 6 })
-const strike = findStrike(x, sampleRate, { attackSkipS: 0.005 })
 
 describe('planAnalysis', () => {
   it('resolves the lowest partial from DC in the long window, with shorter windows above it', () => {

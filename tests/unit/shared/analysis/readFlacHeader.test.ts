@@ -1,10 +1,9 @@
-import { readFileSync } from 'node:fs'
-import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { readFlacHeader } from '../../../../shared/analysis/readFlacHeader'
 import { flacBomb } from '../../../support/audioBombs'
+import { audioFixture } from '../../../support/audioFixture'
 
-const fixture = (name: string) => new Uint8Array(readFileSync(fileURLToPath(new URL(`../../../fixtures/audio/${name}`, import.meta.url))))
+const fixture = audioFixture
 
 describe('readFlacHeader', () => {
   it('reads rate, channels and total samples of a file written by another encoder', () => {

@@ -1,9 +1,8 @@
-import { readFileSync } from 'node:fs'
-import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { readMp3Header } from '../../../../shared/analysis/readMp3Header'
+import { audioFixture } from '../../../support/audioFixture'
 
-const fixture = (name: string) => new Uint8Array(readFileSync(fileURLToPath(new URL(`../../../fixtures/audio/${name}`, import.meta.url))))
+const fixture = audioFixture
 
 /** One MPEG-1 layer III frame header: 128 kbit/s (index 9), 44.1 kHz, joint stereo. source: ISO/IEC 11172-3 §2.4.2.3 */
 const FRAME = [0xff, 0xfb, 0x90, 0x40]

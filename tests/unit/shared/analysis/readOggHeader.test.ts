@@ -1,10 +1,9 @@
-import { readFileSync } from 'node:fs'
-import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { readOggHeader } from '../../../../shared/analysis/readOggHeader'
 import { oggPage, opusBomb } from '../../../support/audioBombs'
+import { audioFixture } from '../../../support/audioFixture'
 
-const fixture = (name: string) => new Uint8Array(readFileSync(fileURLToPath(new URL(`../../../fixtures/audio/${name}`, import.meta.url))))
+const fixture = audioFixture
 
 describe('readOggHeader', () => {
   it('reads a Vorbis file written by another encoder: rate, channels, length from the last granule', () => {

@@ -1,0 +1,42 @@
+import { describe, expect, it } from 'vitest'
+import { chooseWindow, MAIN_LOBE_BINS } from '../../../../shared/analysis/chooseWindow'
+
+describe('chooseWindow', () => {
+  it('uses the Blackman–Harris main lobe width', () => {
+    expect(MAIN_LOBE_BINS).toBe(8) // source: Harris (1978), minimum 4-term Blackman–Harris, nulls at ±4 bins
+  })
+
+  it('makes the main lobe narrower than the closest spacing and the lowest partial', () => {
+    for (const [spacingHz, lowestHz] of [[20, 100], [60, 40], [200, 300]] as const) {
+      const choice = chooseWindow({ spacingHz, lowestHz, spanS: 4 }, 48000)
+      // source: Harris (1978), main lobe 8 / T Hz wide for a window of T s
+      expect(MAIN_LOBE_BINS / choice.windowS).toBeLessThanOrEqual(Math.min(spacingHz, lowestHz) + 1e-9)
+    }
+  })
+
+  it('keeps the window within its bounds and the frames within about a hundred', () => {
+    const wide = chooseWindow({ spacingHz: 1000, lowestHz: 1000, spanS: 6 }, 44100)
+    expect(wide.windowS).toBeCloseTo(0.06, 3) // span / 100 over the 30 ms floor
+    const close = chooseWindow({ spacingHz: 2, lowestHz: 100, spanS: 6 }, 44100)
+    expect(close.windowS).toBeCloseTo(0.5, 3)
+    const short = chooseWindow({ spacingHz: 2, lowestHz: 100, spanS: 0.6 }, 44100)
+    expect(short.windowS).toBeCloseTo(0.2, 3) // a third of the span
+    for (const c of [wide, close, short]) expect(c.hop).toBeLessThanOrEqual(c.windowLength)
+    expect(6 / wide.hopS).toBeLessThanOrEqual(101)
+  })
+
+  it('zero-pads to a power of two at least twice the window, hop a quarter window', () => {
+    const c = chooseWindow({ spacingHz: 30, lowestHz: 200, spanS: 30 }, 96000)
+    expect(Math.log2(c.fftSize) % 1).toBe(0)
+    expect(c.fftSize).toBeGreaterThanOrEqual(2 * c.windowLength)
+    expect(c.fftSize).toBeLessThan(4 * c.windowLength)
+    expect(c.zeroPad).toBe(c.fftSize / c.windowLength)
+    expect(c.hop).toBe(Math.round(Math.max(c.windowLength / 4, (30 * 96000) / 100)))
+  })
+
+  it('takes a forced length and refuses a bad rate or span', () => {
+    expect(chooseWindow({ spacingHz: 5, lowestHz: 50, spanS: 3, windowS: 0.1 }, 48000).windowLength).toBe(4800)
+    expect(() => chooseWindow({ spacingHz: 5, lowestHz: 50, spanS: 0 }, 48000)).toThrow(RangeError)
+    expect(() => chooseWindow({ spacingHz: 5, lowestHz: 50, spanS: 1 }, 0)).toThrow(RangeError)
+  })
+})

@@ -1,0 +1,34 @@
+import { describe, expect, it } from 'vitest'
+import { findStrike } from '../../../../shared/analysis/findStrike'
+import { synthStrike } from '../../../support/synthStrike'
+
+const sampleRate = 48000
+
+describe('findStrike', () => {
+  // One partial at −6 dBFS decaying 20 dB/s, struck at 0.2 s, in white noise of −80 dBFS RMS.
+  const x = synthStrike([{ frequencyHz: 523.25, amplitudeDb: -6, decayDbPerS: 20 }], { sampleRate, durationS: 5, onsetS: 0.2, noiseDb: -80, seed: 2 })
+  const strike = findStrike(x, sampleRate, { attackSkipS: 0.005 })
+
+  it('puts the onset at the strike and skips the attack after it', () => {
+    expect(Math.abs(strike.onsetIndex - 0.2 * sampleRate)).toBeLessThanOrEqual(48) // within 1 ms
+    expect(strike.startIndex - strike.onsetIndex).toBe(240) // 5 ms at 48 kHz
+  })
+
+  it('reads the levels of the noise and of the loudest block', () => {
+    // source: white noise's RMS is its level; a sinusoid's RMS is its peak − 3.01 dB (common practice)
+    expect(Math.abs(strike.noiseFloorDb - -80)).toBeLessThan(1.5)
+    expect(Math.abs(strike.peakDb - (-6 - 3.01))).toBeLessThan(0.3)
+  })
+
+  it('ends where the decaying partial sinks to 6 dB over the noise', () => {
+    // RMS −9 dB at the onset, falling 20 dB/s to −74 dB: (74 − 9) / 20 = 3.25 s after it.
+    const endS = strike.endIndex / sampleRate
+    expect(Math.abs(endS - (0.2 + 3.25))).toBeLessThan(0.15)
+  })
+
+  it('finds a strike at the very start, and refuses a recording of under four blocks', () => {
+    const early = synthStrike([{ frequencyHz: 800, amplitudeDb: -10, decayDbPerS: 30 }], { sampleRate, durationS: 1, noiseDb: -90, seed: 3 })
+    expect(findStrike(early, sampleRate, { attackSkipS: 0.005 }).onsetIndex).toBeLessThan(48)
+    expect(() => findStrike(new Float64Array(100), sampleRate, { attackSkipS: 0.005 })).toThrow(RangeError)
+  })
+})

@@ -1,0 +1,41 @@
+import { describe, expect, it } from 'vitest'
+import { guardPartials, type PhysicalBounds } from '../../../../shared/analysis/guardPartials'
+import { trackReading } from '../../../support/partials'
+
+const bounds: PhysicalBounds = { peakDb: -6, peakMarginDb: 1, sampleRate: 44100, minFrequencyHz: 20, maxDecayDbPerS: 6000, maxGrowthDbPerS: 1 }
+
+describe('guardPartials', () => {
+  it('keeps readings inside the band the recording holds, clear of 0 Hz by half the main lobe', () => {
+    const { kept, warnings } = guardPartials([
+      trackReading({ frequencyHz: 22049 }),
+      trackReading({ frequencyHz: 22050 }), // source: Nyquist frequency = fs / 2 = 22 050 Hz at 44.1 kHz
+      trackReading({ frequencyHz: 45, windowS: 0.1 }), // source: Harris (1978), main lobe ±4 bins = 40 Hz for 0.1 s
+      trackReading({ frequencyHz: 35, windowS: 0.1 }),
+    ], bounds)
+    expect(kept.map(p => p.frequencyHz)).toEqual([22049, 45])
+    expect(warnings).toEqual(['2 partial readings left out: frequency outside the band the recording holds (or too close to 0 Hz for its window)'])
+  })
+
+  it('leaves out readings louder than the file, growing, or decaying faster than it can show', () => {
+    const { kept, warnings } = guardPartials([
+      trackReading({ amplitudeDb: -4.9, strongestFrameDb: -4.9 }),
+      trackReading({ decayDbPerS: -1.5 }),
+      trackReading({ decayDbPerS: 7000 }),
+      // 200 dB/s over 1.9 s is 380 dB, more than its 60 dB over the noise (+ 30 dB slack).
+      trackReading({ decayDbPerS: 200 }),
+      trackReading({ amplitudeDb: -5.1 }),
+    ], bounds)
+    expect(kept.map(p => p.amplitudeDb)).toEqual([-5.1])
+    expect(warnings).toHaveLength(3)
+  })
+
+  it('reports a barely growing reading as steady, and an overshooting onset at its strongest frame', () => {
+    const { kept, warnings } = guardPartials([
+      trackReading({ frequencyHz: 300, decayDbPerS: -0.4 }),
+      trackReading({ frequencyHz: 600, amplitudeDb: 2, strongestFrameDb: -12 }),
+    ], bounds)
+    expect(kept[0]).toMatchObject({ decayDbPerS: 0, t60S: null })
+    expect(kept[1]!.amplitudeDb).toBe(-12)
+    expect(warnings.join(' ')).toMatch(/^1 partial did not decay as one exponential/)
+  })
+})

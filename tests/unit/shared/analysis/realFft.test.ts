@@ -1,0 +1,42 @@
+import { describe, expect, it } from 'vitest'
+import { directDft } from '../../../../shared/analysis/directDft'
+import { realFft } from '../../../../shared/analysis/realFft'
+import { seededRandom } from '../../../support/seededRandom'
+
+describe('realFft', () => {
+  it('equals a direct DFT on random input to 1e-9 relative', () => {
+    const random = seededRandom(42)
+    for (const n of [8, 64, 512, 1024]) {
+      const x = new Float64Array(n).map(() => random.normal())
+      const fast = realFft(x)
+      const slow = directDft(x)
+      let maxError = 0
+      let maxValue = 0
+      for (let k = 0; k <= n / 2; k++) {
+        maxError = Math.max(maxError, Math.hypot(fast[2 * k]! - slow[2 * k]!, fast[2 * k + 1]! - slow[2 * k + 1]!))
+        maxValue = Math.max(maxValue, Math.hypot(slow[2 * k]!, slow[2 * k + 1]!))
+      }
+      expect(maxError / maxValue).toBeLessThan(1e-9)
+    }
+  })
+
+  it('keeps the energy (Parseval) and reuses a buffer passed as out', () => {
+    const random = seededRandom(5)
+    const n = 256
+    const x = new Float64Array(n).map(() => random.normal())
+    const out = new Float64Array(2 * n)
+    const spectrum = realFft(x, out)
+    expect(spectrum).toBe(out)
+    let timeEnergy = 0
+    for (const v of x) timeEnergy += v * v
+    // source: Parseval's theorem for the DFT, Σ|x|² = (1/N) Σ_k |X[k]|², with X[N−k] = conj X[k] for real x
+    let binEnergy = spectrum[0]! ** 2 + spectrum[n]! ** 2 + spectrum[n + 1]! ** 2
+    for (let k = 1; k < n / 2; k++) binEnergy += 2 * (spectrum[2 * k]! ** 2 + spectrum[2 * k + 1]! ** 2)
+    expect(binEnergy / n / timeEnergy).toBeCloseTo(1, 10)
+  })
+
+  it('refuses lengths that are not powers of two', () => {
+    expect(() => realFft(new Float64Array(100))).toThrow(RangeError)
+    expect(() => realFft(new Float64Array(1))).toThrow(RangeError)
+  })
+})
