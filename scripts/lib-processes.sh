@@ -9,7 +9,7 @@
 build_if_stale() {
   local out="${1:-$ROOT/.output}"
   local stamp="$out/nitro.json" log_file="$DATA/build-$(basename "$out").log"
-  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app server shared public modules nuxt.config.ts tailwind.config.ts package-lock.json scripts/build-analysis-worker.ts -newer "$stamp" -type f -print -quit 2>/dev/null)" ]; then
+  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app server shared public modules nuxt.config.ts tailwind.config.ts package-lock.json scripts/build-analysis-worker.ts scripts/esbuild-bundle.mjs -newer "$stamp" -type f -print -quit 2>/dev/null)" ]; then
     return 0
   fi
   (
