@@ -99,6 +99,21 @@ mail_catcher_start() {
   die "The mail catcher did not start on 127.0.0.1:$port."
 }
 
+# own_helper NAME PID_FILE PATTERN PORT COMMAND...: takes over a helper (mail catcher, S3 fake)
+# that an earlier start left running, or runs COMMAND to start it when PORT is free. Answers 0
+# when this start now owns the helper, 1 when something else answers on PORT.
+own_helper() {
+  local name="$1" pid_file="$2" pattern="$3" port="$4"
+  shift 4
+  if recorded_pid "$pid_file" "$pattern" >/dev/null; then
+    log "Taking over the $name left running by an earlier start."
+  elif ! port_busy "$port"; then
+    "$@"
+  else
+    return 1
+  fi
+}
+
 mail_catcher_stop() { stop_recorded "$1/catcher.pid" scripts/mail-catcher.ts; }
 
 # s3_fake_start PORT DIR BUCKETS PID_FILE: the local S3 fake (scripts/s3-fake.ts, s3rver) on
