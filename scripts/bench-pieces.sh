@@ -8,9 +8,7 @@ APP_PORT="${TONEWRIGHT_BENCH_PORT:-3500}"
 require_node
 ensure_postgres
 ensure_node_modules
-PG_DIR=$(pg_datadir bench-pg)
-DB_PASSWORD=$(secret_file bench-db-password)
-APP_DB_PASSWORD=$(secret_file bench-db-app-password)
+cluster_secrets bench-
 # Its own build folder: a running `npm start` keeps serving .output.
 OUT_DIR="$DATA/bench-output"
 pg_init "$PG_DIR" "$DB_PORT" "$DB_PASSWORD" "fsync = off" "synchronous_commit = off"

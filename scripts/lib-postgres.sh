@@ -83,6 +83,14 @@ secret_file() {
   cat "$file"
 }
 
+# cluster_secrets PREFIX ("" for npm start, test-, bench-): sets PG_DIR (the cluster's folder),
+# DB_PASSWORD (its superuser's) and APP_DB_PASSWORD (the app role's).
+cluster_secrets() {
+  PG_DIR=$(pg_datadir "${1}pg")
+  DB_PASSWORD=$(secret_file "${1}db-password")
+  APP_DB_PASSWORD=$(secret_file "${1}db-app-password")
+}
+
 # psql_as PORT PASSWORD DB SQL
 psql_as() {
   PGOPTIONS="-c client_min_messages=warning" PGPASSWORD="$2" "$PG_BIN/psql" -X -q -v ON_ERROR_STOP=1 -h 127.0.0.1 -p "$1" -U tonewright -d "$3" -tAc "$4"

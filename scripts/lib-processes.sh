@@ -9,7 +9,7 @@
 build_if_stale() {
   local out="${1:-$ROOT/.output}"
   local stamp="$out/nitro.json" log_file="$DATA/build-$(basename "$out").log"
-  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app server shared public modules nuxt.config.ts tailwind.config.ts package-lock.json scripts/build-analysis-worker.ts -newer "$stamp" -type f -print -quit 2>/dev/null)" ]; then
+  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app server shared public modules nuxt.config.ts tailwind.config.ts package-lock.json scripts/build-analysis-worker.ts scripts/esbuild-bundle.mjs -newer "$stamp" -type f -print -quit 2>/dev/null)" ]; then
     return 0
   fi
   (
@@ -97,6 +97,21 @@ mail_catcher_start() {
   for i in $(seq 1 80); do port_busy "$port" && return 0; sleep 0.25; done
   tail -n 20 "$dir/catcher.log" >&2 || true
   die "The mail catcher did not start on 127.0.0.1:$port."
+}
+
+# own_helper NAME PID_FILE PATTERN PORT COMMAND...: takes over a helper (mail catcher, S3 fake)
+# that an earlier start left running, or runs COMMAND to start it when PORT is free. Answers 0
+# when this start now owns the helper, 1 when something else answers on PORT.
+own_helper() {
+  local name="$1" pid_file="$2" pattern="$3" port="$4"
+  shift 4
+  if recorded_pid "$pid_file" "$pattern" >/dev/null; then
+    log "Taking over the $name left running by an earlier start."
+  elif ! port_busy "$port"; then
+    "$@"
+  else
+    return 1
+  fi
 }
 
 mail_catcher_stop() { stop_recorded "$1/catcher.pid" scripts/mail-catcher.ts; }

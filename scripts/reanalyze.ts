@@ -4,12 +4,12 @@
 // result; pieces already approved, certified or shipped keep their signed results and
 // stages, and their new results go to the history only. Prints a table of changes.
 import { eq } from 'drizzle-orm'
-import { createDatabase } from '../server/database/client'
 import { sets, workshops } from '../server/database/schema'
 import { requestReanalysis } from '../server/utils/reanalysis'
 import { executeReanalysis } from '../server/utils/reanalysis-run'
 import { storageConfigFromEnv, storageFromConfig } from '../server/utils/blob-storage'
 import { changeSummary, changeTable } from '../shared/reanalysis/changeTable'
+import { withScriptDatabase } from './with-database'
 
 const USAGE = 'Usage: npm run reanalyze -- --set SERIAL [--workshop WORKSHOP_ID] [--reason TEXT] [--json]'
 
@@ -42,13 +42,8 @@ catch (error) {
   console.error((error as Error).message)
   process.exit(2)
 }
-const url = process.env.NUXT_DATABASE_URL
-if (!url) {
-  console.error('Set NUXT_DATABASE_URL to the PostgreSQL database whose strikes should be re-measured.')
-  process.exit(2)
-}
-const { db, client } = createDatabase(url, { max: 2 })
-try {
+// Service refusals carry a plain sentence; say it without a stack trace.
+await withScriptDatabase({ purpose: 'whose strikes should be re-measured', missingCode: 2, failed: message => message }, async (db) => {
   const found = await db.select({ id: sets.id, name: sets.name, workshopId: sets.workshopId, workshopName: workshops.name })
     .from(sets).innerJoin(workshops, eq(workshops.id, sets.workshopId)).where(eq(sets.serial, args.set))
   const matching = args.workshop ? found.filter(s => s.workshopId === args.workshop) : found
@@ -71,12 +66,4 @@ try {
     console.log(changeTable(result))
     console.log(changeSummary(result))
   }
-}
-catch (error) {
-  // Service refusals carry a plain sentence; say it without a stack trace.
-  console.error((error as Error).message)
-  process.exitCode = 1
-}
-finally {
-  await client.end()
-}
+})

@@ -8,6 +8,7 @@
 import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath, pathToFileURL } from 'node:url'
+import { nodeBundleOptions } from './esbuild-bundle.mjs'
 
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 /** The scripts that may be run this way, by name. */
@@ -37,18 +38,6 @@ function isFresh(dir) {
   return Object.entries(recorded).every(([path, print]) => fingerprint(path) === print)
 }
 
-/** audio-decode names decoders for formats we never install; leave those out of the bundle. */
-const optionalDecoders = {
-  name: 'optional-decoders',
-  setup(b) {
-    b.onResolve({ filter: /^@audio\/decode-/ }, async (args) => {
-      if (args.pluginData === 'retry') return undefined
-      const found = await b.resolve(args.path, { kind: args.kind, resolveDir: args.resolveDir, pluginData: 'retry' })
-      return found.errors.length > 0 ? { path: args.path, external: true } : found
-    })
-  },
-}
-
 /** Bundles the script into a fresh folder, then swaps it in, so a concurrent call never runs half a bundle. */
 async function build(name, dir) {
   const { build: esbuild } = await import('esbuild')
@@ -58,23 +47,12 @@ async function build(name, dir) {
     absWorkingDir: ROOT,
     entryPoints: { [name]: SCRIPTS[name] },
     outdir: temporary,
-    bundle: true,
-    splitting: true,
-    format: 'esm',
-    platform: 'node',
-    target: 'node20',
-    outExtension: { '.js': '.mjs' },
-    chunkNames: 'chunks/[name]-[hash]',
-    // Some decoders are CommonJS that call require(); give the ESM bundle one.
-    banner: { js: 'import { createRequire as __twCreateRequire } from "node:module"; const require = __twCreateRequire(import.meta.url);' },
-    plugins: [optionalDecoders],
+    ...nodeBundleOptions,
     metafile: true,
-    logLevel: 'warning',
-    legalComments: 'none',
   })
   // Our own sources one by one; the packages through the lock file that pins them.
   const inputs = Object.keys(result.metafile.inputs).filter(path => !path.startsWith('node_modules/'))
-  const recorded = Object.fromEntries([...inputs, 'package-lock.json', 'scripts/run-built.mjs'].map(path => [path, fingerprint(path)]))
+  const recorded = Object.fromEntries([...inputs, 'package-lock.json', 'scripts/run-built.mjs', 'scripts/esbuild-bundle.mjs'].map(path => [path, fingerprint(path)]))
   writeFileSync(join(temporary, INPUTS_FILE), JSON.stringify(recorded))
   const old = `${dir}.${process.pid}.old`
   try {

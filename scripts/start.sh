@@ -32,9 +32,7 @@ echo $$ >"$RUN_DIR/start.pid"
 ensure_postgres
 ensure_node_modules
 
-PG_DIR=$(pg_datadir pg)
-DB_PASSWORD=$(secret_file db-password)
-APP_DB_PASSWORD=$(secret_file db-app-password)
+cluster_secrets ""
 AUTH_SECRET=$(secret_file auth-secret)
 pg_init "$PG_DIR" "$DB_PORT" "$DB_PASSWORD"
 
@@ -76,30 +74,24 @@ export NUXT_STORAGE_DIR="$DATA/storage"
 export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT="$SMTP_PORT"
 export NUXT_MAIL_CATCHER_DIR="$MAIL_DIR" NUXT_SITE_URL="${TONEWRIGHT_SITE_URL:-http://$APP_HOST:$APP_PORT}"
 
-if recorded_pid "$MAIL_DIR/catcher.pid" scripts/mail-catcher.ts >/dev/null; then
-  log "Taking over the mail catcher left running by an earlier start."
-  STARTED_MAIL=1
-elif ! port_busy "$SMTP_PORT"; then
+start_mail_catcher() {
   log "Starting the local mail catcher on 127.0.0.1:$SMTP_PORT (messages in .data/mail)…"
   mail_catcher_start "$SMTP_PORT" "$MAIL_DIR"
-  STARTED_MAIL=1
-fi
+}
+if own_helper "mail catcher" "$MAIL_DIR/catcher.pid" scripts/mail-catcher.ts "$SMTP_PORT" start_mail_catcher; then STARTED_MAIL=1; fi
 
 # NUXT_STORAGE_DRIVER=s3 without an endpoint of its own: the local S3 fake (objects in .data/s3).
 if [ "${NUXT_STORAGE_DRIVER:-fs}" = s3 ] && [ -z "${NUXT_STORAGE_ENDPOINT:-}" ]; then
   export NUXT_STORAGE_ENDPOINT="http://127.0.0.1:$S3_PORT" NUXT_STORAGE_FORCE_PATH_STYLE=true
   export NUXT_STORAGE_BUCKET="${NUXT_STORAGE_BUCKET:-tonewright}"
   export NUXT_STORAGE_ACCESS_KEY_ID="$S3_FAKE_KEY" NUXT_STORAGE_SECRET_ACCESS_KEY="$S3_FAKE_KEY"
-  if recorded_pid "$RUN_DIR/s3-fake.pid" scripts/s3-fake.ts >/dev/null; then
-    log "Taking over the S3 fake left running by an earlier start."
-    STARTED_S3=1
-  elif ! port_busy "$S3_PORT"; then
+  start_s3_fake() {
     log "Starting the local S3 fake on 127.0.0.1:$S3_PORT (objects in .data/s3)…"
     s3_fake_start "$S3_PORT" "$DATA/s3" "$NUXT_STORAGE_BUCKET" "$RUN_DIR/s3-fake.pid"
-    STARTED_S3=1
-  else
-    die "Something else answers on 127.0.0.1:$S3_PORT; set TONEWRIGHT_S3_PORT to a free port for the S3 fake."
-  fi
+  }
+  own_helper "S3 fake" "$RUN_DIR/s3-fake.pid" scripts/s3-fake.ts "$S3_PORT" start_s3_fake \
+    || die "Something else answers on 127.0.0.1:$S3_PORT; set TONEWRIGHT_S3_PORT to a free port for the S3 fake."
+  STARTED_S3=1
 fi
 
 log "Applying database migrations…"

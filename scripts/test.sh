@@ -25,9 +25,7 @@ ensure_poppler
 ensure_fixture_packages
 ensure_node_modules
 
-PG_DIR=$(pg_datadir test-pg)
-DB_PASSWORD=$(secret_file test-db-password)
-APP_DB_PASSWORD=$(secret_file test-db-app-password)
+cluster_secrets test-
 # The test server is built into its own folder: a running `npm start` keeps its .output.
 OUT_DIR="$DATA/test-output"
 # Durability does not matter for a throw-away database; speed does.

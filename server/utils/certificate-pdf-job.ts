@@ -5,6 +5,7 @@ import type { CertificateStatus } from '../../shared/records/lists'
 import type { Database } from '../database/client'
 import { parseCertificateContent } from '../../shared/schemas/certificateContent'
 import { renderPdfOffThread } from './certificate-pdf-pool'
+import { ensureQueue } from './job-queue'
 import type { BlobStorage } from './storage'
 
 export const CERTIFICATE_PDF_QUEUE = 'certificate-pdf'
@@ -51,15 +52,9 @@ async function unscheduledPdfs(db: Database) {
 /** The PDF job beside the mail worker, on the same pg-boss instance. */
 export function certificatePdfJob(db: Database, storage: BlobStorage, onRendered: () => void) {
   return {
+    queue: CERTIFICATE_PDF_QUEUE,
     async start(boss: PgBoss) {
-      if (!(await boss.getQueue(CERTIFICATE_PDF_QUEUE))) {
-        try {
-          await boss.createQueue(CERTIFICATE_PDF_QUEUE, { name: CERTIFICATE_PDF_QUEUE, retryLimit: 5, retryDelay: 5, retryBackoff: true, expireInSeconds: 300 })
-        }
-        catch (error) {
-          if (!(await boss.getQueue(CERTIFICATE_PDF_QUEUE))) throw error
-        }
-      }
+      await ensureQueue(boss, { name: CERTIFICATE_PDF_QUEUE, retryLimit: 5, retryDelay: 5, retryBackoff: true, expireInSeconds: 300 })
       await boss.work<{ certificateId: string }>(CERTIFICATE_PDF_QUEUE, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
         if (!job) return
         const outcome = await renderPendingPdf(db, storage, job.data.certificateId)

@@ -1,20 +1,20 @@
 import { randomUUID } from 'node:crypto'
 import { hostname } from 'node:os'
 import { and, eq } from 'drizzle-orm'
-import PgBoss from 'pg-boss'
+import type PgBoss from 'pg-boss'
 import { mailMessages } from '../database/schema'
 import type { Database } from '../database/client'
 import type { BackgroundJob } from './certificate-pdf-job'
 import { sendClaimedJob } from './job-claim'
+import { JobQueue, ensureQueue, workEach, type JobQueueOptions } from './job-queue'
 import { deliverMessage, needsJob, unscheduledMail, type DeliveryLease, type SmtpConfig } from './mail'
 import type { BlobStorage } from './storage'
 
 export const MAIL_QUEUE = 'mail-send'
 
-export interface MailQueueOptions {
+export interface MailQueueOptions extends JobQueueOptions {
   db: Database
   storage: BlobStorage
-  databaseUrl: string
   smtp: SmtpConfig
   retryLimit: number
   retryDelayS: number
@@ -22,9 +22,6 @@ export interface MailQueueOptions {
   leaseS: number
   /** Other jobs run on the same pg-boss instance (the certificate PDF job). */
   jobs?: BackgroundJob[]
-  /** How often queued messages without a job are picked up, in ms. */
-  sweepMs?: number
-  log?: (line: string) => void
 }
 
 /**
@@ -33,100 +30,47 @@ export interface MailQueueOptions {
  * delivers them with retries. If the queue cannot start, rows wait in the outbox
  * and are picked up once it does.
  */
-export class MailQueue {
-  private boss: PgBoss | null = null
-  private sweepTimer: NodeJS.Timeout | null = null
-  private restartTimer: NodeJS.Timeout | null = null
-  private sweeping = false
-  private stopped = false
+export class MailQueue extends JobQueue {
   private readonly lease: DeliveryLease
+  protected readonly queues: string[]
   constructor(private readonly options: MailQueueOptions) {
+    super(options, { label: 'mail queue', rows: 'queued messages', waiting: 'e-mails stay queued in the outbox until it does' }, 2000)
     this.lease = { workerId: `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`, leaseS: options.leaseS }
+    this.queues = [MAIL_QUEUE, ...(options.jobs ?? []).map(job => job.queue)]
   }
 
-  get running() {
-    return this.boss !== null
-  }
-
-  private log(line: string) {
-    (this.options.log ?? console.log)(line)
-  }
-
-  async start(): Promise<boolean> {
+  protected async setUp(boss: PgBoss) {
     const o = this.options
-    const boss = new PgBoss({ connectionString: o.databaseUrl, max: 4, application_name: 'tonewright-mail' })
-    boss.on('error', error => this.log(`Tonewright mail queue: ${error.message}`))
-    try {
-      await boss.start()
-      if (!(await boss.getQueue(MAIL_QUEUE))) {
-        try {
-          await boss.createQueue(MAIL_QUEUE, { name: MAIL_QUEUE, retryLimit: o.retryLimit, retryDelay: o.retryDelayS, retryBackoff: true })
-        }
-        catch (error) {
-          // Another instance may have created it a moment ago.
-          if (!(await boss.getQueue(MAIL_QUEUE))) throw error
-        }
+    await ensureQueue(boss, { name: MAIL_QUEUE, retryLimit: o.retryLimit, retryDelay: o.retryDelayS, retryBackoff: true })
+    await workEach<{ messageId: string }>(boss, MAIL_QUEUE, async (job) => {
+      const final = job.retryCount >= job.retryLimit
+      const outcome = await deliverMessage(o.db, o.storage, o.smtp, job.data.messageId, final, this.lease)
+      if (outcome instanceof Error) {
+        this.log(`Tonewright mail: message ${job.data.messageId} not delivered (attempt ${job.retryCount + 1} of ${job.retryLimit + 1}): ${outcome.message}`)
+        throw outcome
       }
-      await boss.work<{ messageId: string }>(MAIL_QUEUE, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
-        if (!job) return
-        const final = job.retryCount >= job.retryLimit
-        const outcome = await deliverMessage(o.db, o.storage, o.smtp, job.data.messageId, final, this.lease)
-        if (outcome instanceof Error) {
-          this.log(`Tonewright mail: message ${job.data.messageId} not delivered (attempt ${job.retryCount + 1} of ${job.retryLimit + 1}): ${outcome.message}`)
-          throw outcome
-        }
-      })
-      for (const job of o.jobs ?? []) await job.start(boss)
-    }
-    catch (error) {
-      this.log(`Tonewright: the mail queue could not start (${(error as Error).message}). The app keeps serving; e-mails stay queued in the outbox and go out once the queue starts (next try in 30 s).`)
-      await boss.stop({ graceful: false, wait: false }).catch(() => {})
-      if (!this.stopped) this.restartTimer = setTimeout(() => void this.start(), 30_000)
-      return false
-    }
-    this.boss = boss
-    this.log('Tonewright: mail queue started.')
-    this.sweepTimer = setInterval(() => void this.sweep(), o.sweepMs ?? 2000)
-    void this.sweep()
-    return true
+    })
+    for (const job of o.jobs ?? []) await job.start(boss)
   }
 
   /**
    * Turns outbox rows that need a job into jobs (see needsJob: also those whose
-   * worker died mid-send), then runs the other jobs' sweeps. The claim (job_id set
+   * worker died mid-send), after the other jobs' sweeps. The claim (job_id set
    * while the row still needs a job) keeps two instances from doubling a job.
    */
-  async sweep() {
-    if (!this.boss || this.sweeping) return
-    this.sweeping = true
-    try {
-      const o = this.options
-      for (const job of o.jobs ?? []) {
-        await job.sweep(this.boss).catch(error => this.log(`Tonewright background jobs: could not schedule (${(error as Error).message}); will try again.`))
-      }
-      for (const { id } of await unscheduledMail(o.db)) {
-        await sendClaimedJob(
-          async () => (await o.db.update(mailMessages).set({ jobId: 'claimed', claimedBy: null, claimedUntil: null })
-            .where(and(eq(mailMessages.id, id), needsJob())).returning({ id: mailMessages.id })).length > 0,
-          () => this.boss!.send(MAIL_QUEUE, { messageId: id }, { retryLimit: o.retryLimit, retryDelay: o.retryDelayS, retryBackoff: true }),
-          jobId => o.db.update(mailMessages).set({ jobId }).where(eq(mailMessages.id, id)),
-        )
-      }
+  protected async schedule(boss: PgBoss) {
+    const o = this.options
+    for (const job of o.jobs ?? []) {
+      await job.sweep(boss).catch(error => this.log(`Tonewright background jobs: could not schedule (${(error as Error).message}); will try again.`))
     }
-    catch (error) {
-      this.log(`Tonewright mail queue: could not schedule queued messages (${(error as Error).message}); will try again.`)
+    for (const { id } of await unscheduledMail(o.db)) {
+      await sendClaimedJob(
+        async () => (await o.db.update(mailMessages).set({ jobId: 'claimed', claimedBy: null, claimedUntil: null })
+          .where(and(eq(mailMessages.id, id), needsJob())).returning({ id: mailMessages.id })).length > 0,
+        () => boss.send(MAIL_QUEUE, { messageId: id }, { retryLimit: o.retryLimit, retryDelay: o.retryDelayS, retryBackoff: true }),
+        jobId => o.db.update(mailMessages).set({ jobId }).where(eq(mailMessages.id, id)),
+      )
     }
-    finally {
-      this.sweeping = false
-    }
-  }
-
-  async stop() {
-    this.stopped = true
-    if (this.sweepTimer) clearInterval(this.sweepTimer)
-    if (this.restartTimer) clearTimeout(this.restartTimer)
-    if (this.boss) await this.boss.stop({ graceful: true, timeout: 5000 }).catch(() => {})
-    this.boss = null
   }
 }
 

@@ -3,15 +3,16 @@
  * the client to hide what a role cannot use (README.md, Roles and stages: owner,
  * supervisor, benchmaker, office).
  */
-export const ROLES = ['owner', 'supervisor', 'benchmaker', 'office'] as const
-export type Role = (typeof ROLES)[number]
+import { keysOf } from '../records/lists'
 
-export const ROLE_LABELS: Record<Role, string> = {
+export const ROLE_LABELS = {
   owner: 'Owner',
   supervisor: 'Supervisor',
   benchmaker: 'Benchmaker',
   office: 'Office',
 }
+export const ROLES = keysOf(ROLE_LABELS)
+export type Role = (typeof ROLES)[number]
 
 export const PERMISSIONS = {
   'workshop:read': ['owner', 'supervisor', 'benchmaker', 'office'],

@@ -10,6 +10,14 @@ export function isOneOf<T extends string>(list: readonly T[], value: unknown): v
   return typeof value === 'string' && (list as readonly string[]).includes(value)
 }
 
+/**
+ * The values of a label table, in its order: for a list shown with labels, each value is
+ * written once, as a key beside its label.
+ */
+export function keysOf<K extends string>(labels: Record<K, string>): readonly [K, ...K[]] {
+  return Object.keys(labels) as [K, ...K[]]
+}
+
 /** A piece's verdict over its required partials. */
 export const PIECE_VERDICTS = ['within', 'outside', 'incomplete'] as const
 export type PieceVerdict = (typeof PIECE_VERDICTS)[number]

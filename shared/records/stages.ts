@@ -1,10 +1,8 @@
 import type { Role } from '../auth/roles'
+import { keysOf } from './lists'
 
 /** Piece stages in workflow order, then the side exits (README.md, Roles and stages). */
-export const PIECE_STAGES = ['blank', 'roughed', 'tuning', 'review', 'approved', 'certified', 'shipped', 'rework', 'scrapped'] as const
-export type PieceStage = (typeof PIECE_STAGES)[number]
-
-export const STAGE_LABELS: Record<PieceStage, string> = {
+export const STAGE_LABELS = {
   blank: 'Blank',
   roughed: 'Roughed',
   tuning: 'Tuning',
@@ -15,6 +13,8 @@ export const STAGE_LABELS: Record<PieceStage, string> = {
   rework: 'Rework',
   scrapped: 'Scrapped',
 }
+export const PIECE_STAGES = keysOf(STAGE_LABELS)
+export type PieceStage = (typeof PIECE_STAGES)[number]
 
 /** Stages a benchmaker moves their own pieces between. */
 export const BENCH_STAGES: readonly PieceStage[] = ['blank', 'roughed', 'tuning', 'review']

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { VerdictSchema } from './analysis'
+import { PartialMatchSchema, VerdictSchema } from './analysis'
 
 /*
  * The frozen content of a certificate, the one source of its types
@@ -8,17 +8,9 @@ import { VerdictSchema } from './analysis'
  * existed (the uncertainty paragraph) still renders and verifies.
  */
 
-/** One tuned partial of one piece as frozen on a certificate. */
-export const CertificatePartialSchema = z.object({
-  label: z.string(),
-  targetHz: z.number(),
-  measuredHz: z.number().nullable(),
-  /** Signed deviation used for the verdict (normalised to the reference temperature where a coefficient is set). */
-  cents: z.number().nullable(),
-  toleranceCents: z.number(),
-  required: z.boolean(),
-  within: z.boolean(),
-  missing: z.boolean(),
+/** One tuned partial of one piece as frozen on a certificate: the fields of its match that decide and show the verdict. */
+export const CertificatePartialSchema = PartialMatchSchema.pick({
+  label: true, targetHz: true, measuredHz: true, cents: true, toleranceCents: true, required: true, within: true, missing: true,
 })
 
 export const CertificatePieceSchema = z.object({

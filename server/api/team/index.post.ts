@@ -8,8 +8,5 @@ import { parseWith } from '#shared/validation'
 export default defineEventHandler(async (event) => {
   const member = await requireMember(event, 'team:manage')
   const body = await readValidatedBody(event, parseWith(AddMemberSchema))
-  const reply = await addMember(useDatabase(), member, body, siteUrlOf(event), useRuntimeConfig().authSecret)
-  kickMailQueue()
-  setResponseStatus(event, 201)
-  return reply
+  return answerQueued(event, 201, await addMember(useDatabase(), member, body, siteUrlOf(event), useRuntimeConfig().authSecret), kickMailQueue)
 })

@@ -1,34 +1,34 @@
 /** Accounts: workshops (the tenants), people, memberships, sessions, sign-in attempts and the audit trail. */
 import { sql } from 'drizzle-orm'
-import { boolean, doublePrecision, index, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { boolean, doublePrecision, index, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { createdAt, instant, personRef, recordId, workshopRecord } from './columns'
 import { ROLES } from '../../../shared/auth/roles'
 import { TEMPERATURE_UNITS } from '../../../shared/records/lists'
 
 /** A workshop is a tenant: every other row hangs off one. */
 export const workshops = pgTable('workshops', {
-  id: uuid('id').primaryKey().defaultRandom(),
+  id: recordId(),
   name: text('name').notNull(),
   address: text('address').notNull().default(''),
   referenceHz: doublePrecision('reference_hz').notNull().default(440),
   temperatureUnit: text('temperature_unit', { enum: TEMPERATURE_UNITS }).notNull().default('C'),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAt(),
 })
 
 export const users = pgTable('users', {
-  id: uuid('id').primaryKey().defaultRandom(),
+  id: recordId(),
   email: text('email').notNull(),
   name: text('name').notNull(),
   passwordHash: text('password_hash').notNull(),
   mustChangePassword: boolean('must_change_password').notNull().default(false),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAt(),
 }, t => [uniqueIndex('users_email_key').on(sql`lower(${t.email})`)])
 
 export const memberships = pgTable('memberships', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
   role: text('role', { enum: ROLES }).notNull(),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAt(),
 }, t => [
   uniqueIndex('memberships_workshop_user_key').on(t.workshopId, t.userId),
   index('memberships_user_idx').on(t.userId),
@@ -36,27 +36,26 @@ export const memberships = pgTable('memberships', {
 
 /** Opaque bearer tokens, stored only as a keyed hash; a row per signed-in device. */
 export const sessions = pgTable('sessions', {
-  id: uuid('id').primaryKey().defaultRandom(),
+  id: recordId(),
   tokenHash: text('token_hash').notNull(),
   userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
   workshopId: uuid('workshop_id').references(() => workshops.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+  createdAt: createdAt(),
+  expiresAt: instant('expires_at').notNull(),
 }, t => [uniqueIndex('sessions_token_hash_key').on(t.tokenHash), index('sessions_user_idx').on(t.userId)])
 
 /** Failed sign-ins, counted per address and per account for rate limiting. */
 export const loginAttempts = pgTable('login_attempts', {
-  id: uuid('id').primaryKey().defaultRandom(),
+  id: recordId(),
   ip: text('ip').notNull(),
   email: text('email').notNull(),
-  at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  at: instant('at').notNull().defaultNow(),
 }, t => [index('login_attempts_ip_idx').on(t.ip, t.at), index('login_attempts_email_idx').on(t.email, t.at)])
 
 /** Who did what, when, from which state to which, and why. Append-only. */
 export const auditEvents = pgTable('audit_events', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
-  actorId: uuid('actor_id').references(() => users.id, { onDelete: 'set null' }),
+  ...workshopRecord(),
+  actorId: personRef('actor_id'),
   action: text('action').notNull(),
   subjectType: text('subject_type').notNull(),
   subjectId: uuid('subject_id'),
@@ -64,7 +63,7 @@ export const auditEvents = pgTable('audit_events', {
   toState: text('to_state'),
   reason: text('reason'),
   details: jsonb('details').$type<Record<string, unknown>>(),
-  at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  at: instant('at').notNull().defaultNow(),
 }, t => [index('audit_events_workshop_idx').on(t.workshopId, t.at), index('audit_events_subject_idx').on(t.subjectId)])
 
 export type Workshop = typeof workshops.$inferSelect

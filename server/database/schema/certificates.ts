@@ -1,6 +1,7 @@
 /** Certificates, the mail outbox, invitations and password resets. */
 import { sql } from 'drizzle-orm'
-import { index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { index, integer, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { createdAt, instant, personRef, recordId, workshopRecord } from './columns'
 import { ROLES } from '../../../shared/auth/roles'
 import type { StoredCertificateContent } from '../../../shared/schemas/certificateContent'
 import { CERTIFICATE_PDF_STATUSES, CERTIFICATE_STATUSES, MAIL_KINDS, MAIL_STATUSES } from '../../../shared/records/lists'
@@ -12,8 +13,7 @@ import { sets } from './records'
  * SHA-256 of its canonical JSON, so a later change to either is detectable.
  */
 export const certificates = pgTable('certificates', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   setId: uuid('set_id').notNull().references(() => sets.id, { onDelete: 'cascade' }),
   number: text('number').notNull(),
   code: text('code').notNull(),
@@ -25,17 +25,17 @@ export const certificates = pgTable('certificates', {
   // the status changes (with a REVOKED or SUPERSEDED mark): `pending` until it is stored.
   pdfStatus: text('pdf_status', { enum: CERTIFICATE_PDF_STATUSES }).notNull().default('ready'),
   pdfJobId: text('pdf_job_id'),
-  pdfRequestedAt: timestamp('pdf_requested_at', { withTimezone: true }),
+  pdfRequestedAt: instant('pdf_requested_at'),
   reissueReason: text('reissue_reason'),
-  signerId: uuid('signer_id').references(() => users.id, { onDelete: 'set null' }),
+  signerId: personRef('signer_id'),
   signerName: text('signer_name').notNull(),
-  signedAt: timestamp('signed_at', { withTimezone: true }).notNull(),
+  signedAt: instant('signed_at').notNull(),
   supersedesId: uuid('supersedes_id'),
   supersededById: uuid('superseded_by_id'),
   revokedReason: text('revoked_reason'),
-  revokedAt: timestamp('revoked_at', { withTimezone: true }),
-  revokedBy: uuid('revoked_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  revokedAt: instant('revoked_at'),
+  revokedBy: personRef('revoked_by'),
+  createdAt: createdAt(),
 }, t => [
   uniqueIndex('certificates_code_key').on(t.code),
   uniqueIndex('certificates_workshop_number_key').on(t.workshopId, t.number),
@@ -51,7 +51,7 @@ export const certificates = pgTable('certificates', {
  * resets belong to no workshop, so `workshop_id` may be null for them alone.
  */
 export const mailMessages = pgTable('mail_messages', {
-  id: uuid('id').primaryKey().defaultRandom(),
+  id: recordId(),
   workshopId: uuid('workshop_id').references(() => workshops.id, { onDelete: 'cascade' }),
   kind: text('kind', { enum: MAIL_KINDS }).notNull(),
   to: text('to').notNull(),
@@ -65,13 +65,13 @@ export const mailMessages = pgTable('mail_messages', {
   // The delivery lease: a worker claims a message until `claimed_until`; a claim of a
   // worker that died expires and the message is delivered by another one.
   claimedBy: text('claimed_by'),
-  claimedUntil: timestamp('claimed_until', { withTimezone: true }),
+  claimedUntil: instant('claimed_until'),
   certificateId: uuid('certificate_id').references(() => certificates.id, { onDelete: 'set null' }),
   setId: uuid('set_id').references(() => sets.id, { onDelete: 'set null' }),
-  requestedBy: uuid('requested_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
-  sentAt: timestamp('sent_at', { withTimezone: true }),
+  requestedBy: personRef('requested_by'),
+  createdAt: createdAt(),
+  updatedAt: instant('updated_at').notNull().defaultNow(),
+  sentAt: instant('sent_at'),
 }, t => [
   index('mail_messages_workshop_idx').on(t.workshopId, t.createdAt),
   index('mail_messages_set_idx').on(t.setId, t.createdAt),
@@ -80,19 +80,18 @@ export const mailMessages = pgTable('mail_messages', {
 
 /** An invitation to join a workshop; the token is stored only as a keyed hash. */
 export const invitations = pgTable('invitations', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   email: text('email').notNull(),
   name: text('name').notNull().default(''),
   role: text('role', { enum: ROLES }).notNull(),
   tokenHash: text('token_hash').notNull(),
-  invitedBy: uuid('invited_by').references(() => users.id, { onDelete: 'set null' }),
-  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
-  usedAt: timestamp('used_at', { withTimezone: true }),
+  invitedBy: personRef('invited_by'),
+  expiresAt: instant('expires_at').notNull(),
+  usedAt: instant('used_at'),
   // Revoked from the Team screen, replaced by a newer invitation, or because the inviter lost the right to invite.
-  revokedAt: timestamp('revoked_at', { withTimezone: true }),
-  revokedBy: uuid('revoked_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  revokedAt: instant('revoked_at'),
+  revokedBy: personRef('revoked_by'),
+  createdAt: createdAt(),
 }, t => [
   uniqueIndex('invitations_token_hash_key').on(t.tokenHash),
   index('invitations_workshop_idx').on(t.workshopId),
@@ -101,12 +100,12 @@ export const invitations = pgTable('invitations', {
 
 /** A single-use password reset link; accounts span workshops, so no workshop here. */
 export const passwordResets = pgTable('password_resets', {
-  id: uuid('id').primaryKey().defaultRandom(),
+  id: recordId(),
   userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
   tokenHash: text('token_hash').notNull(),
-  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
-  usedAt: timestamp('used_at', { withTimezone: true }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  expiresAt: instant('expires_at').notNull(),
+  usedAt: instant('used_at'),
+  createdAt: createdAt(),
 }, t => [uniqueIndex('password_resets_token_hash_key').on(t.tokenHash), index('password_resets_user_idx').on(t.userId)])
 
 export type Certificate = typeof certificates.$inferSelect

@@ -1,29 +1,27 @@
 /** Records: ratio templates and their versions, lots, sets and pieces. */
 import { sql } from 'drizzle-orm'
-import { boolean, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { boolean, doublePrecision, index, integer, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { createdAt, instant, personRef, workshopRecord } from './columns'
 import type { TemplatePartialSpec } from '../../../shared/analysis/types'
 import { PIECE_STAGES } from '../../../shared/records/stages'
 import { PIECE_VERDICTS, TEMPLATE_FAMILIES } from '../../../shared/records/lists'
-import { users, workshops } from './accounts'
 
 /** One partial of a ratio template, as stored in a template version (the engine's own shape). */
 export type StoredTemplatePartial = TemplatePartialSpec
 
 /** A ratio template; its content lives in immutable versions. */
 export const ratioTemplates = pgTable('ratio_templates', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   family: text('family', { enum: TEMPLATE_FAMILIES }).notNull(),
   name: text('name').notNull(),
   currentVersion: integer('current_version').notNull().default(1),
   archived: boolean('archived').notNull().default(false),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAt(),
 }, t => [index('ratio_templates_workshop_idx').on(t.workshopId)])
 
 /** An immutable version of a template: pieces and verdicts point at one of these. */
 export const templateVersions = pgTable('template_versions', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   templateId: uuid('template_id').notNull().references(() => ratioTemplates.id, { onDelete: 'cascade' }),
   version: integer('version').notNull(),
   name: text('name').notNull(),
@@ -34,14 +32,13 @@ export const templateVersions = pgTable('template_versions', {
   temperatureCoefficientCentsPerC: doublePrecision('temperature_coefficient_cents_per_c').notNull().default(0),
   notes: text('notes').notNull().default(''),
   source: text('source').notNull().default(''),
-  createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdBy: personRef('created_by'),
+  createdAt: createdAt(),
 }, t => [uniqueIndex('template_versions_template_version_key').on(t.templateId, t.version)])
 
 /** A batch of raw material, for traceability. */
 export const lots = pgTable('lots', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   code: text('code').notNull(),
   material: text('material').notNull(),
   species: text('species').notNull().default(''),
@@ -50,7 +47,7 @@ export const lots = pgTable('lots', {
   moisturePct: doublePrecision('moisture_pct'),
   documents: text('documents').notNull().default(''),
   notes: text('notes').notNull().default(''),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAt(),
 }, t => [uniqueIndex('lots_workshop_code_key').on(t.workshopId, t.code)])
 
 /** A register of a set and the template its pieces use. */
@@ -58,8 +55,7 @@ export interface SetRegister { fromNote: string, toNote: string, templateId: str
 
 /** The instrument a buyer ordered. */
 export const sets = pgTable('sets', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   name: text('name').notNull(),
   model: text('model').notNull(),
   serial: text('serial').notNull(),
@@ -75,14 +71,13 @@ export const sets = pgTable('sets', {
   templateId: uuid('template_id').references(() => ratioTemplates.id, { onDelete: 'set null' }),
   registers: jsonb('registers').$type<SetRegister[]>().notNull().default([]),
   dueOn: text('due_on'),
-  shippedAt: timestamp('shipped_at', { withTimezone: true }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  shippedAt: instant('shipped_at'),
+  createdAt: createdAt(),
 }, t => [index('sets_workshop_idx').on(t.workshopId, t.createdAt), uniqueIndex('sets_workshop_serial_key').on(t.workshopId, t.serial)])
 
 /** One bar, plate, note field, bell or drum. Latest-strike columns are kept for fast lists. */
 export const pieces = pgTable('pieces', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   setId: uuid('set_id').notNull().references(() => sets.id, { onDelete: 'cascade' }),
   position: integer('position').notNull(),
   note: text('note').notNull(),
@@ -91,18 +86,18 @@ export const pieces = pgTable('pieces', {
   templateVersionId: uuid('template_version_id').notNull().references(() => templateVersions.id),
   lotId: uuid('lot_id').references(() => lots.id, { onDelete: 'set null' }),
   stage: text('stage', { enum: PIECE_STAGES }).notNull().default('blank'),
-  assigneeId: uuid('assignee_id').references(() => users.id, { onDelete: 'set null' }),
+  assigneeId: personRef('assignee_id'),
   strikeCount: integer('strike_count').notNull().default(0),
   reworkCount: integer('rework_count').notNull().default(0),
   latestStrikeId: uuid('latest_strike_id'),
   latestVerdict: text('latest_verdict', { enum: PIECE_VERDICTS }),
   latestWorstCents: doublePrecision('latest_worst_cents'),
   latestFundamentalHz: doublePrecision('latest_fundamental_hz'),
-  latestStrikeAt: timestamp('latest_strike_at', { withTimezone: true }),
+  latestStrikeAt: instant('latest_strike_at'),
   approvedStrikeId: uuid('approved_strike_id'),
-  approvedAt: timestamp('approved_at', { withTimezone: true }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  approvedAt: instant('approved_at'),
+  createdAt: createdAt(),
+  updatedAt: instant('updated_at').notNull().defaultNow(),
 }, t => [
   uniqueIndex('pieces_set_position_key').on(t.setId, t.position),
   index('pieces_workshop_set_idx').on(t.workshopId, t.setId, t.position),

@@ -1,11 +1,11 @@
 /** Strikes, their result history, re-measurement runs and reviews. */
 import { sql } from 'drizzle-orm'
-import { boolean, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { boolean, doublePrecision, index, integer, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { createdAt, instant, personRef, workshopRecord } from './columns'
 import { PIECE_STAGES } from '../../../shared/records/stages'
 import type { ReanalysisResult } from '../../../shared/reanalysis/types'
 import type { StoredAnalysis } from '../../../shared/schemas/analysis'
 import { ANALYSIS_REASONS, PIECE_VERDICTS, REANALYSIS_SCOPES, REANALYSIS_STATUSES, REVIEW_DECISIONS } from '../../../shared/records/lists'
-import { users, workshops } from './accounts'
 import { pieces, sets, templateVersions } from './records'
 
 /**
@@ -15,10 +15,9 @@ import { pieces, sets, templateVersions } from './records'
  * and every result, old and new, stays in `strike_analyses`.
  */
 export const strikes = pgTable('strikes', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   pieceId: uuid('piece_id').notNull().references(() => pieces.id, { onDelete: 'cascade' }),
-  userId: uuid('user_id').references(() => users.id, { onDelete: 'set null' }),
+  userId: personRef('user_id'),
   stage: text('stage', { enum: PIECE_STAGES }).notNull(),
   temperatureC: doublePrecision('temperature_c'),
   humidityPct: doublePrecision('humidity_pct'),
@@ -32,7 +31,7 @@ export const strikes = pgTable('strikes', {
   fundamentalHz: doublePrecision('fundamental_hz'),
   worstCents: doublePrecision('worst_cents'),
   verdict: text('verdict', { enum: PIECE_VERDICTS }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAt(),
 }, t => [
   index('strikes_piece_idx').on(t.pieceId, t.createdAt),
   index('strikes_workshop_user_idx').on(t.workshopId, t.userId, t.createdAt),
@@ -43,8 +42,7 @@ export const strikes = pgTable('strikes', {
  * engine, run as a background job. At most one run per set is queued or running.
  */
 export const reanalysisRuns = pgTable('reanalysis_runs', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   setId: uuid('set_id').notNull().references(() => sets.id, { onDelete: 'cascade' }),
   pieceId: uuid('piece_id').references(() => pieces.id, { onDelete: 'cascade' }),
   scope: text('scope', { enum: REANALYSIS_SCOPES }).notNull(),
@@ -55,10 +53,10 @@ export const reanalysisRuns = pgTable('reanalysis_runs', {
   jobId: text('job_id'),
   result: jsonb('result').$type<ReanalysisResult>(),
   error: text('error'),
-  requestedBy: uuid('requested_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  startedAt: timestamp('started_at', { withTimezone: true }),
-  finishedAt: timestamp('finished_at', { withTimezone: true }),
+  requestedBy: personRef('requested_by'),
+  createdAt: createdAt(),
+  startedAt: instant('started_at'),
+  finishedAt: instant('finished_at'),
 }, t => [
   uniqueIndex('reanalysis_runs_active_set_key').on(t.setId).where(sql`status in ('queued', 'running')`),
   index('reanalysis_runs_workshop_idx').on(t.workshopId, t.createdAt),
@@ -71,8 +69,7 @@ export const reanalysisRuns = pgTable('reanalysis_runs', {
  * strike's current one (a signed piece's strikes keep the result they were signed on).
  */
 export const strikeAnalyses = pgTable('strike_analyses', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   strikeId: uuid('strike_id').notNull().references(() => strikes.id, { onDelete: 'cascade' }),
   engineVersion: text('engine_version').notNull(),
   analysis: jsonb('analysis').$type<StoredAnalysis>().notNull(),
@@ -82,8 +79,8 @@ export const strikeAnalyses = pgTable('strike_analyses', {
   applied: boolean('applied').notNull().default(true),
   reason: text('reason', { enum: ANALYSIS_REASONS }).notNull(),
   runId: uuid('run_id').references(() => reanalysisRuns.id, { onDelete: 'set null' }),
-  createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdBy: personRef('created_by'),
+  createdAt: createdAt(),
 }, t => [
   index('strike_analyses_strike_idx').on(t.strikeId, t.createdAt),
   index('strike_analyses_workshop_idx').on(t.workshopId, t.createdAt),
@@ -91,15 +88,14 @@ export const strikeAnalyses = pgTable('strike_analyses', {
 
 /** A supervisor's decision on a piece: approve, return for rework, or reopen an approval. */
 export const reviews = pgTable('reviews', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  workshopId: uuid('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
+  ...workshopRecord(),
   pieceId: uuid('piece_id').notNull().references(() => pieces.id, { onDelete: 'cascade' }),
   strikeId: uuid('strike_id').references(() => strikes.id),
-  supervisorId: uuid('supervisor_id').references(() => users.id, { onDelete: 'set null' }),
+  supervisorId: personRef('supervisor_id'),
   decision: text('decision', { enum: REVIEW_DECISIONS }).notNull(),
   comment: text('comment').notNull().default(''),
   overrideReason: text('override_reason'),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAt(),
 }, t => [index('reviews_piece_idx').on(t.pieceId, t.createdAt)])
 
 export type Strike = typeof strikes.$inferSelect

@@ -17,7 +17,7 @@ describe('database role (class: the app is not a superuser)', () => {
 
   it('every session of the running app (web requests and the pg-boss worker) is that role', async () => {
     const sessions = await testSql()`select a.usename, a.application_name, r.rolsuper from pg_stat_activity a join pg_roles r on r.oid = a.usesysid where a.datname = current_database()`
-    expect(sessions.some(s => s.application_name === 'tonewright-mail')).toBe(true)
+    expect(sessions.some(s => s.application_name === 'tonewright-jobs')).toBe(true)
     for (const s of sessions) expect({ user: s.usename, super: s.rolsuper }).toEqual({ user: 'tonewright_app', super: false })
   })
 

@@ -7,8 +7,5 @@ export default defineEventHandler(async (event) => {
   const member = await requireMember(event, 'certificates:sign')
   const { id } = await getValidatedRouterParams(event, parseWith(IdParams))
   const body = await readValidatedBody(event, parseWith(ReissueCertificateSchema))
-  const signed = await reissueCertificate(useDatabase(), member, id, body.reason, siteUrlOf(event))
-  kickMailQueue()
-  setResponseStatus(event, 201)
-  return signed
+  return answerQueued(event, 201, await reissueCertificate(useDatabase(), member, id, body.reason, siteUrlOf(event)), kickMailQueue)
 })

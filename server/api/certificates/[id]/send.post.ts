@@ -7,8 +7,5 @@ export default defineEventHandler(async (event) => {
   const member = await requireMember(event, 'certificates:send')
   const { id } = await getValidatedRouterParams(event, parseWith(IdParams))
   const body = await readValidatedBody(event, parseWith(SendCertificateSchema))
-  const message = await sendCertificate(useDatabase(), member, id, body.to)
-  kickMailQueue()
-  setResponseStatus(event, 202)
-  return message
+  return answerQueued(event, 202, await sendCertificate(useDatabase(), member, id, body.to), kickMailQueue)
 })

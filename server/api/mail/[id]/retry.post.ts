@@ -5,8 +5,5 @@ import { parseWith } from '#shared/validation'
 export default defineEventHandler(async (event) => {
   const member = await requireMember(event, 'certificates:send')
   const { id } = await getValidatedRouterParams(event, parseWith(IdParams))
-  const row = await retryMail(useDatabase(), member.workshopId, id)
-  kickMailQueue()
-  setResponseStatus(event, 202)
-  return row
+  return answerQueued(event, 202, await retryMail(useDatabase(), member.workshopId, id), kickMailQueue)
 })

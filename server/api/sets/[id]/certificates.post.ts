@@ -5,9 +5,6 @@ import { parseWith } from '#shared/validation'
 export default defineEventHandler(async (event) => {
   const member = await requireMember(event, 'certificates:sign')
   const { id } = await getValidatedRouterParams(event, parseWith(IdParams))
-  const signed = await signCertificate(useDatabase(), member, id, siteUrlOf(event))
   // The PDF job picks the new certificate up now rather than at the next sweep.
-  kickMailQueue()
-  setResponseStatus(event, 201)
-  return signed
+  return answerQueued(event, 201, await signCertificate(useDatabase(), member, id, siteUrlOf(event)), kickMailQueue)
 })

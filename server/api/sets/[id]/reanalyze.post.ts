@@ -1,14 +1,2 @@
-import { IdParams } from '#shared/schemas/params'
-import { ReanalyzeSchema } from '#shared/schemas/reanalysis'
-import { parseWith } from '#shared/validation'
-
 /** POST /api/sets/:id/reanalyze: queue a re-measurement of every strike of the set with the current engine (202, poll statusUrl). */
-export default defineEventHandler(async (event) => {
-  const member = await requireMember(event, 'strikes:reanalyze')
-  const { id } = await getValidatedRouterParams(event, parseWith(IdParams))
-  const body = await readValidatedBody(event, parseWith(ReanalyzeSchema))
-  const run = await requestReanalysis(useDatabase(), member, { setId: id }, body.reason)
-  kickReanalysisQueue()
-  setResponseStatus(event, 202)
-  return run
-})
+export default defineEventHandler(event => reanalyzeFromRoute(event, 'set'))

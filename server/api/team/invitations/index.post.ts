@@ -5,8 +5,5 @@ import { parseWith } from '#shared/validation'
 export default defineEventHandler(async (event) => {
   const member = await requireMember(event, 'team:manage')
   const body = await readValidatedBody(event, parseWith(InviteSchema))
-  const invitation = await createInvitation(useDatabase(), member, body, siteUrlOf(event), useRuntimeConfig().authSecret)
-  kickMailQueue()
-  setResponseStatus(event, 201)
-  return invitation
+  return answerQueued(event, 201, await createInvitation(useDatabase(), member, body, siteUrlOf(event), useRuntimeConfig().authSecret), kickMailQueue)
 })
