@@ -8,9 +8,8 @@ import {
   parabolicPeak,
   realFft,
   selectQuantile,
-  windowSpan,
 } from '../../../../shared/analysis/index'
-import { dtftPowers3 } from '../../../../shared/analysis/dtftPowers3'
+import { basebandDtft } from '../../../../shared/analysis/basebandDtft'
 import { seededRandom } from '../../../support/seededRandom'
 
 /** Magnitude in dB (re the peak) of a window's transform, sampled `pad` times per bin. */
@@ -68,19 +67,16 @@ describe('4-term Blackman–Harris window', () => {
     expect(width(-6.02)).toBeCloseTo(2.72, 1) // source: Harris (1978) Table 1, 6.0-dB bandwidth 2.72 bins
   })
 
-  it('windowSpan applies the same window and sums its decaying gain', () => {
-    const random = seededRandom(4)
-    const signal = new Float64Array(5000).map(() => random.normal())
-    const length = 3001
-    const w = blackmanHarris(length)
-    const alpha = 2e-4
-    const { windowed, decayingGain } = windowSpan(signal, 1000, length, alpha, 400)
-    let gain = 0
-    for (let n = 0; n < length; n++) {
-      expect(windowed[n]).toBeCloseTo(signal[1000 + n]! * w[n]!, 12)
-      gain += w[n]! * Math.exp(-alpha * (1000 + n - 400))
+  it('takes a period that need not be whole: w[n] = w(n / period), as Harris writes the window', () => {
+    const [a0, a1, a2, a3] = [0.35875, 0.48829, 0.14128, 0.01168] // source: Harris (1978) Table 1, minimum 4-term Blackman–Harris
+    const period = 3000.4 / 7
+    const w = blackmanHarris(429, period)
+    for (const n of [0, 1, 100, 214, 300, 428]) {
+      const x = (2 * Math.PI * n) / period
+      expect(w[n]).toBeCloseTo(a0 - a1 * Math.cos(x) + a2 * Math.cos(2 * x) - a3 * Math.cos(3 * x), 12)
     }
-    expect(decayingGain / gain).toBeCloseTo(1, 10)
+    expect(Array.from(blackmanHarris(500, 500))).toEqual(Array.from(blackmanHarris(500)))
+    expect(() => blackmanHarris(10, 0)).toThrow(RangeError)
   })
 
   it('is symmetric in its periodic form and refuses bad lengths', () => {
@@ -112,7 +108,7 @@ describe('FFT and DTFT', () => {
     expect(() => realFft(new Float64Array(100))).toThrow(RangeError)
   })
 
-  it('dtftAt and dtftPowers3 agree with the DFT at bin frequencies', () => {
+  it('dtftAt and basebandDtft agree with the DFT at bin frequencies', () => {
     const random = seededRandom(7)
     const n = 256
     const fs = 1000
@@ -123,13 +119,16 @@ describe('FFT and DTFT', () => {
       expect(v.re).toBeCloseTo(dft[2 * k]!, 9)
       expect(v.im).toBeCloseTo(dft[2 * k + 1]!, 9)
     }
-    const [a, b, c] = dtftPowers3(x, (5 * fs) / n, (9 * fs) / n, (33 * fs) / n, fs)
-    expect(a).toBeCloseTo(dft[10]! ** 2 + dft[11]! ** 2, 8)
-    expect(b).toBeCloseTo(dft[18]! ** 2 + dft[19]! ** 2, 8)
-    expect(c).toBeCloseTo(dft[66]! ** 2 + dft[67]! ** 2, 8)
+    const [a, b, c] = basebandDtft({ re: x, im: new Float64Array(n), sampleRateHz: fs, centerHz: 0 }, [(5 * fs) / n, (9 * fs) / n, (33 * fs) / n])
+    expect(a!.re).toBeCloseTo(dft[10]!, 9)
+    expect(a!.im).toBeCloseTo(dft[11]!, 9)
+    expect(b!.re).toBeCloseTo(dft[18]!, 9)
+    expect(b!.im).toBeCloseTo(dft[19]!, 9)
+    expect(c!.re).toBeCloseTo(dft[66]!, 9)
+    expect(c!.im).toBeCloseTo(dft[67]!, 9)
   })
 
-  it('dtftPowers3 (two halves joined) matches a direct sum at odd and short lengths and off-bin frequencies', () => {
+  it('basebandDtft matches a direct sum at odd and short lengths and off-bin frequencies', () => {
     // source: definition of the DTFT, |Σ x[n] e^{−iωn}|², summed directly here
     const random = seededRandom(11)
     const fs = 48000
@@ -145,7 +144,7 @@ describe('FFT and DTFT', () => {
         }
         return re * re + im * im
       })
-      const fast = dtftPowers3(x, frequencies[0], frequencies[1], frequencies[2], fs)
+      const fast = basebandDtft({ re: x, im: new Float64Array(n), sampleRateHz: fs, centerHz: 0 }, frequencies).map(v => v.re * v.re + v.im * v.im)
       for (let k = 0; k < 3; k++) expect(Math.abs(fast[k]! - direct[k]!)).toBeLessThan(1e-9 * Math.max(1, direct[k]!))
     }
   })
