@@ -7,6 +7,8 @@ export interface Baseband extends ComplexSignal {
   centerHz: number
   /** Length of the window the samples were taken under, in s, when it is not count / rate (its bins are 1 / durationS). */
   durationS?: number
+  /** `im` is all zeros: a real signal (the input itself), whose DTFT the cheaper real recurrence gives. */
+  real?: boolean
 }
 
 /** One band of a real signal, mixed down and decimated; sample j stands for input sample firstIndex + j·factor. */

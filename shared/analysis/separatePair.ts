@@ -61,7 +61,7 @@ export function separatePair(
   const wUp = dtftAt(w, f1Hz - f2Hz, sampleRate) // W(ω1 − ω2): leakage of partial 2 into X(f1)
   const wDown = { re: wUp.re, im: -wUp.im } // W(ω2 − ω1) = conj, the window is real
   const real = (x: number): Complex => ({ re: x, im: 0 })
-  const frame: Baseband = { re: new Float64Array(frameLength), im: new Float64Array(frameLength), sampleRateHz: sampleRate, centerHz: band.centerHz }
+  const frame: Baseband = { re: new Float64Array(frameLength), im: new Float64Array(frameLength), sampleRateHz: sampleRate, centerHz: band.centerHz, real: band.real }
   const times: number[] = []
   const levels: [number[], number[]] = [[], []]
   for (let start = spanStart; start + frameLength <= spanEnd; start += hop) {
@@ -113,7 +113,7 @@ export function separatePair(
     down2 = down1
     down1 = down0
   }
-  const windowed: Baseband = { re: new Float64Array(length), im: new Float64Array(length), sampleRateHz: sampleRate, centerHz: band.centerHz }
+  const windowed: Baseband = { re: new Float64Array(length), im: new Float64Array(length), sampleRateHz: sampleRate, centerHz: band.centerHz, real: band.real }
   for (let n = 0; n < length; n++) {
     windowed.re[n] = band.re[spanStart + n]! * long[n]!
     windowed.im[n] = band.im[spanStart + n]! * long[n]!

@@ -21,5 +21,5 @@ export function windowBand(band: DecimatedBand, startIndex: number, length: numb
     re[j] = band.re[first + j]! * w[j]!
     im[j] = band.im[first + j]! * w[j]!
   }
-  return { re, im, sampleRateHz: band.sampleRateHz, centerHz: band.centerHz, durationS: (length / factor) / band.sampleRateHz }
+  return { re, im, sampleRateHz: band.sampleRateHz, centerHz: band.centerHz, durationS: (length / factor) / band.sampleRateHz, real: band.real }
 }

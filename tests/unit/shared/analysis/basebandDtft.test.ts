@@ -47,6 +47,19 @@ describe('basebandDtft', () => {
     }
   })
 
+  it('gives the same values for a real span by the real recurrence as by the complex one', () => {
+    // source: definition of the DTFT — a real signal is a complex one with a zero imaginary part
+    const x = noise(4801, 3)
+    const span = { re: x, im: new Float64Array(x.length), sampleRateHz: 48000, centerHz: 0 }
+    const frequencies = [61.5, 1234.567, 20000]
+    const complex = basebandDtft(span, frequencies)
+    const real = basebandDtft({ ...span, real: true }, frequencies)
+    frequencies.forEach((_, i) => {
+      expect(real[i]!.re).toBeCloseTo(complex[i]!.re, 8)
+      expect(real[i]!.im).toBeCloseTo(complex[i]!.im, 8)
+    })
+  })
+
   it('refuses a span without a rate', () => {
     expect(() => basebandDtft({ re: new Float64Array(4), im: new Float64Array(4), sampleRateHz: 0, centerHz: 0 }, [1])).toThrow(RangeError)
   })
