@@ -157,13 +157,15 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   if (envelopeBeatHz !== null) {
     const wideBand = bands(coarseHz, 3 * pairHalfWidthHz + marginHz, maxFactor, spanStart, length)
     const wide = wideBand === band ? windowed : windowBand(wideBand, spanStart, length)
+    // A band's sums are 1/factor of the input's: readings on the wide band in the narrow one's terms.
+    const toNarrow = wideBand.factor / band.factor
     const pair = findClosePair(wide, coarseHz, pairHalfWidthHz, binHz)
     const mirrored = pair ? mirroredSideband(wide, pair) : null
     if (mirrored) {
       return [{
         ...common,
         frequencyHz: mirrored.carrier.frequencyHz,
-        amplitudeDb: amplitudeDb(mirrored.carrier.magnitude),
+        amplitudeDb: amplitudeDb(mirrored.carrier.magnitude * toNarrow),
         beatHz: envelopeBeatHz,
         modulationHz: mirrored.rateHz,
         modulationDepthDb: mirrored.depthDb,
@@ -173,12 +175,12 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     if (pair) {
       const beatHz = Math.abs(pair[1].frequencyHz - pair[0].frequencyHz)
       const separated = separatePairOnBand(bands, coarseHz, 3 * pairHalfWidthHz + marginHz, spanStart, length, context.onsetIndex, pair, sampleRate)
-      const linear = separated ? separated.amplitude : [2 * pair[0].magnitude / gain, 2 * pair[1].magnitude / gain]
+      const linear = separated ? separated.amplitude : [2 * pair[0].magnitude * toNarrow / gain, 2 * pair[1].magnitude * toNarrow / gain]
       // Two partials beat between A₁ + A₂ and |A₁ − A₂|.
       const depth = 20 * Math.log10((linear[0]! + linear[1]!) / Math.max(Math.abs(linear[0]! - linear[1]!), 1e-12))
       const modulationFields = { modulationHz: beatHz, modulationDepthDb: Math.min(depth, 60), modulationFrom: 'pair' as const }
       return pair.map((peakK, k) => {
-        if (!separated) return { ...common, ...modulationFields, frequencyHz: peakK.frequencyHz, amplitudeDb: amplitudeDb(peakK.magnitude), beatHz }
+        if (!separated) return { ...common, ...modulationFields, frequencyHz: peakK.frequencyHz, amplitudeDb: amplitudeDb(peakK.magnitude * toNarrow), beatHz }
         const decay = separated.decayDbPerS[k]!
         return {
           ...common,
