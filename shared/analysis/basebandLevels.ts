@@ -1,19 +1,23 @@
+import { basebandDtft } from './basebandDtft'
+import type { Baseband } from './decimateBand'
+
 /**
- * |X(f)|² in dB of an already windowed span at `centreHz + j·gridHz`, j = −count…count,
- * computed cheaply: the span is mixed down by `centreHz` and summed in blocks (a boxcar
- * low-pass and decimation to about 8 × `halfWidthHz` samples per second), the short
- * sequence's DTFT is evaluated on the grid by phasor rotation, and the boxcar's droop
- * |sin(πνB/fs) / (B sin(πν/fs))| is divided out. Equal to the direct DTFT up to the
+ * |X(f)|² in dB of an already windowed (baseband) span at `centreHz + j·gridHz`,
+ * j = −count…count, computed cheaply: the span is mixed down to `centreHz` and summed in
+ * blocks (a boxcar low-pass and decimation to about 8 × `halfWidthHz` samples per second),
+ * the short sequence's DTFT is evaluated on the grid (basebandDtft), and the boxcar's
+ * droop |sin(πνB/fs) / (B sin(πν/fs))| is divided out. Equal to the direct DTFT up to the
  * boxcar's aliasing, which is negligible within ±halfWidthHz.
  */
-export function basebandLevels(windowed: Float64Array, sampleRate: number, centreHz: number, halfWidthHz: number, gridHz: number): Float64Array {
+export function basebandLevels(windowed: Baseband, centreHz: number, halfWidthHz: number, gridHz: number): Float64Array {
   if (!(halfWidthHz > 0) || !(gridHz > 0)) throw new RangeError('basebandLevels needs a positive width and grid')
-  const n = windowed.length
+  const { re: xRe, im: xIm, sampleRateHz: sampleRate } = windowed
+  const n = xRe.length
   const block = Math.max(1, Math.floor(sampleRate / (8 * halfWidthHz)))
   const count = Math.floor(n / block)
   const re = new Float64Array(count)
   const im = new Float64Array(count)
-  const step = (-2 * Math.PI * centreHz) / sampleRate
+  const step = (-2 * Math.PI * (centreHz - windowed.centerHz)) / sampleRate
   const cs = Math.cos(step)
   const sn = Math.sin(step)
   for (let b = 0; b < count; b++) {
@@ -23,9 +27,10 @@ export function basebandLevels(windowed: Float64Array, sampleRate: number, centr
     let sr = 0
     let si = 0
     for (let i = b * block; i < (b + 1) * block; i++) {
-      const x = windowed[i]!
-      sr += x * c
-      si += x * s
+      const x = xRe[i]!
+      const y = xIm[i]!
+      sr += x * c - y * s
+      si += x * s + y * c
       const next = c * cs - s * sn
       s = s * cs + c * sn
       c = next
@@ -34,27 +39,13 @@ export function basebandLevels(windowed: Float64Array, sampleRate: number, centr
     im[b] = si
   }
   const points = Math.ceil(halfWidthHz / gridHz)
+  const offsetsHz = Array.from({ length: 2 * points + 1 }, (_, i) => (i - points) * gridHz)
+  const values = basebandDtft({ re, im, sampleRateHz: sampleRate / block, centerHz: 0 }, offsetsHz)
   const levels = new Float64Array(2 * points + 1)
-  const blockS = block / sampleRate
-  for (let j = -points; j <= points; j++) {
-    const nu = j * gridHz
-    const w = -2 * Math.PI * nu * blockS
-    const cw = Math.cos(w)
-    const sw = Math.sin(w)
-    let c = 1
-    let s = 0
-    let sr = 0
-    let si = 0
-    for (let b = 0; b < count; b++) {
-      sr += re[b]! * c - im[b]! * s
-      si += re[b]! * s + im[b]! * c
-      const next = c * cw - s * sw
-      s = s * cw + c * sw
-      c = next
-    }
-    const x = (Math.PI * nu) / sampleRate
+  for (let i = 0; i < levels.length; i++) {
+    const x = (Math.PI * offsetsHz[i]!) / sampleRate
     const droop = x === 0 ? 1 : Math.abs(Math.sin(block * x) / (block * Math.sin(x)))
-    levels[j + points] = 10 * Math.log10((sr * sr + si * si) / (droop * droop) + 1e-300)
+    levels[i] = 10 * Math.log10((values[i]!.re ** 2 + values[i]!.im ** 2) / (droop * droop) + 1e-300)
   }
   return levels
 }

@@ -13,12 +13,15 @@ export const BLACKMAN_HARRIS_COEFFICIENTS = [0.35875, 0.48829, 0.14128, 0.01168]
  * Periodic ("DFT-even") 4-term Blackman–Harris window of `length` samples
  * (Harris 1978, eq. for the minimum 4-term window). Periodic form, because it is used
  * for spectral analysis, where it gives the exact lobe shape Harris tabulates.
+ * `period` (default `length`) is the window's span in samples, which need not be whole:
+ * w[n] = w(n / period), for a window taken at a decimated rate.
  */
-export function blackmanHarris(length: number): Float64Array {
+export function blackmanHarris(length: number, period = length): Float64Array {
   if (!Number.isInteger(length) || length < 1) throw new RangeError('window length must be a positive integer')
+  if (!(period > 0)) throw new RangeError('window period must be positive')
   const [a0, a1, a2, a3] = BLACKMAN_HARRIS_COEFFICIENTS
   const w = new Float64Array(length)
-  const step = (2 * Math.PI) / length
+  const step = (2 * Math.PI) / period
   const cosStep = Math.cos(step)
   const sinStep = Math.sin(step)
   let c = 1

@@ -6,9 +6,9 @@ import { measureBand, type BandMeasurement, type BandSettings } from './measureB
 import type { TrackMeasurement } from './measureTrack'
 import { mergeBands } from './mergeBands'
 import { dropHeldInPairZones, inPairZone } from './pairZones'
+import { bandSource } from './bandSource'
 import type { AnalysisBand } from './planBands'
 import type { ReportFloor } from './reportFloor'
-import { windowSpan } from './windowSpan'
 
 /** Every band measured, slowest first, and their partials merged. */
 export interface AllBands {
@@ -34,25 +34,8 @@ export function measureAllBands(
 ): AllBands {
   const measured: BandMeasurement[] = []
   let merged: TrackMeasurement[] = []
-  // Tracks of one band often share their long span (frame times on the hop grid): window it once.
-  // A span is used only while its track is measured, so an evicted span's memory is
-  // reused for the next one rather than allocated afresh (long spans are ~0.8 MB each).
-  const cache = new Map<string, Float64Array>()
-  const windowed = (start: number, length: number) => {
-    const key = `${start}:${length}`
-    let span = cache.get(key)
-    if (!span) {
-      let spare: Float64Array | undefined
-      if (cache.size >= 16) {
-        const oldest = cache.keys().next().value!
-        spare = new Float64Array(cache.get(oldest)!.buffer)
-        cache.delete(oldest)
-      }
-      span = windowSpan(signal, start, length, 0, 0, spare).windowed
-      cache.set(key, span)
-    }
-    return span
-  }
+  // One DFT of the signal, and each track's band decimated from it once, shared by neighbouring tracks.
+  const bandsOf = bandSource(signal, sampleRate)
   for (const band of bands) {
     const reachHz = MAIN_LOBE_BINS / 2 / band.windowS
     const settled = (points: TrackPoint[]) => {
@@ -63,7 +46,7 @@ export function measureAllBands(
       const decayDbPerS = -fitLine(points.map(p => p.timeS), points.map(p => p.amplitudeDb)).slope
       return decayDbPerS * held.windowS <= settings.maxDropPerWindowDb
     }
-    const band_ = measureBand(signal, sampleRate, strike, band, settings, settled, windowed, floor)
+    const band_ = measureBand(signal, sampleRate, strike, band, settings, settled, bandsOf, floor)
     band_.partials = dropHeldInPairZones(band_.partials, merged, band.pairZonesHz, reachHz)
     measured.push(band_)
     merged = measured.length === 1 ? band_.partials : mergeBands([merged, band_.partials], settings.maxDropPerWindowDb)

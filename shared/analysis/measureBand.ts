@@ -2,6 +2,7 @@ import { linkTracks, type TrackPoint } from './linkTracks'
 import { measureTrack, type TrackMeasurement } from './measureTrack'
 import type { ModulationSettings } from './measureModulation'
 import type { AnalysisBand } from './planBands'
+import type { BandSource } from './bandSource'
 import { shortTimePeaks } from './shortTimePeaks'
 import type { StrikeSpan } from './findStrike'
 import type { ReportFloor } from './reportFloor'
@@ -46,7 +47,7 @@ export function measureBand(
   settings: BandSettings,
   /** Tracks this says are settled elsewhere are not measured (the costly step). */
   settled: (points: TrackPoint[]) => boolean = () => false,
-  windowed?: (start: number, length: number) => Float64Array,
+  bands?: BandSource,
   floor?: ReportFloor,
 ): BandMeasurement {
   const spectra = shortTimePeaks(signal, sampleRate, {
@@ -86,7 +87,7 @@ export function measureBand(
       minSnrDb: settings.minSnrDb,
       maxRefineS: settings.maxRefineS,
       modulation: settings.modulation,
-      windowed,
+      bands,
       reportFloorDb: floor?.levelDb(),
     })
     floor?.note(readings[i].filter(p => p.frequencyHz >= band.ownFromHz))

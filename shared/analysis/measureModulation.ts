@@ -1,4 +1,5 @@
 import { basebandLevels } from './basebandLevels'
+import type { Baseband } from './decimateBand'
 
 /** Amplitude (or frequency) modulation of one partial, seen as sidebands. */
 export interface Modulation {
@@ -19,7 +20,7 @@ export interface ModulationSettings {
 }
 
 /**
- * Sidebands of a partial at `frequencyHz` in an already windowed long span: its spectrum
+ * Sidebands of a partial at `frequencyHz` in an already windowed long (baseband) span: its spectrum
  * over ±(maxRateHz + 1) Hz on a quarter-bin grid (basebandLevels). A tremolo x(t) = A(1 + m cos 2π f_m t)
  * cos 2π f t has two sidebands of A·m/2 at ±f_m (the modulation theorem); a symmetric pair
  * of local maxima, each within `maxBelowCarrierDb` of the carrier and within
@@ -28,13 +29,12 @@ export interface ModulationSettings {
  * slowest rate: the sidebands must clear the carrier's Blackman–Harris main lobe, 4 bins,
  * by 2 more, so 6 fs / N Hz).
  */
-export function measureModulation(windowed: Float64Array, sampleRate: number, frequencyHz: number, settings: ModulationSettings): Modulation | null {
-  const n = windowed.length
-  const binHz = sampleRate / n
+export function measureModulation(windowed: Baseband, frequencyHz: number, settings: ModulationSettings): Modulation | null {
+  const binHz = 1 / (windowed.durationS ?? windowed.re.length / windowed.sampleRateHz)
   const minRateHz = Math.max(settings.minRateHz, 6 * binHz)
   if (minRateHz >= settings.maxRateHz) return null
   const grid = binHz / 4
-  const level = basebandLevels(windowed, sampleRate, frequencyHz, settings.maxRateHz + 1, grid)
+  const level = basebandLevels(windowed, frequencyHz, settings.maxRateHz + 1, grid)
   const points = (level.length - 1) / 2
   const at = (j: number) => level[j + points]!
   const isMax = (j: number) => j > -points && j < points && at(j) >= at(j - 1) && at(j) >= at(j + 1)

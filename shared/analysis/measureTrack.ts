@@ -1,16 +1,17 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
-import { basebandLevels } from './basebandLevels'
+import { bandSource, type BandSource } from './bandSource'
 import { decayingWindowGain } from './decayingWindowGain'
 import { detectBeat } from './detectBeat'
-import { dtftPowers3 } from './dtftPowers3'
 import { envelopeDepthDb } from './envelopeDepthDb'
+import { findClosePair } from './findClosePair'
 import { fitLine } from './fitLine'
 import type { TrackPoint } from './linkTracks'
 import { measureModulation, type ModulationSettings } from './measureModulation'
+import { mirroredSideband } from './mirroredSideband'
 import { refinePeak, type RefinedPeak } from './refinePeak'
 import { separatePair } from './separatePair'
 import type { FftPartial } from './types'
-import { windowSpan } from './windowSpan'
+import { windowBand } from './windowBand'
 
 export interface TrackContext {
   onsetIndex: number
@@ -26,8 +27,8 @@ export interface TrackContext {
   /** Longest span used for the frequency refinement, in s. */
   maxRefineS: number
   modulation: ModulationSettings
-  /** `signal[start … start + length)` times a Blackman–Harris window, possibly from a cache shared by the tracks. */
-  windowed?: (start: number, length: number) => Float64Array
+  /** Decimated bands of `signal`, shared by the tracks of one analysis (made for this track alone when absent). */
+  bands?: BandSource
   /** Floor of the reported range as known so far (reportFloor), dB re full scale. */
   reportFloorDb?: number
 }
@@ -39,6 +40,9 @@ export interface TrackContext {
  * that a later band lowers.
  */
 export const BELOW_FLOOR_MARGIN_DB = 12
+
+/** Band samples a long span holds at the least (the long window's lobes then stand clear of the band's edges). */
+const MIN_SPAN_SAMPLES = 64
 
 /** A measured partial with the length of the span that refined it (for de-duplication). */
 export interface TrackMeasurement extends FftPartial {
@@ -100,9 +104,18 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   const length = spanEnd - spanStart
   if (length < 32) return []
   const alpha = (decayDbPerS * Math.LN10) / 20
-  const windowed = context.windowed ? context.windowed(spanStart, length) : windowSpan(signal, spanStart, length, 0, 0).windowed
-  const gain = decayingWindowGain(length, alpha / sampleRate, spanStart - context.onsetIndex)
   const binHz = sampleRate / length
+  // Everything below reads a band around the track, mixed down and decimated: as wide as the
+  // sidebands reach plus a main lobe of the long window; a beating track's pair search (and
+  // its mirror, 3 × its half-width) gets a wider one.
+  const pairHalfWidthHz = Math.max(1.5 * binHz, ((MAIN_LOBE_BINS / 2) * sampleRate) / context.windowLength)
+  const marginHz = MAIN_LOBE_BINS * binHz
+  const maxFactor = Math.max(1, Math.floor(length / MIN_SPAN_SAMPLES))
+  const bands = context.bands ?? bandSource(signal, sampleRate)
+  const band = bands(coarseHz, context.modulation.maxRateHz + 1 + marginHz, maxFactor, spanStart, length)
+  const windowed = windowBand(band, spanStart, length)
+  // The band's sums are 1/factor of the input's: so is the window's gain.
+  const gain = decayingWindowGain(length, alpha / sampleRate, spanStart - context.onsetIndex) / band.factor
 
   const common = {
     decayDbPerS,
@@ -121,14 +134,14 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
 
   // The one-bin step first: a reading far under the reporting floor stops there — unless its
   // envelope beats, when a pair's separated onset levels may stand far over the peak's.
-  const rough = refinePeak(windowed, sampleRate, coarseHz, [1])
+  const rough = refinePeak(windowed, coarseHz, [1])
   if (envelopeBeatHz === null && amplitudeDb(rough.magnitude) < (context.reportFloorDb ?? -Infinity) - BELOW_FLOOR_MARGIN_DB) {
     return [plain(rough)]
   }
-  const peak = refinePeak(windowed, sampleRate, rough.frequencyHz, [0.1])
+  const peak = refinePeak(windowed, rough.frequencyHz, [0.1])
   // Sidebands down to maxBelowCarrierDb need the partial that far over the noise, and 10 dB more.
   const modulation = bestSnr >= context.modulation.maxBelowCarrierDb + 10
-    ? measureModulation(windowed, sampleRate, peak.frequencyHz, context.modulation)
+    ? measureModulation(windowed, peak.frequencyHz, context.modulation)
     : null
   if (modulation) {
     return [{
@@ -142,13 +155,17 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     }]
   }
   if (envelopeBeatHz !== null) {
-    const pair = findClosePair(windowed, sampleRate, coarseHz, ((MAIN_LOBE_BINS / 2) * sampleRate) / context.windowLength, binHz)
-    const mirrored = pair ? mirroredSideband(windowed, sampleRate, pair) : null
+    const wideBand = bands(coarseHz, 3 * pairHalfWidthHz + marginHz, maxFactor, spanStart, length)
+    const wide = wideBand === band ? windowed : windowBand(wideBand, spanStart, length)
+    // A band's sums are 1/factor of the input's: readings on the wide band in the narrow one's terms.
+    const toNarrow = wideBand.factor / band.factor
+    const pair = findClosePair(wide, coarseHz, pairHalfWidthHz, binHz)
+    const mirrored = pair ? mirroredSideband(wide, pair) : null
     if (mirrored) {
       return [{
         ...common,
         frequencyHz: mirrored.carrier.frequencyHz,
-        amplitudeDb: amplitudeDb(mirrored.carrier.magnitude),
+        amplitudeDb: amplitudeDb(mirrored.carrier.magnitude * toNarrow),
         beatHz: envelopeBeatHz,
         modulationHz: mirrored.rateHz,
         modulationDepthDb: mirrored.depthDb,
@@ -157,13 +174,13 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     }
     if (pair) {
       const beatHz = Math.abs(pair[1].frequencyHz - pair[0].frequencyHz)
-      const separated = separatePair(signal, sampleRate, spanStart, spanEnd, context.onsetIndex, pair[0].frequencyHz, pair[1].frequencyHz, windowed)
-      const linear = separated ? separated.amplitude : [2 * pair[0].magnitude / gain, 2 * pair[1].magnitude / gain]
+      const separated = separatePairOnBand(bands, coarseHz, 3 * pairHalfWidthHz + marginHz, spanStart, length, context.onsetIndex, pair, sampleRate)
+      const linear = separated ? separated.amplitude : [2 * pair[0].magnitude * toNarrow / gain, 2 * pair[1].magnitude * toNarrow / gain]
       // Two partials beat between A₁ + A₂ and |A₁ − A₂|.
       const depth = 20 * Math.log10((linear[0]! + linear[1]!) / Math.max(Math.abs(linear[0]! - linear[1]!), 1e-12))
       const modulationFields = { modulationHz: beatHz, modulationDepthDb: Math.min(depth, 60), modulationFrom: 'pair' as const }
       return pair.map((peakK, k) => {
-        if (!separated) return { ...common, ...modulationFields, frequencyHz: peakK.frequencyHz, amplitudeDb: amplitudeDb(peakK.magnitude), beatHz }
+        if (!separated) return { ...common, ...modulationFields, frequencyHz: peakK.frequencyHz, amplitudeDb: amplitudeDb(peakK.magnitude * toNarrow), beatHz }
         const decay = separated.decayDbPerS[k]!
         return {
           ...common,
@@ -195,44 +212,14 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
 }
 
 /**
- * A close pair that is a carrier and one sideband of a tremolo: the spectrum at the
- * carrier's other side, mirrored, is within 10 dB of the first sideband (a second partial
- * leaves only its partner's skirt there). Returns the carrier, the rate and the depth
- * 20·log10((1 + m)/(1 − m)) with m = (S₋ + S₊)/C, or null for a true pair.
+ * separatePair on the track's span, at a band whose frames of 2.5 beats hold at least 16
+ * samples (a narrower band than the refinement's would leave them too few).
  */
-function mirroredSideband(windowed: Float64Array, sampleRate: number, pair: [RefinedPeak, RefinedPeak]) {
-  const [carrier, side] = pair[0].magnitude >= pair[1].magnitude ? pair : [pair[1], pair[0]]
-  const mirrorHz = 2 * carrier.frequencyHz - side.frequencyHz
-  const [mirrorPower] = dtftPowers3(windowed, mirrorHz, carrier.frequencyHz, side.frequencyHz, sampleRate)
-  const mirror = Math.sqrt(mirrorPower)
-  if (!(mirror > side.magnitude * 10 ** (-10 / 20))) return null
-  const index = Math.min(0.98, (mirror + side.magnitude) / carrier.magnitude)
-  return { carrier, rateHz: Math.abs(side.frequencyHz - carrier.frequencyHz), depthDb: 20 * Math.log10((1 + index) / (1 - index)) }
-}
-
-/**
- * Two local maxima of the long-window magnitude within ±`halfWidthHz` of `centreHz`
- * (a grid of half bins, then refined), the weaker no more than 30 dB under the
- * stronger and the two at least 0.9 half main lobes apart; null otherwise.
- */
-function findClosePair(windowed: Float64Array, sampleRate: number, centreHz: number, halfWidthHz: number, binHz: number) {
-  const step = binHz / 2
-  const grid = basebandLevels(windowed, sampleRate, centreHz, Math.max(3 * step, halfWidthHz), step)
-  const count = (grid.length - 1) / 2
-  const levels = Array.from(grid)
-  const maxima: { index: number, level: number }[] = []
-  for (let i = 1; i < levels.length - 1; i++) {
-    if (levels[i]! > levels[i - 1]! && levels[i]! >= levels[i + 1]!) maxima.push({ index: i, level: levels[i]! })
-  }
-  if (maxima.length < 2) return null
-  maxima.sort((a, b) => b.level - a.level)
-  const [first, second] = maxima as [(typeof maxima)[0], (typeof maxima)[0]]
-  if (second.level < first.level - 30) return null
-  const refined = [first, second]
-    .map(m => refinePeak(windowed, sampleRate, centreHz + (m.index - count) * step, [0.25, 0.1]))
-    .sort((a, b) => a.frequencyHz - b.frequencyHz) as [ReturnType<typeof refinePeak>, ReturnType<typeof refinePeak>]
-  // Closer than 3.6 bins (0.9 × the half main lobe) the window cannot resolve the pair:
-  // two maxima there come from the beating itself, not from two separable partials.
-  if (refined[1].frequencyHz - refined[0].frequencyHz < 0.9 * (MAIN_LOBE_BINS / 2) * binHz) return null
-  return refined
+function separatePairOnBand(bands: BandSource, centreHz: number, reachHz: number, startIndex: number, length: number, onsetIndex: number, pair: [RefinedPeak, RefinedPeak], sampleRate: number) {
+  const beatHz = pair[1].frequencyHz - pair[0].frequencyHz
+  const frameLength = Math.min((2.5 / beatHz) * sampleRate, length / 1.5)
+  if (frameLength < 64) return null
+  const band = bands(centreHz, reachHz, Math.max(1, Math.floor(frameLength / 16)), startIndex, length)
+  const at = (index: number) => (index - band.firstIndex) / band.factor
+  return separatePair(band, at(startIndex), Math.floor(at(startIndex + length)), at(onsetIndex), pair[0].frequencyHz, pair[1].frequencyHz)
 }

@@ -3,7 +3,7 @@ import FFT from 'fft.js'
 const plans = new Map<number, FFT>()
 
 /** One fft.js plan per size; building the twiddle table costs more than a transform. */
-function planFor(size: number): FFT {
+export function fftPlan(size: number): FFT {
   let plan = plans.get(size)
   if (!plan) {
     plan = new FFT(size)
@@ -23,6 +23,6 @@ export function realFft(signal: Float64Array, out?: Float64Array): Float64Array 
   const size = signal.length
   if (size < 2 || (size & (size - 1)) !== 0) throw new RangeError('realFft needs a power-of-two length ≥ 2')
   const result = out && out.length >= 2 * size ? out : new Float64Array(2 * size)
-  planFor(size).realTransform(result, signal)
+  fftPlan(size).realTransform(result, signal)
   return result
 }

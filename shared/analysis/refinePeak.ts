@@ -1,4 +1,5 @@
-import { dtftPowers3 } from './dtftPowers3'
+import { basebandDtft } from './basebandDtft'
+import type { Baseband } from './decimateBand'
 
 /** A peak located precisely on one long window. */
 export interface RefinedPeak {
@@ -8,7 +9,7 @@ export interface RefinedPeak {
 }
 
 /**
- * Maximum of the DTFT magnitude of an already windowed span near `frequencyHz`, by
+ * Maximum of the DTFT magnitude of an already windowed (baseband) span near `frequencyHz`, by
  * iterated parabolic interpolation of the dB magnitude at f − δ, f, f + δ with shrinking
  * δ (`stepsBins`, in bins of the span, fs / N). The magnitude of a real, smooth window's
  * lobe is symmetric about the true frequency even when the partial decays within the
@@ -17,17 +18,16 @@ export interface RefinedPeak {
  * an error far under 0.001 bin; the default steps are one bin, then a tenth.
  */
 export function refinePeak(
-  windowed: Float64Array,
-  sampleRate: number,
+  windowed: Baseband,
   frequencyHz: number,
   stepsBins: readonly number[] = [1, 0.1],
 ): RefinedPeak {
-  const binHz = sampleRate / windowed.length
+  const binHz = 1 / (windowed.durationS ?? windowed.re.length / windowed.sampleRateHz)
   let f = frequencyHz
   let peakDb = -Infinity
   for (const step of stepsBins) {
     const delta = step * binHz
-    const [pl, pc, pr] = dtftPowers3(windowed, f - delta, f, f + delta, sampleRate)
+    const [pl, pc, pr] = basebandDtft(windowed, [f - delta, f, f + delta]).map(x => x.re * x.re + x.im * x.im) as [number, number, number]
     const left = 10 * Math.log10(pl + Number.MIN_VALUE)
     const centre = 10 * Math.log10(pc + Number.MIN_VALUE)
     const right = 10 * Math.log10(pr + Number.MIN_VALUE)

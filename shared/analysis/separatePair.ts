@@ -1,6 +1,7 @@
+import { basebandDtft } from './basebandDtft'
 import { blackmanHarris } from './blackmanHarris'
+import type { Baseband } from './decimateBand'
 import { dtftAt, type Complex } from './dtftAt'
-import { dtftPair } from './dtftPair'
 import { finishGoertzel } from './finishGoertzel'
 import { fitLine } from './fitLine'
 
@@ -35,36 +36,40 @@ function solve2(a: Complex, b: Complex, c: Complex, d: Complex, p: Complex, q: C
  * hop a quarter of that. Each dB envelope gets its own least-squares decay line; the
  * onset amplitudes come from the same solve on the long window over the whole span,
  * with each partial's window gain Σ w[n]·e^{−α(t_n − t_onset)}.
- * `windowedSpan`, when given, is `signal[spanStart … spanEnd)` already times the long
- * Blackman–Harris window (the caller's long window, reused rather than made again).
- * Returns null when the span holds fewer than three frames.
+ * All of it runs on a band of the signal mixed down and decimated (`band`, at its own
+ * rate; `spanStart`, `spanEnd` and `onsetIndex` count its samples, the onset possibly
+ * between two of them). Frames shorter than `minFrameLength` band samples, or a span of
+ * fewer than three frames, give null.
  */
 export function separatePair(
-  signal: Float64Array,
-  sampleRate: number,
+  band: Baseband,
   spanStart: number,
   spanEnd: number,
   onsetIndex: number,
   f1Hz: number,
   f2Hz: number,
-  windowedSpan?: Float64Array,
+  minFrameLength = 16,
 ): SeparatedPair | null {
+  const sampleRate = band.sampleRateHz
   const deltaHz = f2Hz - f1Hz
   const frameLength = Math.min(Math.round((2.5 / deltaHz) * sampleRate), Math.floor((spanEnd - spanStart) / 1.5))
   const hop = Math.max(1, Math.round(frameLength / 4))
-  if (frameLength < 64) return null
+  if (!(frameLength >= minFrameLength)) return null
   const w = blackmanHarris(frameLength)
   let w0 = 0
   for (let i = 0; i < frameLength; i++) w0 += w[i]!
   const wUp = dtftAt(w, f1Hz - f2Hz, sampleRate) // W(ω1 − ω2): leakage of partial 2 into X(f1)
   const wDown = { re: wUp.re, im: -wUp.im } // W(ω2 − ω1) = conj, the window is real
   const real = (x: number): Complex => ({ re: x, im: 0 })
-  const frame = new Float64Array(frameLength)
+  const frame: Baseband = { re: new Float64Array(frameLength), im: new Float64Array(frameLength), sampleRateHz: sampleRate, centerHz: band.centerHz, real: band.real }
   const times: number[] = []
   const levels: [number[], number[]] = [[], []]
   for (let start = spanStart; start + frameLength <= spanEnd; start += hop) {
-    for (let i = 0; i < frameLength; i++) frame[i] = signal[start + i]! * w[i]!
-    const [x1, x2] = dtftPair(frame, f1Hz, f2Hz, sampleRate)
+    for (let i = 0; i < frameLength; i++) {
+      frame.re[i] = band.re[start + i]! * w[i]!
+      frame.im[i] = band.im[start + i]! * w[i]!
+    }
+    const [x1, x2] = basebandDtft(frame, [f1Hz, f2Hz]) as [Complex, Complex]
     const [c1, c2] = solve2(real(w0), wUp, wDown, real(w0), x1, x2)
     times.push((start + frameLength / 2) / sampleRate)
     levels[0].push(20 * Math.log10(Math.max(Math.hypot(c1.re, c1.im), 1e-12)))
@@ -108,12 +113,12 @@ export function separatePair(
     down2 = down1
     down1 = down0
   }
-  let windowed = windowedSpan
-  if (!windowed || windowed.length !== length) {
-    windowed = new Float64Array(length)
-    for (let n = 0; n < length; n++) windowed[n] = signal[spanStart + n]! * long[n]!
+  const windowed: Baseband = { re: new Float64Array(length), im: new Float64Array(length), sampleRateHz: sampleRate, centerHz: band.centerHz, real: band.real }
+  for (let n = 0; n < length; n++) {
+    windowed.re[n] = band.re[spanStart + n]! * long[n]!
+    windowed.im[n] = band.im[spanStart + n]! * long[n]!
   }
-  const [x1, x2] = dtftPair(windowed, f1Hz, f2Hz, sampleRate)
+  const [x1, x2] = basebandDtft(windowed, [f1Hz, f2Hz]) as [Complex, Complex]
   const [a1, a2] = solve2(
     real(g1 / 2),
     scale(finishGoertzel(up1, up2, omegaUp, length), 0.5),

@@ -89,4 +89,16 @@ describe('blackmanHarris', () => {
     expect(() => blackmanHarris(0)).toThrow(RangeError)
     expect(() => blackmanHarris(2.5)).toThrow(RangeError)
   })
+
+  it('takes a period that need not be whole: w[n] = w(n / period), as Harris writes the window', () => {
+    const [a0, a1, a2, a3] = BLACKMAN_HARRIS_COEFFICIENTS
+    const period = 3000.4 / 7
+    const w = blackmanHarris(429, period)
+    for (const n of [0, 1, 100, 214, 300, 428]) {
+      const x = (2 * Math.PI * n) / period
+      expect(w[n]).toBeCloseTo(a0 - a1 * Math.cos(x) + a2 * Math.cos(2 * x) - a3 * Math.cos(3 * x), 12)
+    }
+    expect(Array.from(blackmanHarris(500, 500))).toEqual(Array.from(blackmanHarris(500)))
+    expect(() => blackmanHarris(10, 0)).toThrow(RangeError)
+  })
 })

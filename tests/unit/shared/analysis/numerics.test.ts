@@ -1,30 +1,13 @@
 import { describe, expect, it } from 'vitest'
-import { blackmanHarris, directDft, dtftAt, windowSpan } from '../../../../shared/analysis/index'
-import { dtftPowers3 } from '../../../../shared/analysis/dtftPowers3'
+import { blackmanHarris, directDft, dtftAt } from '../../../../shared/analysis/index'
+import { basebandDtft } from '../../../../shared/analysis/basebandDtft'
 import { seededRandom } from '../../../support/seededRandom'
 
 // Mirrored tests of blackmanHarris, realFft, fitLine, selectQuantile, parabolicPeak and
-// nextPowerOfTwo live in files named after them; these stay here while windowSpan and the
-// DTFT helpers are being rewritten.
-describe('windowSpan', () => {
-  it('windowSpan applies the same window and sums its decaying gain', () => {
-    const random = seededRandom(4)
-    const signal = new Float64Array(5000).map(() => random.normal())
-    const length = 3001
-    const w = blackmanHarris(length)
-    const alpha = 2e-4
-    const { windowed, decayingGain } = windowSpan(signal, 1000, length, alpha, 400)
-    let gain = 0
-    for (let n = 0; n < length; n++) {
-      expect(windowed[n]).toBeCloseTo(signal[1000 + n]! * w[n]!, 12)
-      gain += w[n]! * Math.exp(-alpha * (1000 + n - 400))
-    }
-    expect(decayingGain / gain).toBeCloseTo(1, 10)
-  })
-})
-
+// nextPowerOfTwo live in files named after them; the DTFT helpers are checked together here.
 describe('DTFT', () => {
-  it('dtftAt and dtftPowers3 agree with the DFT at bin frequencies', () => {
+  it('dtftAt and basebandDtft agree with the DFT at bin frequencies', () => {
+>>>>>>> speed-track
     const random = seededRandom(7)
     const n = 256
     const fs = 1000
@@ -35,13 +18,16 @@ describe('DTFT', () => {
       expect(v.re).toBeCloseTo(dft[2 * k]!, 9)
       expect(v.im).toBeCloseTo(dft[2 * k + 1]!, 9)
     }
-    const [a, b, c] = dtftPowers3(x, (5 * fs) / n, (9 * fs) / n, (33 * fs) / n, fs)
-    expect(a).toBeCloseTo(dft[10]! ** 2 + dft[11]! ** 2, 8)
-    expect(b).toBeCloseTo(dft[18]! ** 2 + dft[19]! ** 2, 8)
-    expect(c).toBeCloseTo(dft[66]! ** 2 + dft[67]! ** 2, 8)
+    const [a, b, c] = basebandDtft({ re: x, im: new Float64Array(n), sampleRateHz: fs, centerHz: 0 }, [(5 * fs) / n, (9 * fs) / n, (33 * fs) / n])
+    expect(a!.re).toBeCloseTo(dft[10]!, 9)
+    expect(a!.im).toBeCloseTo(dft[11]!, 9)
+    expect(b!.re).toBeCloseTo(dft[18]!, 9)
+    expect(b!.im).toBeCloseTo(dft[19]!, 9)
+    expect(c!.re).toBeCloseTo(dft[66]!, 9)
+    expect(c!.im).toBeCloseTo(dft[67]!, 9)
   })
 
-  it('dtftPowers3 (two halves joined) matches a direct sum at odd and short lengths and off-bin frequencies', () => {
+  it('basebandDtft matches a direct sum at odd and short lengths and off-bin frequencies', () => {
     // source: definition of the DTFT, |Σ x[n] e^{−iωn}|², summed directly here
     const random = seededRandom(11)
     const fs = 48000
@@ -57,7 +43,7 @@ describe('DTFT', () => {
         }
         return re * re + im * im
       })
-      const fast = dtftPowers3(x, frequencies[0], frequencies[1], frequencies[2], fs)
+      const fast = basebandDtft({ re: x, im: new Float64Array(n), sampleRateHz: fs, centerHz: 0 }, frequencies).map(v => v.re * v.re + v.im * v.im)
       for (let k = 0; k < 3; k++) expect(Math.abs(fast[k]! - direct[k]!)).toBeLessThan(1e-9 * Math.max(1, direct[k]!))
     }
   })

@@ -1,0 +1,25 @@
+import { blackmanHarris } from './blackmanHarris'
+import type { Baseband, DecimatedBand } from './decimateBand'
+
+/**
+ * The band's samples in the input span [startIndex, startIndex + length) times the periodic
+ * 4-term Blackman–Harris window (Harris 1978) of that span, w(t) at each band sample's own
+ * input time t: the long window of the refinement, taken at the band's rate. By the
+ * sampling theorem (the windowed band is band-limited well within the band's rate) its DTFT
+ * times the factor is the input's windowed DTFT over exactly that span. `startIndex` must be
+ * one of the band's sample times (bandSource's `alignIndex`).
+ */
+export function windowBand(band: DecimatedBand, startIndex: number, length: number): Baseband {
+  const { factor } = band
+  const first = (startIndex - band.firstIndex) / factor
+  const count = Math.min(Math.ceil(length / factor), band.re.length - first)
+  if (!(Number.isInteger(first) && first >= 0 && count >= 1 && length >= 1)) throw new RangeError('windowBand needs a span inside the band that starts on one of its samples')
+  const w = blackmanHarris(count, length / factor)
+  const re = new Float64Array(count)
+  const im = new Float64Array(count)
+  for (let j = 0; j < count; j++) {
+    re[j] = band.re[first + j]! * w[j]!
+    im[j] = band.im[first + j]! * w[j]!
+  }
+  return { re, im, sampleRateHz: band.sampleRateHz, centerHz: band.centerHz, durationS: (length / factor) / band.sampleRateHz, real: band.real }
+}
