@@ -7,7 +7,6 @@ import { seededRandom } from '../../../support/seededRandom'
 // nextPowerOfTwo live in files named after them; the DTFT helpers are checked together here.
 describe('DTFT', () => {
   it('dtftAt and basebandDtft agree with the DFT at bin frequencies', () => {
->>>>>>> speed-track
     const random = seededRandom(7)
     const n = 256
     const fs = 1000
