@@ -3,28 +3,15 @@ import { addLongLookPartials } from '../../../../shared/analysis/addLongLookPart
 import { centsBetween } from '../../../../shared/analysis/centsBetween'
 import { findStrike } from '../../../../shared/analysis/findStrike'
 import { planAnalysis } from '../../../../shared/analysis/planAnalysis'
-import type { MeasuredPartial } from '../../../../shared/analysis/types'
-import { synthStrike, type SynthPartial } from '../../../support/synthStrike'
+import { CLOSE_PAIR, LOW_MODES, reportedPartial } from '../../../support/closeLowPair'
+import { synthStrike } from '../../../support/synthStrike'
 
 const sampleRate = 48000
-// Our own tuned-drum scenario (as in findLongLookPartials.test.ts): strong low modes and a pair
-// 9 Hz apart, which a 0.2 s window cannot resolve (Blackman–Harris main lobe 8 / T Hz; source: Harris 1978).
-const low: SynthPartial[] = [
-  { frequencyHz: 88, amplitudeDb: -10, decayDbPerS: 8 },
-  { frequencyHz: 132, amplitudeDb: -14, decayDbPerS: 10 },
-]
-const pair: SynthPartial[] = [
-  { frequencyHz: 250, amplitudeDb: -32, decayDbPerS: 12 },
-  { frequencyHz: 259, amplitudeDb: -30, decayDbPerS: 15 },
-]
+// Strong low modes and a pair 9 Hz apart that a 0.2 s window cannot resolve (tests/support/closeLowPair.ts).
+const low = LOW_MODES
+const pair = CLOSE_PAIR
+const reported = reportedPartial
 const level = { peakDb: 0, minAmplitudeDb: -90 }
-
-function reported(p: SynthPartial): MeasuredPartial {
-  return {
-    frequencyHz: p.frequencyHz, amplitudeDb: p.amplitudeDb, decayDbPerS: p.decayDbPerS, t60S: 60 / p.decayDbPerS, r2: 0.99, startS: 0.06, endS: 1.9,
-    stabilityCents: 0.01, beatHz: null, snrDb: 60, frames: 30, modulationHz: null, modulationDepthDb: null, crossCheckCents: 0, uncertaintyCents: 0.01, uncertaintyDecayPct: 1,
-  }
-}
 
 function strikeOf(durationS: number, partials = [...low, ...pair]) {
   const x = synthStrike(partials, { sampleRate, durationS, onsetS: 0.05, noiseDb: -80, seed: 2 })

@@ -3,21 +3,14 @@ import { centsBetween } from '../../../../shared/analysis/centsBetween'
 import { findLongLookPartials, type LongLookSettings } from '../../../../shared/analysis/findLongLookPartials'
 import { longSpectrumPeaks } from '../../../../shared/analysis/longSpectrumPeaks'
 import type { MeasuredPartial } from '../../../../shared/analysis/types'
+import { CLOSE_PAIR, LOW_MODES, reportedPartial } from '../../../support/closeLowPair'
 import { synthStrike, type SynthPartial } from '../../../support/synthStrike'
 
 const sampleRate = 48000
 const onsetS = 0.05
-// A tuned drum of our own scenario: two strong low modes and, higher up, a weaker pair 9 Hz apart
-// that a 0.2 s window sees as one lobe (a 4-term Blackman–Harris main lobe is 8 / T Hz wide:
-// 40 Hz at 0.2 s, 8 Hz at 1 s; source: Harris 1978, Proc. IEEE 66(1)).
-const low: SynthPartial[] = [
-  { frequencyHz: 88, amplitudeDb: -10, decayDbPerS: 8 },
-  { frequencyHz: 132, amplitudeDb: -14, decayDbPerS: 10 },
-]
-const pair: SynthPartial[] = [
-  { frequencyHz: 250, amplitudeDb: -32, decayDbPerS: 12 },
-  { frequencyHz: 259, amplitudeDb: -30, decayDbPerS: 15 },
-]
+// Strong low modes and a pair 9 Hz apart that a 0.2 s window cannot resolve (tests/support/closeLowPair.ts).
+const low = LOW_MODES
+const pair = CLOSE_PAIR
 const settings: LongLookSettings = {
   startIndex: Math.round((onsetS + 0.005) * sampleRate),
   length: sampleRate,
@@ -30,14 +23,7 @@ const settings: LongLookSettings = {
   maxModulationHz: 24,
 }
 
-/** A partial as the bands report it (only frequency, level and modulation matter to the long look). */
-function reported(p: SynthPartial, modulationHz: number | null = null): MeasuredPartial {
-  return {
-    frequencyHz: p.frequencyHz, amplitudeDb: p.amplitudeDb, decayDbPerS: p.decayDbPerS, t60S: 60 / p.decayDbPerS, r2: 0.99, startS: 0.06, endS: 1.9,
-    stabilityCents: 0.01, beatHz: null, snrDb: 60, frames: 30, modulationHz, modulationDepthDb: modulationHz === null ? null : 6,
-    crossCheckCents: 0, uncertaintyCents: 0.01, uncertaintyDecayPct: 1,
-  }
-}
+const reported = reportedPartial
 
 function look(partials: SynthPartial[], held: MeasuredPartial[], seed = 1) {
   const x = synthStrike(partials, { sampleRate, durationS: 2, onsetS, noiseDb: -80, seed })
