@@ -54,11 +54,12 @@ export function measureLongPeak(signal: Float64Array, sampleRate: number, freque
   const second = near.reduce((a, b) => (b.amplitude > a.amplitude ? b : a))
 
   const half = Math.floor(length / 2)
+  const buffer = new Float64Array(half)
   const times: number[] = []
   const levels: number[] = []
   for (const at of DECAY_FRAMES) {
     const start = startIndex + Math.round(at * length)
-    const x = dtftAt(windowSpan(signal, start, half, 0, 0).windowed, peak.frequencyHz, sampleRate)
+    const x = dtftAt(windowSpan(signal, start, half, 0, 0, buffer).windowed, peak.frequencyHz, sampleRate)
     times.push((start + half / 2) / sampleRate)
     levels.push(10 * Math.log10(x.re * x.re + x.im * x.im + Number.MIN_VALUE))
   }
