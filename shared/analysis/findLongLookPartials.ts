@@ -59,6 +59,7 @@ export function findLongLookPartials(
     && !partials.some(p => Math.abs(p.frequencyHz - peak.frequencyHz) < lobeHz)
     && peaks.some(other => other !== peak && Math.abs(other.frequencyHz - peak.frequencyHz) < bandLobeHz)
     && !isSideband(peak, peaks, partials, settings.maxModulationHz, sampleRate / length))
+  if (candidates.length === 0) return []
   const { windowed } = windowSpan(signal, startIndex, length, 0, 0)
   const found: MeasuredPartial[] = []
   for (const peak of candidates) {
