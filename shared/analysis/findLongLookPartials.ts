@@ -69,7 +69,8 @@ export function findLongLookPartials(
       startIndex,
       onsetIndex: settings.onsetIndex,
       halfWidthHz: Math.max(lobeHz / 2, Math.min(nearestHz / 2, lobeHz)),
-      snrDb: peak.levelDb - peak.noiseFloorDb,
+      levelDb: peak.levelDb,
+      noiseFloorDb: peak.noiseFloorDb,
     })
     if (!reading) continue
     if (!(reading.decayDbPerS >= settings.minDecayDbPerS && reading.decayDbPerS <= settings.maxDecayDbPerS)) continue
