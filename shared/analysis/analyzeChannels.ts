@@ -1,3 +1,4 @@
+import { addLongLookPartials } from './addLongLookPartials'
 import { addShortPartials } from './addShortPartials'
 import { applyTemplate } from './applyTemplate'
 import { assembleResult } from './assembleResult'
@@ -17,7 +18,7 @@ import type { AnalysisResult, AnalyzeOptions } from './types'
  * The whole measurement on decoded channels, as a sequence of steps that each return new
  * values: level checks → mono → strike → window needs and bands → the FFT path's partials
  * (tracks, per-partial measurement, merge, physical bounds, reported range) → doublets and
- * the cross-check → short-lived template partials → result → template match and verdict.
+ * the cross-check → close partials of the long look → short-lived template partials → result → template match and verdict.
  * Throws AnalysisError for audio that cannot be measured.
  */
 export function analyzeChannels(
@@ -38,13 +39,15 @@ export function analyzeChannels(
   const fft = measureFftPartials(mono, sampleRate, strike, plan, { peakDb, lossy: source.lossy === true })
   const level = { peakDb, peakMarginDb: S.peakMarginDb, minAmplitudeDb: fft.minAmplitudeDb }
   const checked = crossCheckPartials(mono, sampleRate, fft.partials, strike, level)
-  const withShort = addShortPartials(mono, sampleRate, checked.partials, expected, strike, level)
+  const withLong = addLongLookPartials(mono, sampleRate, checked.partials, strike, plan, level)
+  const withShort = addShortPartials(mono, sampleRate, withLong.partials, expected, strike, level)
   const partials = withShort.partials
   const warnings = [
     ...prepared.warnings,
     ...located.warnings,
     ...fft.warnings,
     ...checked.warnings,
+    ...withLong.warnings,
     ...withShort.warnings,
     ...(source.lossy ? [`lossy audio format: partials more than ${fft.dynamicRangeDb} dB under the strongest are not reported`] : []),
     ...(partials.length === 0 ? ['no partials found above the noise floor'] : []),

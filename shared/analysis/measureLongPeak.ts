@@ -1,0 +1,101 @@
+import { BLACKMAN_HARRIS_COEFFICIENTS } from './blackmanHarris'
+import { centsBetween } from './centsBetween'
+import { MAIN_LOBE_BINS } from './chooseWindow'
+import { decayingWindowGain } from './decayingWindowGain'
+import { dtftAt } from './dtftAt'
+import { estimateBand, type BandEstimate } from './estimateBand'
+import { fitLine } from './fitLine'
+import { refinePeak } from './refinePeak'
+import type { MeasuredPartial } from './types'
+import { windowSpan } from './windowSpan'
+
+export interface LongPeakSpan {
+  /** `signal[startIndex … startIndex + length)` times a Blackman–Harris window of that length (windowSpan). */
+  windowed: Float64Array
+  startIndex: number
+  onsetIndex: number
+  /** Half-width of the band the pencil reads, Hz (about half the way to the nearest other peak). */
+  halfWidthHz: number
+  /** Level of the peak and the banded floor under it in the long spectrum, dB re full scale (longSpectrumPeaks). */
+  levelDb: number
+  noiseFloorDb: number
+}
+
+const CENTS_PER_LOG = 1200 / Math.LN2
+/** Half-length windows the decay is read from, from the start to the end of the long one (offsets in long windows). */
+const DECAY_FRAMES = [0, 0.125, 0.25, 0.375, 0.5]
+/** Only frames this far over the floor enter the decay line, dB (as a track's frames do). */
+const FIT_MARGIN_DB = 15
+
+/**
+ * One partial at a peak of a long spectrum, read as the FFT path reads a track: frequency and
+ * magnitude by iterated parabolic refinement on the long window (refinePeak); decay by a line
+ * through the levels at that frequency in five half-length Blackman–Harris windows spread over
+ * the long one (a decaying sinusoid's level falls linearly in dB with the window's centre),
+ * those standing 15 dB over the floor (the long spectrum's, +3 dB for half the length);
+ * onset amplitude as the magnitude over the window's gain for that decay (decayingWindowGain).
+ * The second reading is the matrix pencil's strongest component within a quarter main lobe
+ * (estimateBand; Hua & Sarkar 1990), with the usual uncertainties √(bound² + Δ²/2).
+ * Null when the pencil finds no component there (nothing confirms the peak) or fewer than
+ * two frames stand over the floor.
+ */
+export function measureLongPeak(signal: Float64Array, sampleRate: number, frequencyHz: number, span: LongPeakSpan): MeasuredPartial | null {
+  const { windowed, startIndex, onsetIndex } = span
+  const length = windowed.length
+  if (!(frequencyHz > 0 && frequencyHz < sampleRate / 2)) throw new RangeError('measureLongPeak needs a frequency inside the recording\'s band')
+  if (!(length >= 64 && startIndex >= 0 && startIndex + length <= signal.length)) throw new RangeError('measureLongPeak needs a window inside the signal')
+  const peak = refinePeak(windowed, sampleRate, frequencyHz)
+  let band: BandEstimate | null = null
+  try {
+    band = estimateBand(signal, sampleRate, peak.frequencyHz, { startIndex, endIndex: startIndex + length, halfWidthHz: span.halfWidthHz, referenceIndex: onsetIndex })
+  }
+  catch {
+    // A degenerate band (a singular system) gives no second reading.
+    band = null
+  }
+  const reachHz = (MAIN_LOBE_BINS * sampleRate) / length / 4
+  const near = band?.components.filter(c => Math.abs(c.frequencyHz - peak.frequencyHz) <= reachHz
+    && Number.isFinite(c.decayDbPerS) && Number.isFinite(c.frequencySdHz)) ?? []
+  if (near.length === 0) return null
+  const second = near.reduce((a, b) => (b.amplitude > a.amplitude ? b : a))
+
+  const half = Math.floor(length / 2)
+  const buffer = new Float64Array(half)
+  // |X| of a sinusoid of amplitude A is A·Σw/2, Σw = a₀·N for the periodic window; noise gains 3 dB on a sinusoid in half the length.
+  const gainDb = 20 * Math.log10(2 / (BLACKMAN_HARRIS_COEFFICIENTS[0] * half))
+  const minLevelDb = span.noiseFloorDb + 10 * Math.log10(length / half) + FIT_MARGIN_DB
+  const times: number[] = []
+  const levels: number[] = []
+  for (const at of DECAY_FRAMES) {
+    const start = startIndex + Math.round(at * length)
+    const x = dtftAt(windowSpan(signal, start, half, 0, 0, buffer).windowed, peak.frequencyHz, sampleRate)
+    const levelDb = 10 * Math.log10(x.re * x.re + x.im * x.im + Number.MIN_VALUE) + gainDb
+    if (levelDb < minLevelDb) continue
+    times.push((start + half / 2) / sampleRate)
+    levels.push(levelDb)
+  }
+  if (times.length < 2) return null
+  const fit = fitLine(times, levels)
+  const decayDbPerS = -fit.slope
+  const gain = decayingWindowGain(length, (decayDbPerS * Math.LN10) / 20 / sampleRate, startIndex - onsetIndex)
+  const delta = centsBetween(second.frequencyHz, peak.frequencyHz)
+  const boundCents = (CENTS_PER_LOG * second.frequencySdHz) / peak.frequencyHz
+  return {
+    frequencyHz: peak.frequencyHz,
+    amplitudeDb: 20 * Math.log10(Math.max((2 * peak.magnitude) / gain, 1e-12)),
+    decayDbPerS,
+    t60S: decayDbPerS > 0 ? 60 / decayDbPerS : null,
+    r2: fit.r2,
+    startS: startIndex / sampleRate,
+    endS: (startIndex + length) / sampleRate,
+    stabilityCents: boundCents,
+    beatHz: null,
+    snrDb: span.levelDb - span.noiseFloorDb,
+    frames: times.length,
+    modulationHz: null,
+    modulationDepthDb: null,
+    crossCheckCents: delta,
+    uncertaintyCents: Math.hypot(boundCents, delta / Math.SQRT2),
+    uncertaintyDecayPct: decayDbPerS > 0 ? (100 * Math.hypot(second.decaySdDbPerS, (second.decayDbPerS - decayDbPerS) / Math.SQRT2)) / decayDbPerS : null,
+  }
+}

@@ -1,0 +1,60 @@
+import { describe, expect, it } from 'vitest'
+import { centsBetween } from '../../../../shared/analysis/centsBetween'
+import { longSpectrumPeaks } from '../../../../shared/analysis/longSpectrumPeaks'
+import { measureLongPeak } from '../../../../shared/analysis/measureLongPeak'
+import { windowSpan } from '../../../../shared/analysis/windowSpan'
+import { synthStrike } from '../../../support/synthStrike'
+
+const sampleRate = 48000
+const onsetIndex = 2400
+const startIndex = 2640
+const length = sampleRate
+
+function measure(x: Float64Array, frequencyHz: number) {
+  const { windowed } = windowSpan(x, startIndex, length, 0, 0)
+  return measureLongPeak(x, sampleRate, frequencyHz, { windowed, startIndex, onsetIndex, halfWidthHz: 4, levelDb: -40, noiseFloorDb: -120 })
+}
+
+describe('measureLongPeak', () => {
+  it.each([1, 2, 3])('reads a damped partial beside a stronger one 9 Hz away: frequency, decay, onset amplitude (seed %i)', (seed) => {
+    // Exact synthetic strike, Σ A·10^(−d t/20)·cos(2πft + φ); the answers are its parameters.
+    const weak = { frequencyHz: 255.5, amplitudeDb: -34, decayDbPerS: 18 }
+    const x = synthStrike([{ frequencyHz: 246.5, amplitudeDb: -28, decayDbPerS: 10 }, weak], { sampleRate, durationS: 2, onsetS: onsetIndex / sampleRate, noiseDb: -85, seed })
+    const p = measureLongPeak(x, sampleRate, 255.3, { windowed: windowSpan(x, startIndex, length, 0, 0).windowed, startIndex, onsetIndex, halfWidthHz: 4, levelDb: -40, noiseFloorDb: -120 })!
+    expect(Math.abs(centsBetween(p.frequencyHz, weak.frequencyHz))).toBeLessThan(0.1)
+    expect(Math.abs(p.decayDbPerS / weak.decayDbPerS - 1)).toBeLessThan(0.05)
+    expect(Math.abs(p.amplitudeDb - weak.amplitudeDb)).toBeLessThan(0.5)
+    expect(p.t60S).toBeCloseTo(60 / p.decayDbPerS, 10)
+    // Five half-length windows give the decay; the span is the long window's.
+    expect(p.frames).toBe(5)
+    expect(p.startS).toBeCloseTo(startIndex / sampleRate, 10)
+    expect(p.endS).toBeCloseTo((startIndex + length) / sampleRate, 10)
+    expect(Math.abs(p.crossCheckCents!)).toBeLessThan(0.1)
+    expect(p.uncertaintyDecayPct!).toBeLessThan(10)
+  }, 30_000)
+
+  it('reads the decay of a partial that sinks into the noise within the long window from the frames over the floor', () => {
+    // 120 dB/s from −12 dB: in the noise (−60 dB RMS, about −95 dB per line over 0.5 s) from about 0.6 s on.
+    const fast = { frequencyHz: 255.5, amplitudeDb: -12, decayDbPerS: 120 }
+    const x = synthStrike([{ frequencyHz: 246.5, amplitudeDb: -20, decayDbPerS: 10 }, fast], { sampleRate, durationS: 2, onsetS: onsetIndex / sampleRate, noiseDb: -60, seed: 5 })
+    const peak = longSpectrumPeaks(x, sampleRate, { startIndex, length, minFrequencyHz: 20, maxFrequencyHz: 2000, belowStrongestDb: 40, noiseMarginDb: 20 })
+      .find(q => Math.abs(q.frequencyHz - fast.frequencyHz) < 1)!
+    const p = measureLongPeak(x, sampleRate, peak.frequencyHz, { windowed: windowSpan(x, startIndex, length, 0, 0).windowed, startIndex, onsetIndex, halfWidthHz: 4, levelDb: peak.levelDb, noiseFloorDb: peak.noiseFloorDb })!
+    expect(p.frames).toBeLessThan(5)
+    expect(Math.abs(p.decayDbPerS / fast.decayDbPerS - 1)).toBeLessThan(0.1)
+    expect(Math.abs(p.amplitudeDb - fast.amplitudeDb)).toBeLessThan(1)
+  }, 30_000)
+
+  it.each([9, 10, 11])('gives no reading where the pencil finds no component (seeded noise alone, seed %i)', (seed) => {
+    const x = synthStrike([], { sampleRate, durationS: 2, noiseDb: -60, seed })
+    expect(measure(x, 300)).toBeNull()
+  }, 30_000)
+
+  it('refuses a frequency outside the band and a window outside the signal', () => {
+    const x = new Float64Array(2 * sampleRate)
+    expect(() => measure(x, 0)).toThrow(RangeError)
+    expect(() => measure(x, sampleRate)).toThrow(RangeError)
+    const windowed = new Float64Array(length)
+    expect(() => measureLongPeak(x, sampleRate, 300, { windowed, startIndex: 2 * sampleRate - 10, onsetIndex, halfWidthHz: 4, levelDb: -40, noiseFloorDb: -120 })).toThrow(RangeError)
+  })
+})
