@@ -2,7 +2,7 @@ import { MAIN_LOBE_BINS } from './chooseWindow'
 import type { LongPeak } from './longSpectrumPeaks'
 import { measureLongPeak } from './measureLongPeak'
 import type { MeasuredPartial } from './types'
-import { windowSpan } from './windowSpan'
+import { windowBand } from './windowBand'
 
 export interface LongLookSettings {
   /** The long window: first sample and length, and the onset (amplitudes refer to it). */
@@ -60,12 +60,15 @@ export function findLongLookPartials(
     && peaks.some(other => other !== peak && Math.abs(other.frequencyHz - peak.frequencyHz) < bandLobeHz)
     && !isSideband(peak, peaks, partials, settings.maxModulationHz, sampleRate / length))
   if (candidates.length === 0) return []
-  const { windowed } = windowSpan(signal, startIndex, length, 0, 0)
+  // The input as a band of factor 1 (bandSource's own form for the input rate): one window serves every candidate.
+  const input = { re: signal, im: new Float64Array(signal.length), sampleRateHz: sampleRate, centerHz: 0, factor: 1, firstIndex: 0, real: true }
+  const windowed = windowBand(input, startIndex, length)
   const found: MeasuredPartial[] = []
   for (const peak of candidates) {
     const nearestHz = Math.min(Infinity, ...peaks.filter(o => o !== peak).map(o => Math.abs(o.frequencyHz - peak.frequencyHz)))
     const reading = measureLongPeak(signal, sampleRate, peak.frequencyHz, {
       windowed,
+      input,
       startIndex,
       onsetIndex: settings.onsetIndex,
       halfWidthHz: Math.max(lobeHz / 2, Math.min(nearestHz / 2, lobeHz)),

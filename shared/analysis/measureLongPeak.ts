@@ -2,16 +2,19 @@ import { BLACKMAN_HARRIS_COEFFICIENTS } from './blackmanHarris'
 import { centsBetween } from './centsBetween'
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import { decayingWindowGain } from './decayingWindowGain'
-import { dtftAt } from './dtftAt'
+import { basebandDtft } from './basebandDtft'
 import { estimateBand, type BandEstimate } from './estimateBand'
 import { fitLine } from './fitLine'
 import { refinePeak } from './refinePeak'
 import type { MeasuredPartial } from './types'
-import { windowSpan } from './windowSpan'
+import type { Baseband, DecimatedBand } from './decimateBand'
+import { windowBand } from './windowBand'
 
 export interface LongPeakSpan {
-  /** `signal[startIndex … startIndex + length)` times a Blackman–Harris window of that length (windowSpan). */
-  windowed: Float64Array
+  /** `signal[startIndex … startIndex + length)` times a Blackman–Harris window of that length (windowBand of `input`). */
+  windowed: Baseband
+  /** The input signal as a band of factor 1 (what bandSource gives at the input's rate). */
+  input: DecimatedBand
   startIndex: number
   onsetIndex: number
   /** Half-width of the band the pencil reads, Hz (about half the way to the nearest other peak). */
@@ -41,10 +44,10 @@ const FIT_MARGIN_DB = 15
  */
 export function measureLongPeak(signal: Float64Array, sampleRate: number, frequencyHz: number, span: LongPeakSpan): MeasuredPartial | null {
   const { windowed, startIndex, onsetIndex } = span
-  const length = windowed.length
+  const length = windowed.re.length
   if (!(frequencyHz > 0 && frequencyHz < sampleRate / 2)) throw new RangeError('measureLongPeak needs a frequency inside the recording\'s band')
   if (!(length >= 64 && startIndex >= 0 && startIndex + length <= signal.length)) throw new RangeError('measureLongPeak needs a window inside the signal')
-  const peak = refinePeak(windowed, sampleRate, frequencyHz)
+  const peak = refinePeak(windowed, frequencyHz)
   let band: BandEstimate | null = null
   try {
     band = estimateBand(signal, sampleRate, peak.frequencyHz, { startIndex, endIndex: startIndex + length, halfWidthHz: span.halfWidthHz, referenceIndex: onsetIndex })
@@ -60,7 +63,6 @@ export function measureLongPeak(signal: Float64Array, sampleRate: number, freque
   const second = near.reduce((a, b) => (b.amplitude > a.amplitude ? b : a))
 
   const half = Math.floor(length / 2)
-  const buffer = new Float64Array(half)
   // |X| of a sinusoid of amplitude A is A·Σw/2, Σw = a₀·N for the periodic window; noise gains 3 dB on a sinusoid in half the length.
   const gainDb = 20 * Math.log10(2 / (BLACKMAN_HARRIS_COEFFICIENTS[0] * half))
   const minLevelDb = span.noiseFloorDb + 10 * Math.log10(length / half) + FIT_MARGIN_DB
@@ -68,7 +70,7 @@ export function measureLongPeak(signal: Float64Array, sampleRate: number, freque
   const levels: number[] = []
   for (const at of DECAY_FRAMES) {
     const start = startIndex + Math.round(at * length)
-    const x = dtftAt(windowSpan(signal, start, half, 0, 0, buffer).windowed, peak.frequencyHz, sampleRate)
+    const [x] = basebandDtft(windowBand(span.input, start, half), [peak.frequencyHz]) as [{ re: number, im: number }]
     const levelDb = 10 * Math.log10(x.re * x.re + x.im * x.im + Number.MIN_VALUE) + gainDb
     if (levelDb < minLevelDb) continue
     times.push((start + half / 2) / sampleRate)

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { centsBetween } from '../../../../shared/analysis/centsBetween'
 import { longSpectrumPeaks } from '../../../../shared/analysis/longSpectrumPeaks'
 import { measureLongPeak } from '../../../../shared/analysis/measureLongPeak'
-import { windowSpan } from '../../../../shared/analysis/windowSpan'
+import { windowBand } from '../../../../shared/analysis/windowBand'
 import { synthStrike } from '../../../support/synthStrike'
 
 const sampleRate = 48000
@@ -10,9 +10,14 @@ const onsetIndex = 2400
 const startIndex = 2640
 const length = sampleRate
 
+/** The input as a band of factor 1 and its long window from `startIndex`. */
+function spanOf(x: Float64Array) {
+  const input = { re: x, im: new Float64Array(x.length), sampleRateHz: sampleRate, centerHz: 0, factor: 1, firstIndex: 0, real: true }
+  return { input, windowed: windowBand(input, startIndex, length) }
+}
+
 function measure(x: Float64Array, frequencyHz: number) {
-  const { windowed } = windowSpan(x, startIndex, length, 0, 0)
-  return measureLongPeak(x, sampleRate, frequencyHz, { windowed, startIndex, onsetIndex, halfWidthHz: 4, levelDb: -40, noiseFloorDb: -120 })
+  return measureLongPeak(x, sampleRate, frequencyHz, { ...spanOf(x), startIndex, onsetIndex, halfWidthHz: 4, levelDb: -40, noiseFloorDb: -120 })
 }
 
 describe('measureLongPeak', () => {
@@ -20,7 +25,7 @@ describe('measureLongPeak', () => {
     // Exact synthetic strike, Σ A·10^(−d t/20)·cos(2πft + φ); the answers are its parameters.
     const weak = { frequencyHz: 255.5, amplitudeDb: -34, decayDbPerS: 18 }
     const x = synthStrike([{ frequencyHz: 246.5, amplitudeDb: -28, decayDbPerS: 10 }, weak], { sampleRate, durationS: 2, onsetS: onsetIndex / sampleRate, noiseDb: -85, seed })
-    const p = measureLongPeak(x, sampleRate, 255.3, { windowed: windowSpan(x, startIndex, length, 0, 0).windowed, startIndex, onsetIndex, halfWidthHz: 4, levelDb: -40, noiseFloorDb: -120 })!
+    const p = measureLongPeak(x, sampleRate, 255.3, { ...spanOf(x), startIndex, onsetIndex, halfWidthHz: 4, levelDb: -40, noiseFloorDb: -120 })!
     expect(Math.abs(centsBetween(p.frequencyHz, weak.frequencyHz))).toBeLessThan(0.1)
     expect(Math.abs(p.decayDbPerS / weak.decayDbPerS - 1)).toBeLessThan(0.05)
     expect(Math.abs(p.amplitudeDb - weak.amplitudeDb)).toBeLessThan(0.5)
@@ -39,7 +44,7 @@ describe('measureLongPeak', () => {
     const x = synthStrike([{ frequencyHz: 246.5, amplitudeDb: -20, decayDbPerS: 10 }, fast], { sampleRate, durationS: 2, onsetS: onsetIndex / sampleRate, noiseDb: -60, seed: 5 })
     const peak = longSpectrumPeaks(x, sampleRate, { startIndex, length, minFrequencyHz: 20, maxFrequencyHz: 2000, belowStrongestDb: 40, noiseMarginDb: 20 })
       .find(q => Math.abs(q.frequencyHz - fast.frequencyHz) < 1)!
-    const p = measureLongPeak(x, sampleRate, peak.frequencyHz, { windowed: windowSpan(x, startIndex, length, 0, 0).windowed, startIndex, onsetIndex, halfWidthHz: 4, levelDb: peak.levelDb, noiseFloorDb: peak.noiseFloorDb })!
+    const p = measureLongPeak(x, sampleRate, peak.frequencyHz, { ...spanOf(x), startIndex, onsetIndex, halfWidthHz: 4, levelDb: peak.levelDb, noiseFloorDb: peak.noiseFloorDb })!
     expect(p.frames).toBeLessThan(5)
     expect(Math.abs(p.decayDbPerS / fast.decayDbPerS - 1)).toBeLessThan(0.1)
     expect(Math.abs(p.amplitudeDb - fast.amplitudeDb)).toBeLessThan(1)
@@ -54,7 +59,8 @@ describe('measureLongPeak', () => {
     const x = new Float64Array(2 * sampleRate)
     expect(() => measure(x, 0)).toThrow(RangeError)
     expect(() => measure(x, sampleRate)).toThrow(RangeError)
-    const windowed = new Float64Array(length)
-    expect(() => measureLongPeak(x, sampleRate, 300, { windowed, startIndex: 2 * sampleRate - 10, onsetIndex, halfWidthHz: 4, levelDb: -40, noiseFloorDb: -120 })).toThrow(RangeError)
+    const input = { re: x, im: new Float64Array(x.length), sampleRateHz: sampleRate, centerHz: 0, factor: 1, firstIndex: 0, real: true }
+    const windowed = { re: new Float64Array(length), im: new Float64Array(length), sampleRateHz: sampleRate, centerHz: 0, real: true }
+    expect(() => measureLongPeak(x, sampleRate, 300, { windowed, input, startIndex: 2 * sampleRate - 10, onsetIndex, halfWidthHz: 4, levelDb: -40, noiseFloorDb: -120 })).toThrow(RangeError)
   })
 })
