@@ -7,33 +7,30 @@ import type { TrackMeasurement } from './measureTrack'
  * hold it (within half the faster window's main lobe), the faster band's reading replaces
  * the slower one when the partial falls more than `maxDropPerWindowDb` within one slower
  * window: such a window smears the decay and so misreads decay and onset amplitude.
- * A slower partial is held by the faster partial nearest to it only: two partials the
- * faster band resolved are two partials, so a neighbour inside the same half lobe (a
- * fast-dying mode 48 Hz under a steel note's fundamental) is added, never taken for it.
+ * Only the faster partial nearest to a slower one may replace it, and a faster partial is
+ * compared with the slower bands' partials only: a pair the faster band split inside its
+ * main lobe (a fast-dying ring 48 Hz under a steel note's fundamental in a 75 ms window)
+ * must not put its weaker member in the place of the fundamental.
  */
 export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindowDb: number): TrackMeasurement[] {
   const merged = [...(bands[0] ?? [])]
   for (let b = 1; b < bands.length; b++) {
     const fastBand = bands[b]!
     const slowCount = merged.length
-    const reachHz = (fast: TrackMeasurement) => MAIN_LOBE_BINS / 2 / fast.windowS
+    const distance = (i: number, fast: TrackMeasurement) => Math.abs(merged[i]!.frequencyHz - fast.frequencyHz)
     // The faster partial nearest to each slower one: the only one that can be the same partial.
-    const holder = new Map<number, TrackMeasurement>()
+    const holder: (TrackMeasurement | undefined)[] = []
     for (let i = 0; i < slowCount; i++) {
-      let best: TrackMeasurement | undefined
-      for (const fast of fastBand) {
-        if (!best || Math.abs(fast.frequencyHz - merged[i]!.frequencyHz) < Math.abs(best.frequencyHz - merged[i]!.frequencyHz)) best = fast
-      }
-      if (best) holder.set(i, best)
+      for (const fast of fastBand) if (!holder[i] || distance(i, fast) < distance(i, holder[i]!)) holder[i] = fast
     }
     for (const fast of fastBand) {
+      const reachHz = MAIN_LOBE_BINS / 2 / fast.windowS
       let nearest = -1
       for (let i = 0; i < slowCount; i++) {
-        const distance = Math.abs(merged[i]!.frequencyHz - fast.frequencyHz)
-        if (holder.get(i) === fast && distance < reachHz(fast) && (nearest < 0 || distance < Math.abs(merged[nearest]!.frequencyHz - fast.frequencyHz))) nearest = i
+        if (distance(i, fast) < reachHz && (nearest < 0 || distance(i, fast) < distance(nearest, fast))) nearest = i
       }
       if (nearest < 0) merged.push(fast)
-      else if (fast.decayDbPerS * merged[nearest]!.windowS > maxDropPerWindowDb) merged[nearest] = fast
+      else if (holder[nearest] === fast && fast.decayDbPerS * merged[nearest]!.windowS > maxDropPerWindowDb) merged[nearest] = fast
     }
   }
   return merged
