@@ -1,8 +1,8 @@
 // The reference partials of a recording by the rules of tests/fixtures/real/README.md:
 // of the plain reading's peaks within 30 dB of the strongest, a peak closer than
 // max(15 Hz, 1 %) to a stronger one is its sideband or lobe, and so is a peak up to 50 Hz
-// from a stronger one with a mirror image on the other side (a modulation's pair, as the
-// patch loops of the README's xylophone-c6); of the rest, the three lowest of the five strongest. Used to read many recordings without a hand at each.
+// from a stronger one with a mirror image on the other side, within 10 % of the offset (a
+// modulation's pair, as the patch loops of the README's xylophone-c6); of the rest, the three lowest of the five strongest. Used to read many recordings without a hand at each.
 import { referenceReading, type ReadingPeak } from './referenceReading'
 
 export const READING_RANGE_DB = 30
@@ -57,7 +57,7 @@ function isMirrored(peaks: readonly ReadingPeak[], carrierHz: number, frequencyH
   const offsetHz = frequencyHz - carrierHz
   if (Math.abs(offsetHz) > 50) return false
   const mirrorHz = carrierHz - offsetHz
-  return peaks.some(q => Math.abs(q.frequencyHz - mirrorHz) < Math.max(1, 0.001 * mirrorHz))
+  return peaks.some(q => Math.abs(q.frequencyHz - mirrorHz) < Math.max(1, 0.1 * Math.abs(offsetHz)))
 }
 
 /** The three lowest of the five strongest partials, lowest first. */
