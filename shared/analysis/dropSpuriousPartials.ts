@@ -25,7 +25,12 @@ export interface HonestPartials {
  * - a track whose frequency spreads (RMS) over more than a quarter of its window's main
  *   lobe (2 bins of a Blackman–Harris window, Harris 1978): one partial read at an SNR of
  *   20 dB or more stays within a small fraction of a bin (Rife & Boorstyn 1974), so such a
- *   track chains different peaks (noise, overlapping skirts), not one sinusoid;
+ *   track chains different peaks (noise, overlapping skirts), not one sinusoid — unless
+ *   its spectrum showed the symmetric sidebands of a vibrato (measureModulation): a
+ *   frequency-modulated partial swings by its peak deviation (RMS spread = deviation / √2),
+ *   and while the deviation stays within twice the rate (index β ≤ 2) its first sidebands
+ *   are the strongest (J₁(2) > J₂(2)), as measureModulation saw them; so it may spread up to
+ *   √2 × its rate (a sampled glockenspiel's 9 kHz partial with a 14 Hz vibrato spreads 18 Hz);
  * - a steady line — not decaying (under `steadyDecayDbPerS`) and not following a decay line
  *   (r² under `steadyR2`) — more than `steadyBelowDb` under the strongest partial: a
  *   struck piece's modes decay from the blow, while hum, a sampled note's loop artefacts or
@@ -43,7 +48,8 @@ export function dropSpuriousPartials(partials: readonly TrackMeasurement[], sett
   for (const p of partials) {
     const spreadHz = (p.frequencyHz * (2 ** (p.stabilityCents / 1200) - 1))
     const binHz = 1 / p.windowS
-    if (spreadHz > (MAIN_LOBE_BINS / 4) * binHz) wandering++
+    const vibratoHz = p.modulationFrom === 'sidebands' ? Math.SQRT2 * (p.modulationHz ?? 0) : 0
+    if (spreadHz > Math.max((MAIN_LOBE_BINS / 4) * binHz, vibratoHz)) wandering++
     else if (p.decayDbPerS < settings.steadyDecayDbPerS && p.r2 < settings.steadyR2 && p.amplitudeDb < settings.strongestDb - settings.steadyBelowDb) steady++
     else if (p.amplitudeDb < settings.strongestDb - settings.faintBelowDb && p.snrDb < settings.faintMinSnrDb) faint++
     else kept.push(p)

@@ -7,19 +7,30 @@ import type { TrackMeasurement } from './measureTrack'
  * hold it (within half the faster window's main lobe), the faster band's reading replaces
  * the slower one when the partial falls more than `maxDropPerWindowDb` within one slower
  * window: such a window smears the decay and so misreads decay and onset amplitude.
+ * Only the faster partial nearest to a slower one may replace it: a pair the faster band
+ * split inside its main lobe (a fast-dying ring 48 Hz under a steel note's fundamental in
+ * a 75 ms window) must not put its weaker member in the place of the fundamental, nor
+ * leave the fundamental out because the ring took its place first.
  */
 export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindowDb: number): TrackMeasurement[] {
   const merged = [...(bands[0] ?? [])]
   for (let b = 1; b < bands.length; b++) {
-    for (const fast of bands[b]!) {
+    const fastBand = bands[b]!
+    const slowCount = merged.length
+    const distance = (i: number, fast: TrackMeasurement) => Math.abs(merged[i]!.frequencyHz - fast.frequencyHz)
+    // The faster partial nearest to each slower one: the only one that can be the same partial.
+    const holder: (TrackMeasurement | undefined)[] = []
+    for (let i = 0; i < slowCount; i++) {
+      for (const fast of fastBand) if (!holder[i] || distance(i, fast) < distance(i, holder[i]!)) holder[i] = fast
+    }
+    for (const fast of fastBand) {
       const reachHz = MAIN_LOBE_BINS / 2 / fast.windowS
       let nearest = -1
       for (let i = 0; i < merged.length; i++) {
-        const distance = Math.abs(merged[i]!.frequencyHz - fast.frequencyHz)
-        if (distance < reachHz && (nearest < 0 || distance < Math.abs(merged[nearest]!.frequencyHz - fast.frequencyHz))) nearest = i
+        if (distance(i, fast) < reachHz && (nearest < 0 || distance(i, fast) < distance(nearest, fast))) nearest = i
       }
       if (nearest < 0) merged.push(fast)
-      else if (fast.decayDbPerS * merged[nearest]!.windowS > maxDropPerWindowDb) merged[nearest] = fast
+      else if (nearest < slowCount && holder[nearest] === fast && fast.decayDbPerS * merged[nearest]!.windowS > maxDropPerWindowDb) merged[nearest] = fast
     }
   }
   return merged

@@ -42,11 +42,11 @@ function tool(name: string): string {
   throw new Error(`${name} is not installed; run scripts/test.sh once (it installs timidity, freepats, sox and sonic-pi-samples) or apt-get install them`)
 }
 
-/** Path of the fixture's WAV file, made on first use. */
-export function realFixturePath(fixture: Pick<RealFixture, 'id' | 'source'>): string {
-  const out = join(REAL_FIXTURE_DIR, `${fixture.id}.wav`)
+/** Path of the fixture's WAV file, made on first use (in `cacheDir`, the fixtures' cache unless told). */
+export function realFixturePath(fixture: Pick<RealFixture, 'id' | 'source'>, cacheDir = REAL_FIXTURE_DIR): string {
+  const out = join(cacheDir, `${fixture.id}.wav`)
   if (existsSync(out)) return out
-  mkdirSync(REAL_FIXTURE_DIR, { recursive: true })
+  mkdirSync(cacheDir, { recursive: true })
   const partial = `${out}.${process.pid}.tmp.wav`
   const source = fixture.source
   if (source.kind === 'freepats') {

@@ -29,6 +29,20 @@ describe('dropSpuriousPartials', () => {
     expect(out.warnings.join(' ')).toMatch(/1 track not reported: frequency wandering/)
   })
 
+  it('lets a partial with a vibrato (symmetric sidebands) swing by up to twice its rate', () => {
+    // A freepats glockenspiel A6's 9065 Hz partial: 14.35 Hz vibrato, 0.125 s window (2 bins = 16 Hz),
+    // frame frequencies spread (RMS) 3.4 ¢ = 17.8 Hz, a peak deviation of 17.8·√2 = 25 Hz < 2 × 14.35 Hz.
+    // Up to index β = 2 the first sidebands stay the strongest: J1(2) = 0.5767 > J2(2) = 0.3528
+    // (source: Abramowitz & Stegun, Handbook of Mathematical Functions, table 9.1).
+    const vibrato = { frequencyHz: 9065, windowS: 0.125, stabilityCents: 3.4, modulationHz: 14.35 }
+    const withSidebands = partial({ ...vibrato, modulationFrom: 'sidebands' })
+    const beating = partial({ ...vibrato, modulationFrom: 'pair' })
+    const tooWide = partial({ ...vibrato, stabilityCents: 6, modulationFrom: 'sidebands' }) // 31 Hz RMS, 44 Hz peak > 2 × 14.35 Hz
+    const out = dropSpuriousPartials([withSidebands, beating, tooWide], settings)
+    expect(out.kept).toEqual([withSidebands])
+    expect(out.warnings.join(' ')).toMatch(/2 tracks not reported: frequency wandering/)
+  })
+
   it('leaves out a steady line far under the strike, and faint readings barely over the noise', () => {
     const hum = partial({ frequencyHz: 100, amplitudeDb: -62, decayDbPerS: 0.2, r2: 0.05 })
     const strongSteady = partial({ frequencyHz: 784, amplitudeDb: -10, decayDbPerS: 1, r2: 0.58 }) // the strike's own strongest
