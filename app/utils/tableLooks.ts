@@ -29,7 +29,7 @@ export const UPLOAD_TABLE = {
   tableClass: 'w-full text-sm',
   headClass: 'text-left text-ink-faint',
   headPad: 'py-1',
-  pad: 'py-2 pr-2',
+  pad: 'py-2',
   rowClass: 'border-t border-paper-line align-top',
 } as const
 
