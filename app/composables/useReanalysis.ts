@@ -1,5 +1,6 @@
 import type { ReanalysisResult } from '#shared/reanalysis/types'
 import type { ReanalysisScope, ReanalysisStatus } from '#shared/records/lists'
+import { toValue, type MaybeRefOrGetter } from 'vue'
 
 export interface ReanalysisRunView {
   id: string
@@ -15,8 +16,11 @@ export interface ReanalysisRunView {
   result: ReanalysisResult | null
 }
 
-/** A set's or a piece's latest re-measurement: start one, follow it until it ends, then tell the page. */
-export function useReanalysis(scope: ReanalysisScope, id: string, onFinished: () => void) {
+/**
+ * A set's or a piece's latest re-measurement: start one, follow it until it ends, then tell the page.
+ * `load` false: nothing is asked on mount (a member who may not re-measure).
+ */
+export function useReanalysis(scope: ReanalysisScope, id: string, onFinished: () => void, load: MaybeRefOrGetter<boolean> = true) {
   const api = useApiFetch()
   const run = ref<ReanalysisRunView | null>(null)
   const problem = ref<string | null>(null)
@@ -39,7 +43,7 @@ export function useReanalysis(scope: ReanalysisScope, id: string, onFinished: ()
     }, 1000)
   }
 
-  async function load() {
+  async function loadLatest() {
     try {
       run.value = (await api<{ run: ReanalysisRunView | null }>('/api/reanalysis', { query: { [scope]: id } })).run
       follow()
@@ -64,7 +68,9 @@ export function useReanalysis(scope: ReanalysisScope, id: string, onFinished: ()
     }
   }
 
-  onMounted(load)
+  onMounted(() => {
+    if (toValue(load)) void loadLatest()
+  })
   onBeforeUnmount(() => {
     if (timer) clearTimeout(timer)
   })

@@ -5,7 +5,8 @@
  * the verdicts (within, sharp, flat: an orange/blue pair stays distinguishable for the
  * common colour-vision deficiencies, and shape and text carry the verdict as well);
  * brass is the accent and the mark of advice (where to remove material); madder is for errors, heather for notices, lagoon for what is
- * finished well, mulberry for what was sent back or withdrawn.
+ * finished well, mulberry for what was sent back or withdrawn. The chart series (walnut, olive, rose, steel) stand for no
+ * meaning: they only tell one curve from another.
  */
 export const PALETTE = {
   paper: { DEFAULT: '#f6f3ec', deep: '#ece6d9', line: '#d9d0bd' },
@@ -18,6 +19,7 @@ export const PALETTE = {
   heather: { 50: '#f0ecf7', 100: '#dcd2ec', 500: '#6b4fa3', 700: '#463372' },
   lagoon: { 50: '#e5f2f3', 100: '#c2e0e3', 400: '#3e97a0', 500: '#1f7580', 600: '#1a636b', 700: '#134a50' },
   mulberry: { 50: '#f6e9f1', 100: '#e9c9dd', 500: '#8f3a72', 700: '#64264f' },
+  series: { walnut: '#7a4e2d', olive: '#66761f', rose: '#b0607a', steel: '#4f6e7a' },
 } as const
 
 /** Plain white, for paper-white cards, e-mail bodies and the QR code's light modules. */
@@ -45,8 +47,12 @@ export function withAlpha(colour: string, alpha: number): string {
   return `rgba(${r},${g},${b},${alpha})`
 }
 
-/** Series colours for charts with several lines (decay curves), in the order they are used. */
-export const SERIES_TONES: readonly Tone[] = ['ink', 'spruce-600', 'kiln-500', 'slate-500', 'brass-500', 'ink-faint']
+/**
+ * Series colours for charts with several lines (decay curves), in the order they are used: the
+ * neutral inks and the series family, never a verdict, stage, status or message colour, so a
+ * curve never looks within, sharp or flat.
+ */
+export const SERIES_TONES: readonly Tone[] = ['ink', 'series-walnut', 'series-olive', 'series-rose', 'series-steel', 'ink-faint']
 
 /**
  * Chart parts that are not verdicts: the trace, the template's targets and the measured

@@ -3,7 +3,7 @@ import {
   CERTIFICATE_MEANING, CERTIFICATE_PDF_MEANING, lookClassNames, lookHex, lookTones, MAIL_MEANING, MEANINGS,
   NEUTRAL_FAMILIES, PARTIAL_MEANING, REANALYSIS_MEANING, STAGE_MEANING, verdictMeaning, type Look, type Meaning,
 } from '../../../../shared/look/meanings'
-import { hex, PALETTE } from '../../../../shared/look/palette'
+import { familyOf, hex, PALETTE, SERIES_TONES } from '../../../../shared/look/palette'
 import {
   CERTIFICATE_PDF_STATUSES, CERTIFICATE_STATUSES, MAIL_STATUSES, PARTIAL_STATES, PIECE_VERDICTS, REANALYSIS_STATUSES,
 } from '../../../../shared/records/lists'
@@ -106,6 +106,16 @@ describe('the palette', () => {
     const values = Object.values(PALETTE).flatMap(f => Object.values(f) as string[])
     expect(values.every(v => /^#[0-9a-f]{6}$/.test(v))).toBe(true)
     expect(new Set(values).size).toBe(values.length)
+  })
+
+  it('draws chart series in colours of their own, apart from every meaning', () => {
+    // A decay curve is not a verdict: no series may take a family a meaning uses (ink and paper are neutral).
+    const meaningFamilies = new Set(entries.flatMap(([, l]) => lookTones(l).map(t => t.family)))
+    for (const family of NEUTRAL_FAMILIES) meaningFamilies.delete(family)
+    expect(SERIES_TONES.filter(t => meaningFamilies.has(familyOf(t)))).toEqual([])
+    expect(new Set(SERIES_TONES.map(hex)).size).toBe(SERIES_TONES.length)
+    // source: WCAG 2.1 success criterion 1.4.11 (non-text contrast): 3:1 for graphical objects.
+    for (const tone of SERIES_TONES) expect(contrast(hex(tone), PALETTE.paper.DEFAULT), tone).toBeGreaterThanOrEqual(3)
   })
 
   it('reads tones as Tailwind spells them', () => {

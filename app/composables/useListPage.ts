@@ -1,0 +1,12 @@
+import { computed } from 'vue'
+import { LIST_PAGES, type ListKind } from '~/utils/listPages'
+import { useMember } from './useMember'
+
+/** A record list's page or its adding page: the words from LIST_PAGES, the tab's title, whether the member may add. */
+export function useListPage(kind: ListKind, which: 'list' | 'new') {
+  const page = LIST_PAGES[kind]
+  const title = which === 'list' ? page.title : page.newTitle
+  const { can } = useMember()
+  useHead({ title: `${title} · Tonewright` })
+  return { page, title, mayAdd: computed(() => can(page.permission)) }
+}
