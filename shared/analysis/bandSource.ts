@@ -1,4 +1,5 @@
 import { decimateBand, type DecimatedBand } from './decimateBand'
+import { inputBand } from './inputBand'
 import { nextPowerOfTwo } from './nextPowerOfTwo'
 import { realFft } from './realFft'
 
@@ -40,7 +41,7 @@ export function bandSource(signal: Float64Array, sampleRate: number, kept = DEFA
     const bins = nextPowerOfTwo(Math.max(16, Math.ceil((8 * halfWidthHz) / (3 * binHz)), Math.ceil(fftSize / maxFactor)))
     if (bins > fftSize / MIN_FACTOR || (!spectrum && spentAtInputRate < transformCost)) {
       spentAtInputRate += PASSES_PER_SPAN * spanLength
-      full ??= { re: signal, im: new Float64Array(signal.length), sampleRateHz: sampleRate, centerHz: 0, factor: 1, firstIndex: 0, real: true }
+      full ??= inputBand(signal, sampleRate)
       return full
     }
     if (!spectrum) {

@@ -1,4 +1,5 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
+import { inputBand } from './inputBand'
 import type { LongPeak } from './longSpectrumPeaks'
 import { measureLongPeak } from './measureLongPeak'
 import type { MeasuredPartial } from './types'
@@ -60,8 +61,8 @@ export function findLongLookPartials(
     && peaks.some(other => other !== peak && Math.abs(other.frequencyHz - peak.frequencyHz) < bandLobeHz)
     && !isSideband(peak, peaks, partials, settings.maxModulationHz, sampleRate / length))
   if (candidates.length === 0) return []
-  // The input as a band of factor 1 (bandSource's own form for the input rate): one window serves every candidate.
-  const input = { re: signal, im: new Float64Array(signal.length), sampleRateHz: sampleRate, centerHz: 0, factor: 1, firstIndex: 0, real: true }
+  // One window over the input at its own rate serves every candidate.
+  const input = inputBand(signal, sampleRate)
   const windowed = windowBand(input, startIndex, length)
   const found: MeasuredPartial[] = []
   for (const peak of candidates) {

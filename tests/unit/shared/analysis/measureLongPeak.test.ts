@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { centsBetween } from '../../../../shared/analysis/centsBetween'
 import { longSpectrumPeaks } from '../../../../shared/analysis/longSpectrumPeaks'
 import { measureLongPeak } from '../../../../shared/analysis/measureLongPeak'
+import { inputBand } from '../../../../shared/analysis/inputBand'
 import { windowBand } from '../../../../shared/analysis/windowBand'
 import { synthStrike } from '../../../support/synthStrike'
 
@@ -12,7 +13,7 @@ const length = sampleRate
 
 /** The input as a band of factor 1 and its long window from `startIndex`. */
 function spanOf(x: Float64Array) {
-  const input = { re: x, im: new Float64Array(x.length), sampleRateHz: sampleRate, centerHz: 0, factor: 1, firstIndex: 0, real: true }
+  const input = inputBand(x, sampleRate)
   return { input, windowed: windowBand(input, startIndex, length) }
 }
 
@@ -59,7 +60,7 @@ describe('measureLongPeak', () => {
     const x = new Float64Array(2 * sampleRate)
     expect(() => measure(x, 0)).toThrow(RangeError)
     expect(() => measure(x, sampleRate)).toThrow(RangeError)
-    const input = { re: x, im: new Float64Array(x.length), sampleRateHz: sampleRate, centerHz: 0, factor: 1, firstIndex: 0, real: true }
+    const input = inputBand(x, sampleRate)
     const windowed = { re: new Float64Array(length), im: new Float64Array(length), sampleRateHz: sampleRate, centerHz: 0, real: true }
     expect(() => measureLongPeak(x, sampleRate, 300, { windowed, input, startIndex: 2 * sampleRate - 10, onsetIndex, halfWidthHz: 4, levelDb: -40, noiseFloorDb: -120 })).toThrow(RangeError)
   })
