@@ -18,6 +18,12 @@ const MAX_LOOK_S = 1
 const MIN_GAIN = 2
 /** Peaks looked at: within this of the strongest, and over the noise by the bands' margin, dB. */
 const BELOW_STRONGEST_DB = 30
+/**
+ * The spectrum's peaks are listed further down and nearer the floor than that, so that a
+ * candidate's weaker neighbours (which broke up its track) and sideband mirrors are seen, dB.
+ */
+const NEIGHBOURS_BELOW_STRONGEST_DB = 50
+const NEIGHBOURS_NOISE_MARGIN_DB = 10
 
 /**
  * The long look: one Blackman–Harris spectrum over as long as the strike rings (up to 1 s),
@@ -41,8 +47,8 @@ export function addLongLookPartials(
     length,
     minFrequencyHz: plan.range.minHz,
     maxFrequencyHz: plan.range.maxHz,
-    belowStrongestDb: BELOW_STRONGEST_DB,
-    noiseMarginDb: S.noiseMarginDb,
+    belowStrongestDb: NEIGHBOURS_BELOW_STRONGEST_DB,
+    noiseMarginDb: NEIGHBOURS_NOISE_MARGIN_DB,
   })
   const found = findLongLookPartials(mono, sampleRate, peaks, partials, {
     startIndex: strike.startIndex,
@@ -54,6 +60,8 @@ export function addLongLookPartials(
     minDecayDbPerS: S.spurious.steadyDecayDbPerS,
     maxDecayDbPerS: S.maxDecayDbPerS,
     maxModulationHz: 2 * S.modulation.maxRateHz,
+    belowStrongestDb: BELOW_STRONGEST_DB,
+    noiseMarginDb: S.noiseMarginDb,
   })
   const warnings = found.length === 0
     ? []

@@ -20,6 +20,12 @@ export interface LongLookSettings {
   maxDecayDbPerS: number
   /** Fastest modulation whose sidebands are no partials, Hz. */
   maxModulationHz: number
+  /**
+   * Candidates lie within this of the strongest peak and this far over the banded floor, dB;
+   * `peaks` may reach further down, to show weaker neighbours and mirrors (default: every peak is a candidate).
+   */
+  belowStrongestDb?: number
+  noiseMarginDb?: number
 }
 
 /** A peak must stand this far over the dip towards any stronger neighbour, dB (resolved from its lobe). */
@@ -27,15 +33,21 @@ const MIN_PROMINENCE_DB = 6
 /** Orders of a modulation's sidebands looked for around a reported partial, and around a stronger peak. */
 const MAX_SIDEBAND_ORDER = 6
 const MAX_MIRROR_ORDER = 2
+/**
+ * A neighbour inside the slowest band's main lobe counts when it stands at most this far under
+ * the candidate: it then pulls the band's lobe about from frame to frame, so the candidate's
+ * track breaks up (a timpani's dense skirt of weak modes), dB.
+ */
+const NEIGHBOUR_WITHIN_DB = 20
 /** A mirror peak within this of the candidate's level makes a symmetric family, dB. */
 const MIRROR_WITHIN_DB = 10
 
 /**
  * Partials the short-time bands could not resolve, from one long spectrum (its `peaks`,
- * longSpectrumPeaks): a peak is a candidate when no reported partial lies within one main lobe
+ * longSpectrumPeaks): a peak within the candidates' range and margin is a candidate when no reported partial lies within one main lobe
  * of the long window, no stronger peak does either (it would be that peak's skirt), it stands
  * `MIN_PROMINENCE_DB` over the dip towards its stronger neighbours,
- * and another strong peak lies inside the slowest band's main lobe (the bands saw the two
+ * and another peak at most 20 dB under it lies inside the slowest band's main lobe (the bands saw the two
  * as one wandering lobe; a lone peak the bands left out was left out on purpose). A
  * candidate that is one of a symmetric pair around a stronger peak, or k·f_m from a reported
  * partial modulated at f_m, is a sideband (the modulation theorem); a lone companion is a
@@ -55,10 +67,13 @@ export function findLongLookPartials(
   if (!(startIndex >= 0 && length > 0 && startIndex + length <= signal.length)) throw new RangeError('findLongLookPartials needs a window inside the signal')
   const lobeHz = (MAIN_LOBE_BINS * sampleRate) / length
   const bandLobeHz = MAIN_LOBE_BINS / settings.bandWindowS
+  const strongestDb = Math.max(-Infinity, ...peaks.map(p => p.levelDb))
   const candidates = peaks.filter(peak => peak.prominenceDb >= MIN_PROMINENCE_DB
+    && peak.levelDb >= strongestDb - (settings.belowStrongestDb ?? Infinity)
+    && peak.levelDb - peak.noiseFloorDb >= (settings.noiseMarginDb ?? 0)
     && !peaks.some(other => other.levelDb > peak.levelDb && Math.abs(other.frequencyHz - peak.frequencyHz) < lobeHz)
     && !partials.some(p => Math.abs(p.frequencyHz - peak.frequencyHz) < lobeHz)
-    && peaks.some(other => other !== peak && Math.abs(other.frequencyHz - peak.frequencyHz) < bandLobeHz)
+    && peaks.some(other => other !== peak && Math.abs(other.frequencyHz - peak.frequencyHz) < bandLobeHz && other.levelDb >= peak.levelDb - NEIGHBOUR_WITHIN_DB)
     && !isSideband(peak, peaks, partials, settings.maxModulationHz, sampleRate / length))
   if (candidates.length === 0) return []
   // One window over the input at its own rate serves every candidate.
@@ -97,7 +112,7 @@ function isSideband(peak: LongPeak, peaks: readonly LongPeak[], partials: readon
     const gapHz = Math.abs(peak.frequencyHz - carrier.frequencyHz)
     if (carrier.levelDb <= peak.levelDb || gapHz === 0 || gapHz > MAX_MIRROR_ORDER * maxModulationHz) continue
     const mirrorHz = 2 * carrier.frequencyHz - peak.frequencyHz
-    if (peaks.some(m => near(m.frequencyHz, mirrorHz, gapHz) && m.levelDb >= peak.levelDb - MIRROR_WITHIN_DB)) return true
+    if (peaks.some(m => near(m.frequencyHz, mirrorHz, gapHz) && Math.abs(m.levelDb - peak.levelDb) <= MIRROR_WITHIN_DB)) return true
   }
   return partials.some((p) => {
     const rate = p.modulationHz ?? 0

@@ -12,13 +12,25 @@ export interface ResolvedNeeds extends Omit<WindowNeeds, 'spanS' | 'windowS'> {
 /** Rough-pass peaks weaker than the strongest by more than this (noise, leakage, a room's colour) set no needs, dB. */
 const STRONG_DB = 50
 
+/** Lowest partial assumed when the rough pass finds no peak (a gliding drum smears its own), Hz. */
+export const DEFAULT_LOWEST_HZ = 100
+
+/**
+ * A template's lowest partial less than this far under the rough pass's lowest peak is that
+ * peak (a piece off its target, a drum's glide): the window chooseWindow gives the peak
+ * still resolves it from DC with over 1.1 main lobes (its margin is 1.25), so it sets no need of its own.
+ */
+export const SAME_LOWEST_RATIO = 1.1 / 1.25
+
 /**
  * The partials the windows must resolve: those a rough first look at the strike finds and,
  * with a target, the template's expected partials — both, always, so that a target can only
  * add needs (a template never shortens the window below what the sound itself asks for,
  * and the lowest partial is resolved from DC whatever the template holds). Spacing is the
  * smallest distance between neighbours within either list (an expected partial and the
- * peak that is its measurement are no pair); the lowest is the lower of both.
+ * peak that is its measurement are no pair); the lowest is the lower of both, where an
+ * expected lowest partial just under the rough pass's lowest peak is that peak, and where the
+ * rough pass finds nothing, DEFAULT_LOWEST_HZ unless the template expects lower.
  */
 export function windowNeedsFor(
   signal: Float64Array,
@@ -34,8 +46,10 @@ export function windowNeedsFor(
   for (const list of [strong, expected]) {
     for (let i = 1; i < list.length; i++) spacingHz = Math.min(spacingHz, list[i]! - list[i - 1]!)
   }
-  const lows = [strong[0], expected[0]].filter((f): f is number => f !== undefined)
-  const lowestHz = lows.length > 0 ? Math.min(...lows) : 100
+  // The default stands when the rough pass saw nothing: a template can lower it, never raise it.
+  const roughLowestHz = strong[0] ?? DEFAULT_LOWEST_HZ
+  const templateLowestHz = expected[0]
+  const lowestHz = templateLowestHz !== undefined && templateLowestHz < SAME_LOWEST_RATIO * roughLowestHz ? templateLowestHz : roughLowestHz
   const windowFrom = forced ? 'option' : expected.length > 0 ? 'template' : rough ? 'rough-pass' : 'default'
   return { spacingHz, lowestHz, neighbourLists: [strong, expected], windowFrom }
 }

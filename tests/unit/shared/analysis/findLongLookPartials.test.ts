@@ -79,6 +79,37 @@ describe('findLongLookPartials', () => {
     expect(look([...low, { frequencyHz: 700, amplitudeDb: -20, decayDbPerS: 10 }], low.map(p => reported(p)))).toEqual([])
   }, 30_000)
 
+  it('finds a partial whose track weaker neighbours broke up, and takes none of them for a candidate', () => {
+    // As addLongLookPartials lists them: peaks down to 50 dB under the strongest and 10 dB over the
+    // floor show the neighbours; candidates stay within 30 dB of the strongest and 20 dB over the floor.
+    const partial = { frequencyHz: 200, amplitudeDb: -32, decayDbPerS: 12 }
+    const neighbour = { frequencyHz: 214, amplitudeDb: -46, decayDbPerS: 15 }
+    const x = synthStrike([...low, partial, neighbour], { sampleRate, durationS: 2, onsetS, noiseDb: -80, seed: 5 })
+    const peaks = longSpectrumPeaks(x, sampleRate, { startIndex: settings.startIndex, length: settings.length, minFrequencyHz: 20, maxFrequencyHz: 20000, belowStrongestDb: 50, noiseMarginDb: 10 })
+    expect(peaks.some(p => Math.abs(p.frequencyHz - neighbour.frequencyHz) < 0.5)).toBe(true)
+    const found = findLongLookPartials(x, sampleRate, peaks, low.map(p => reported(p)), { ...settings, belowStrongestDb: 30, noiseMarginDb: 20 })
+    expect(found).toHaveLength(1)
+    expect(Math.abs(centsBetween(found[0]!.frequencyHz, partial.frequencyHz))).toBeLessThan(0.5)
+    // A neighbour more than 20 dB under it moves the bands' lobe too little to break a track: the bands had it.
+    const faint = { ...neighbour, amplitudeDb: -56 }
+    const y = synthStrike([...low, partial, faint], { sampleRate, durationS: 2, onsetS, noiseDb: -80, seed: 5 })
+    const peaksY = longSpectrumPeaks(y, sampleRate, { startIndex: settings.startIndex, length: settings.length, minFrequencyHz: 20, maxFrequencyHz: 20000, belowStrongestDb: 50, noiseMarginDb: 10 })
+    expect(findLongLookPartials(y, sampleRate, peaksY, low.map(p => reported(p)), { ...settings, belowStrongestDb: 30, noiseMarginDb: 20 })).toEqual([])
+  }, 30_000)
+
+  it('takes no partial for a sideband because a much stronger one sits where its mirror would', () => {
+    // A timpani's modes lie near 1 : 1.5 : 2 (common practice), so the ×2 mode sits where the ×1
+    // would mirror it around the ×1.5; sidebands of a modulation are alike in level (Oppenheim & Willsky §8.1), these 20 dB apart.
+    const modes = [
+      { frequencyHz: 74, amplitudeDb: -10, decayDbPerS: 8 },
+      { frequencyHz: 111, amplitudeDb: -14, decayDbPerS: 10 },
+    ]
+    const upper = { frequencyHz: 148, amplitudeDb: -32, decayDbPerS: 12 }
+    const found = look([...modes, upper], modes.map(p => reported(p)))
+    expect(found).toHaveLength(1)
+    expect(Math.abs(centsBetween(found[0]!.frequencyHz, upper.frequencyHz))).toBeLessThan(0.5)
+  }, 30_000)
+
   it('refuses a window outside the signal', () => {
     expect(() => findLongLookPartials(new Float64Array(1000), sampleRate, [], [], settings)).toThrow(RangeError)
   })

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { windowNeedsFor } from '../../../../shared/analysis/windowNeedsFor'
+import { DEFAULT_LOWEST_HZ, windowNeedsFor } from '../../../../shared/analysis/windowNeedsFor'
 import { synthStrike } from '../../../support/synthStrike'
 
 const sampleRate = 48000
@@ -27,6 +27,24 @@ describe('windowNeedsFor', () => {
     expect(needs.spacingHz).toBeCloseTo(22, 9)
     const lower = windowNeedsFor(x, sampleRate, span, [110, 880], false)
     expect(lower.lowestHz).toBe(110)
+  })
+
+  it('takes an expected lowest partial just under the rough pass\'s lowest peak for that peak', () => {
+    // A bar 4 % sharp of its target (220 Hz measured, 212 expected) or a drum read during its
+    // glide: the target names the same partial, so the window stays the one the sound asks for.
+    const none = windowNeedsFor(x, sampleRate, span, null, false)
+    expect(windowNeedsFor(x, sampleRate, span, [212, 848], false).lowestHz).toBe(none.lowestHz)
+    expect(windowNeedsFor(x, sampleRate, span, [229, 916], false).lowestHz).toBe(none.lowestHz)
+    // Clearly lower (under 1.1 / 1.25 of it) it is a partial of its own to resolve.
+    expect(windowNeedsFor(x, sampleRate, span, [190, 760], false).lowestHz).toBe(190)
+  })
+
+  it('keeps the default lowest partial when the rough pass sees nothing: a template only lowers it', () => {
+    const silence = new Float64Array(48000)
+    const all = { startIndex: 0, endIndex: 48000 }
+    expect(windowNeedsFor(silence, sampleRate, all, [110], false).lowestHz).toBe(DEFAULT_LOWEST_HZ)
+    expect(windowNeedsFor(silence, sampleRate, all, [1000, 2000], false).lowestHz).toBe(DEFAULT_LOWEST_HZ)
+    expect(windowNeedsFor(silence, sampleRate, all, [60], false).lowestHz).toBe(60)
   })
 
   it('says where the window came from', () => {
