@@ -102,7 +102,8 @@ export function findLongLookPartials(
 /**
  * A sideband: a stronger peak lies between it and a mirror peak as far on the other side
  * (within 0.3 Hz, 5 % of the gap or half a bin of the long window — a peak's place in a
- * cluster moves by a fraction of a bin — and within 10 dB of its level), the gap at most
+ * cluster moves by a fraction of a bin — and within 10 dB of its level either way, as a
+ * modulation's sidebands are: a far stronger peak there is a mode of its own), the gap at most
  * twice `maxModulationHz`; or it lies k·f_m (k = 1…6) from a stronger reported partial
  * modulated at f_m.
  */

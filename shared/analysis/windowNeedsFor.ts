@@ -16,9 +16,10 @@ const STRONG_DB = 50
 export const DEFAULT_LOWEST_HZ = 100
 
 /**
- * A template's lowest partial less than this far under the rough pass's lowest peak is that
- * peak (a piece off its target, a drum's glide): the window chooseWindow gives the peak
- * still resolves it from DC with over 1.1 main lobes (its margin is 1.25), so it sets no need of its own.
+ * A template's lowest partial above this fraction of the rough pass's lowest peak is that
+ * peak (a piece off its target, a drum read during its glide): the window chooseWindow gives
+ * the peak still resolves it from DC by over 1.1 main lobes (its margin is 1.25), so it sets
+ * no need of its own.
  */
 export const SAME_LOWEST_RATIO = 1.1 / 1.25
 
