@@ -65,6 +65,10 @@ export function useBenchCapture({ pieceId, piece, showStrike, refreshPiece, refr
   }
 
   const strikeable = computed(() => Boolean(piece.value && isStrikeable(piece.value.stage)))
+  // Sent to review (or moved on) while armed: a piece that takes no strikes is not listened for.
+  watch(strikeable, (ok) => {
+    if (!ok) capture.disarm()
+  })
 
   return { capture, onUploaded, strikeable }
 }
