@@ -31,11 +31,13 @@ export function useBenchCapture({ pieceId, piece, showStrike, refreshPiece, refr
     bench.capture = 'uploading'
     bench.problem = null
     bench.uploadProgress = 0
+    let measured = false
     try {
       const wav = encodeWav(samples, sampleRate)
       const strike = await upload(pieceId.value, new Blob([wav as BlobPart], { type: 'audio/wav' }), recordingFileName(piece.value?.note), bench.conditions, f => (bench.uploadProgress = f))
       performance.mark('tw:strike-measured')
       await showStrike(strike, { samples, sampleRate })
+      measured = true
       void refreshPiece()
     }
     catch (error) {
@@ -45,6 +47,9 @@ export function useBenchCapture({ pieceId, piece, showStrike, refreshPiece, refr
       bench.uploadProgress = null
       bench.capture = 'listening'
     }
+    // Stay armed: the next strike starts the next take while this result stays on screen.
+    // Not after a refusal, which would only be refused again.
+    if (measured && bench.stayArmed && strikeable.value) void capture.arm()
   }
 
   const capture = useStrikeCapture(onRecorded, () => piece.value?.set.referenceHz ?? 440)
@@ -60,6 +65,10 @@ export function useBenchCapture({ pieceId, piece, showStrike, refreshPiece, refr
   }
 
   const strikeable = computed(() => Boolean(piece.value && isStrikeable(piece.value.stage)))
+  // Sent to review (or moved on) while armed: a piece that takes no strikes is not listened for.
+  watch(strikeable, (ok) => {
+    if (!ok) capture.disarm()
+  })
 
   return { capture, onUploaded, strikeable }
 }

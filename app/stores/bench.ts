@@ -16,7 +16,7 @@ export interface ShownStrike {
 
 const KEY = 'tonewright.bench'
 
-interface Remembered { setId: string | null, temperatureC: number | null, humidityPct: number | null, maxS: number }
+interface Remembered { setId: string | null, temperatureC: number | null, humidityPct: number | null, maxS: number, stayArmed: boolean, conditionsEnteredAt: number | null }
 
 function recall(): Partial<Remembered> {
   if (typeof localStorage === 'undefined') return {}
@@ -38,6 +38,10 @@ export const useBenchStore = defineStore('bench', () => {
   const temperatureC = ref<number | null>(null)
   const humidityPct = ref<number | null>(null)
   const maxS = ref(3)
+  /** Re-arm by itself after each measured strike (on unless this device turned it off). */
+  const stayArmed = ref(true)
+  /** When the bench conditions were last entered or confirmed, in ms since the epoch. */
+  const conditionsEnteredAt = ref<number | null>(null)
   const capture = ref<CaptureState>('off')
   const uploadProgress = ref<number | null>(null)
   const problem = ref<string | null>(null)
@@ -54,14 +58,21 @@ export const useBenchStore = defineStore('bench', () => {
     if (r.temperatureC !== undefined) temperatureC.value = r.temperatureC
     if (r.humidityPct !== undefined) humidityPct.value = r.humidityPct
     if (typeof r.maxS === 'number' && r.maxS >= 1 && r.maxS <= 15) maxS.value = r.maxS
+    if (typeof r.stayArmed === 'boolean') stayArmed.value = r.stayArmed
+    if (typeof r.conditionsEnteredAt === 'number' && Number.isFinite(r.conditionsEnteredAt)) conditionsEnteredAt.value = r.conditionsEnteredAt
   }
 
   function persist() {
     if (typeof localStorage === 'undefined') return
-    const value: Remembered = { setId: setId.value, temperatureC: temperatureC.value, humidityPct: humidityPct.value, maxS: maxS.value }
+    const value: Remembered = { setId: setId.value, temperatureC: temperatureC.value, humidityPct: humidityPct.value, maxS: maxS.value, stayArmed: stayArmed.value, conditionsEnteredAt: conditionsEnteredAt.value }
     localStorage.setItem(KEY, JSON.stringify(value))
   }
-  watch([setId, temperatureC, humidityPct, maxS], persist)
+  watch([setId, temperatureC, humidityPct, maxS, stayArmed, conditionsEnteredAt], persist)
+
+  /** The conditions were typed or confirmed now. */
+  function confirmConditions(now = Date.now()) {
+    conditionsEnteredAt.value = now
+  }
 
   function choosePiece(id: string | null, set?: string | null) {
     if (id !== pieceId.value) {
@@ -79,5 +90,5 @@ export const useBenchStore = defineStore('bench', () => {
 
   const conditions = computed(() => ({ temperatureC: temperatureC.value, humidityPct: humidityPct.value }))
 
-  return { pieceId, setId, temperatureC, humidityPct, maxS, capture, uploadProgress, problem, shown, recordedS, conditions, restore, choosePiece, show }
+  return { pieceId, setId, temperatureC, humidityPct, maxS, stayArmed, conditionsEnteredAt, confirmConditions, capture, uploadProgress, problem, shown, recordedS, conditions, restore, choosePiece, show }
 })

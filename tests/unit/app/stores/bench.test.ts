@@ -55,6 +55,29 @@ describe('useBenchStore', () => {
     bench.temperatureC = 19
     bench.maxS = 8
     await nextTick()
-    expect(JSON.parse(items.get('tonewright.bench') ?? '{}')).toEqual({ setId: null, temperatureC: 19, humidityPct: null, maxS: 8 })
+    expect(JSON.parse(items.get('tonewright.bench') ?? '{}')).toEqual({ setId: null, temperatureC: 19, humidityPct: null, maxS: 8, stayArmed: true, conditionsEnteredAt: null })
+  })
+
+  it('stays armed by default and remembers turning it off on this device, with when the conditions were entered', async () => {
+    const items = fakeLocalStorage()
+    const bench = useBenchStore()
+    expect(bench.stayArmed).toBe(true)
+    bench.stayArmed = false
+    bench.confirmConditions(1_700_000_000_000)
+    await nextTick()
+    setActivePinia(createPinia())
+    const again = useBenchStore()
+    again.restore()
+    expect(again.stayArmed).toBe(false)
+    expect(again.conditionsEnteredAt).toBe(1_700_000_000_000)
+    expect(JSON.parse(items.get('tonewright.bench') ?? '{}')).toMatchObject({ stayArmed: false, conditionsEnteredAt: 1_700_000_000_000 })
+  })
+
+  it('ignores a remembered stay-armed or entry time of the wrong type', () => {
+    fakeLocalStorage({ 'tonewright.bench': JSON.stringify({ stayArmed: 'no', conditionsEnteredAt: 'today' }) })
+    const bench = useBenchStore()
+    bench.restore()
+    expect(bench.stayArmed).toBe(true)
+    expect(bench.conditionsEnteredAt).toBeNull()
   })
 })
