@@ -1,13 +1,13 @@
 import { and, desc, eq, ilike, inArray, or, sql, type SQL } from 'drizzle-orm'
-import { alias } from 'drizzle-orm/pg-core'
+import { alias, type AnyPgColumn } from 'drizzle-orm/pg-core'
 import { certificates, mailMessages, sets } from '../database/schema'
 import type { Executor } from '../database/client'
 import { certificateChanges, type CertificateHeading } from '../../shared/certificates/contentChanges'
 
 /** What the list shows of a certificate's own frozen content: a later edit of the set never changes it. */
-const headingOf = (table: typeof certificates) => sql<CertificateHeading | null>`jsonb_build_object(
-  'buyer', ${table.content}->'buyer',
-  'instrument', jsonb_build_object('name', ${table.content}->'instrument'->'name', 'model', ${table.content}->'instrument'->'model', 'serial', ${table.content}->'instrument'->'serial'))`
+const headingOf = (content: AnyPgColumn) => sql<CertificateHeading | null>`case when ${content} is null then null else jsonb_build_object(
+  'buyer', ${content}->'buyer',
+  'instrument', jsonb_build_object('name', ${content}->'instrument'->'name', 'model', ${content}->'instrument'->'model', 'serial', ${content}->'instrument'->'serial')) end`
 
 /** `%q%` for ILIKE with the user's own % and _ taken literally. */
 const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, c => `\\${c}`)}%`
@@ -33,7 +33,7 @@ export async function listCertificates(db: Executor, workshopId: string, filter:
   const rows = await db.select({
     id: certificates.id, number: certificates.number, code: certificates.code, status: certificates.status,
     setId: certificates.setId, setName: sets.name, liveSerial: sets.serial,
-    heading: headingOf(certificates), previousHeading: headingOf(previous),
+    heading: headingOf(certificates.content), previousHeading: headingOf(previous.content),
     signerName: certificates.signerName, signedAt: certificates.signedAt, contentHash: certificates.contentHash,
     supersedesId: certificates.supersedesId, supersededById: certificates.supersededById,
     revokedReason: certificates.revokedReason, revokedAt: certificates.revokedAt, pdfStatus: certificates.pdfStatus,

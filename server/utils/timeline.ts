@@ -30,9 +30,16 @@ export async function setTimeline(db: Executor, workshopId: string, setId: strin
   return timelinePage(db, workshopId, or(eq(auditEvents.subjectId, setId), inArray(auditEvents.subjectId, certificateIds))!, query)
 }
 
-/** The audit trail of a piece. */
+/** The certificate events that change a piece's standing (its stage moves with them). */
+const PIECE_CERTIFICATE_ACTIONS = ['certificate.sign', 'certificate.reissue', 'certificate.revoke']
+
+/** The audit trail of a piece, with the signing, re-issue and revocation of its set's certificates. */
 export async function pieceTimeline(db: Executor, workshopId: string, pieceId: string, query: TimelineQuery) {
-  const [piece] = await db.select({ id: pieces.id }).from(pieces).where(and(eq(pieces.id, pieceId), eq(pieces.workshopId, workshopId)))
+  const [piece] = await db.select({ id: pieces.id, setId: pieces.setId }).from(pieces).where(and(eq(pieces.id, pieceId), eq(pieces.workshopId, workshopId)))
   if (!piece) fail(404, 'No such piece in this workshop.')
-  return timelinePage(db, workshopId, eq(auditEvents.subjectId, pieceId), query)
+  const certificateIds = db.select({ id: certificates.id }).from(certificates).where(and(eq(certificates.setId, piece.setId), eq(certificates.workshopId, workshopId)))
+  return timelinePage(db, workshopId, or(
+    eq(auditEvents.subjectId, pieceId),
+    and(inArray(auditEvents.subjectId, certificateIds), inArray(auditEvents.action, PIECE_CERTIFICATE_ACTIONS)),
+  )!, query)
 }
