@@ -88,6 +88,11 @@ describe('PATCH /api/sets/{id}', () => {
       expect(reply.body.message).toMatch(message)
     }
     expect((await api('/api/sets/not-a-uuid', { method: 'PATCH', token: office.token, body: { model: 'X' } })).status).toBe(400)
+    // Past the JSON limit of a signed-in route (1 MB, server/utils/request-limits.ts) the body is refused while it arrives.
+    expect((await patch(set.id, office.token, { notes: 'n'.repeat(1_100_000) })).status).toBe(413)
+    const form = await api(`/api/sets/${set.id}`, { method: 'PATCH', token: office.token, headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: undefined })
+    expect(form.status).toBeGreaterThanOrEqual(400)
+    expect(form.status).toBeLessThan(500)
     expect(await editsOf(set.id)).toHaveLength(0)
   })
 
