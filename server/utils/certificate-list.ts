@@ -2,10 +2,10 @@ import { and, desc, eq, ilike, inArray, or, sql, type SQL } from 'drizzle-orm'
 import { alias, type AnyPgColumn } from 'drizzle-orm/pg-core'
 import { certificates, mailMessages, sets } from '../database/schema'
 import type { Executor } from '../database/client'
-import { certificateChanges, type CertificateHeading } from '../../shared/certificates/contentChanges'
+import { certificateChanges, readHeading } from '../../shared/certificates/contentChanges'
 
 /** What the list shows of a certificate's own frozen content: a later edit of the set never changes it. */
-const headingOf = (content: AnyPgColumn) => sql<CertificateHeading | null>`case when ${content} is null then null else jsonb_build_object(
+const headingOf = (content: AnyPgColumn) => sql<unknown>`case when ${content} is null then null else jsonb_build_object(
   'buyer', ${content}->'buyer',
   'instrument', jsonb_build_object('name', ${content}->'instrument'->'name', 'model', ${content}->'instrument'->'model', 'serial', ${content}->'instrument'->'serial')) end`
 
@@ -52,14 +52,18 @@ export async function listCertificates(db: Executor, workshopId: string, filter:
     ? await db.select({ certificateId: mailMessages.certificateId, id: mailMessages.id, to: mailMessages.to, status: mailMessages.status, attempts: mailMessages.attempts, lastError: mailMessages.lastError, createdAt: mailMessages.createdAt, sentAt: mailMessages.sentAt })
         .from(mailMessages).where(and(eq(mailMessages.workshopId, workshopId), inArray(mailMessages.certificateId, ids))).orderBy(desc(mailMessages.createdAt))
     : []
-  return rows.map(({ heading, previousHeading, ...r }) => ({
-    ...r,
-    setSerial: heading?.instrument.serial ?? r.liveSerial,
-    model: heading?.instrument.model ?? '',
-    buyerName: heading?.buyer.name ?? '',
-    buyerOrganisation: heading?.buyer.organisation ?? '',
-    buyerEmail: heading?.buyer.email ?? '',
-    changes: heading && previousHeading ? certificateChanges(previousHeading, heading) : [],
-    mails: mails.filter(m => m.certificateId === r.id),
-  }))
+  return rows.map(({ heading: storedHeading, previousHeading: storedPrevious, ...r }) => {
+    const heading = readHeading(storedHeading)
+    const previousHeading = readHeading(storedPrevious)
+    return {
+      ...r,
+      setSerial: heading?.instrument.serial ?? r.liveSerial,
+      model: heading?.instrument.model ?? '',
+      buyerName: heading?.buyer.name ?? '',
+      buyerOrganisation: heading?.buyer.organisation ?? '',
+      buyerEmail: heading?.buyer.email ?? '',
+      changes: heading && previousHeading ? certificateChanges(previousHeading, heading) : [],
+      mails: mails.filter(m => m.certificateId === r.id),
+    }
+  })
 }

@@ -1,8 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { certificates, pieces } from '../database/schema'
 import type { Executor } from '../database/client'
-import { certificateChanges } from '../../shared/certificates/contentChanges'
-import { parseCertificateContent } from '../../shared/schemas/certificateContent'
+import { certificateChanges, readHeading } from '../../shared/certificates/contentChanges'
 import type { Member } from './auth'
 import { audit } from './audit'
 import type { FrozenCertificate } from './certificate-freeze'
@@ -18,7 +17,8 @@ import { PDF_PENDING, certificatePdfKey } from './certificate-pdf-job'
 export async function storeCertificate(tx: Executor, member: Member, setId: string, frozen: FrozenCertificate, reason: string | null) {
   const { content, contentHash, number, code, signedAt, previous } = frozen
   // A re-issue says what it changed against the certificate it supersedes (e.g. the buyer after an edit of the set).
-  const changes = previous ? certificateChanges(parseCertificateContent(previous.content), content) : []
+  const previousHeading = previous ? readHeading(previous.content) : null
+  const changes = previousHeading ? certificateChanges(previousHeading, content) : []
   if (previous) {
     // First the old one stops being valid (the one-valid-per-set index), and its PDF is rendered again with its mark.
     await tx.update(certificates).set({ status: 'superseded', ...PDF_PENDING() }).where(eq(certificates.id, previous.id))

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { certificateChanges } from '../../../../shared/certificates/contentChanges'
+import { certificateChanges, readHeading } from '../../../../shared/certificates/contentChanges'
 import { describeChanges } from '../../../../shared/schemas/setEdit'
 
 const heading = (buyer: string, serial: string) => ({
@@ -16,5 +16,13 @@ describe('certificateChanges', () => {
 
   it('is empty for a re-issue that changed none of them', () => {
     expect(certificateChanges(heading('A', '1'), heading('A', '1'))).toEqual([])
+  })
+})
+
+describe('readHeading', () => {
+  it('reads the buyer and instrument of stored content, and null for content it cannot read', () => {
+    expect(readHeading({ ...heading('A', '1'), pieces: 'anything else' })).toEqual(heading('A', '1'))
+    expect(readHeading({ buyer: { name: 'A' } })).toBeNull()
+    expect(readHeading(null)).toBeNull()
   })
 })
