@@ -100,19 +100,26 @@ export async function revokeCertificate(db: Database, member: Member, id: string
   })
 }
 
+/**
+ * The e-mail a certificate would be sent with, exactly as the sender builds it:
+ * only a valid certificate is mailed (a revoked or superseded one answers 409).
+ */
+export async function prepareCertificateMail(db: Executor, workshopId: string, id: string, to: string | undefined) {
+  const cert = await findCertificate(db, workshopId, id)
+  if (cert.status === 'revoked') fail(409, 'A revoked certificate cannot be sent.')
+  if (cert.status === 'superseded') {
+    // Decided: a superseded certificate is never mailed; the buyer gets the current one, sent from its own row.
+    const [current] = cert.supersededById ? await db.select({ number: certificates.number }).from(certificates).where(eq(certificates.id, cert.supersededById)) : []
+    fail(409, `Certificate ${cert.number} has been superseded${current ? ` by ${current.number}` : ''}; send the current certificate instead.`)
+  }
+  const content = parseCertificateContent(cert.content)
+  return { cert, to: to ?? content.buyer.email, mail: certificateMail(content, cert.status) }
+}
+
 /** Queues the certificate e-mail to the buyer (or another address); a background job sends it. */
 export async function sendCertificate(db: Database, member: Member, id: string, to: string | undefined) {
   return db.transaction(async (tx) => {
-    const cert = await findCertificate(tx, member.workshopId, id)
-    if (cert.status === 'revoked') fail(409, 'A revoked certificate cannot be sent.')
-    if (cert.status === 'superseded') {
-      // Decided: a superseded certificate is never mailed; the buyer gets the current one, sent from its own row.
-      const [current] = cert.supersededById ? await tx.select({ number: certificates.number }).from(certificates).where(eq(certificates.id, cert.supersededById)) : []
-      fail(409, `Certificate ${cert.number} has been superseded${current ? ` by ${current.number}` : ''}; send the current certificate instead.`)
-    }
-    const content = parseCertificateContent(cert.content)
-    const address = to ?? content.buyer.email
-    const mail = certificateMail(content, cert.status)
+    const { cert, to: address, mail } = await prepareCertificateMail(tx, member.workshopId, id, to)
     const message = await queueMail(tx, {
       workshopId: member.workshopId, kind: 'certificate', to: address, ...mail,
       certificateId: cert.id, setId: cert.setId, requestedBy: member.userId,

@@ -31,6 +31,8 @@ export const PERMISSIONS = {
   'sets:read': ['owner', 'supervisor', 'benchmaker', 'office'],
   'sets:manage': ['owner', 'office'],
   'sets:ship': ['owner', 'office'],
+  /** Download a set's results as CSV for the workshop's own spreadsheets. */
+  'sets:export': ['owner', 'supervisor', 'office'],
   'lots:manage': ['owner', 'office'],
   'certificates:read': ['owner', 'supervisor', 'office'],
   'certificates:sign': ['owner', 'supervisor'],

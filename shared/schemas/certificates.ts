@@ -14,7 +14,11 @@ export const PdfQuerySchema = z.object({
   paper: z.enum(PAPER_SIZES, { errorMap: () => ({ message: `Choose the paper: ${wordsOr(PAPER_SIZES)}` }) }).default('a4'),
   download: z.enum(['0', '1']).optional(),
 })
-export const CertificateListQuerySchema = z.object({ set: z.string().uuid('Choose a set').optional() })
+export const CertificateListQuerySchema = z.object({
+  set: z.string().uuid('Choose a set').optional(),
+  /** Part of a buyer's name, organisation or e-mail, a serial or a certificate number. */
+  q: z.string().trim().max(80, 'Search for at most 80 characters').optional().transform(q => q || undefined),
+})
 /** 96-bit codes are 16 base64url characters; anything else cannot be a code. */
 export const VerifyParams = z.object({ code: z.string().regex(/^[\w-]{8,64}$/, 'That is not a verification code') })
 

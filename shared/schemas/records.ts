@@ -29,7 +29,7 @@ export type TemplateInput = z.infer<typeof TemplateInputSchema>
 export const NoteSchema = z.string({ required_error: 'Enter a note' }).trim()
   .refine(n => parseNoteName(n) !== null, 'Write the note like C4, F#3 or Bb2')
 
-const BuyerSchema = z.object({
+export const BuyerSchema = z.object({
   name: z.string({ required_error: 'Enter the buyer\'s name' }).trim().min(1, 'Enter the buyer\'s name').max(120, 'The buyer\'s name is at most 120 characters'),
   organisation: z.string().trim().max(160, 'The organisation is at most 160 characters').default(''),
   email: z.string({ required_error: 'Enter the buyer\'s e-mail' }).trim().toLowerCase().email('Enter a valid e-mail address for the buyer'),

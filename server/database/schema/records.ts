@@ -71,6 +71,8 @@ export const sets = pgTable('sets', {
   templateId: uuid('template_id').references(() => ratioTemplates.id, { onDelete: 'set null' }),
   registers: jsonb('registers').$type<SetRegister[]>().notNull().default([]),
   dueOn: text('due_on'),
+  /** The office's notes about the order (free text, editable). */
+  notes: text('notes').notNull().default(''),
   shippedAt: instant('shipped_at'),
   createdAt: createdAt(),
 }, t => [index('sets_workshop_idx').on(t.workshopId, t.createdAt), uniqueIndex('sets_workshop_serial_key').on(t.workshopId, t.serial)])

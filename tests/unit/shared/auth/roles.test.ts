@@ -7,8 +7,9 @@ import { can, navItemsFor, PERMISSIONS, permissionForPath, ROLES, type Permissio
 const reads: Permission[] = ['workshop:read', 'team:read', 'templates:read', 'pieces:read', 'sets:read']
 const benchmakerRights: Permission[] = [...reads, 'pieces:stage', 'bench:strike']
 // Re-measuring stored strikes is a supervisor's call (issue 10: "a supervisor can re-measure"), and the owner's.
-const supervisorRights: Permission[] = [...benchmakerRights, 'pieces:assign', 'review:decide', 'strikes:reanalyze', 'certificates:read', 'certificates:sign']
-const officeRights: Permission[] = [...reads, 'certificates:read', 'sets:manage', 'sets:ship', 'lots:manage', 'certificates:send']
+// A set's results as CSV (issue 13, "for the workshop's own spreadsheets") go to those who read certificates, not to the bench.
+const supervisorRights: Permission[] = [...benchmakerRights, 'pieces:assign', 'review:decide', 'strikes:reanalyze', 'certificates:read', 'certificates:sign', 'sets:export']
+const officeRights: Permission[] = [...reads, 'certificates:read', 'sets:manage', 'sets:ship', 'lots:manage', 'certificates:send', 'sets:export']
 const ownerOnly: Permission[] = ['workshop:manage', 'team:manage', 'templates:manage']
 const everyPermission = Object.keys(PERMISSIONS) as Permission[]
 const expected: Record<Role, Permission[]> = {
