@@ -71,7 +71,7 @@ describe('review queue filters', () => {
     for (const query of ['set=not-a-uuid', `set=${first.id}&set=${second.id}`, 'benchmaker=everyone', 'group=colour', `set=${'f'.repeat(5000)}`]) {
       const reply = await api(`/api/review?${query}`, { token: sup.token })
       expect(reply.status, query).toBe(400)
-      expect(reply.body.message, query).toMatch(/^[A-Z].*[a-z]/)
+      expect(reply.body.message, query).toMatch(/^\w+: [A-Z][^\n]*\.$/)
       expect(JSON.stringify(reply.body), query).not.toMatch(/stack|at \//)
     }
     expect((await api('/api/review?group=set', { token: sup.token })).status).toBe(200)
