@@ -5,6 +5,7 @@ const press = (key: string, mods: Partial<{ ctrlKey: boolean, metaKey: boolean, 
   ({ key, ctrlKey: false, metaKey: false, altKey: false, ...mods })
 const on = (tagName: string, isContentEditable = false) => ({ tagName, isContentEditable })
 
+// source: issue 13 ("Keys are the same meaning everywhere (one key map in one place, shown by `?`)")
 describe('the key map', () => {
   it('gives no key two meanings, on any page', () => {
     const meaningOf = new Map<string, KeyAction>()
@@ -42,6 +43,7 @@ describe('the key map', () => {
     expect(keyActionFor('bench', press('?'), on('BODY'))).toBe('showKeys')
   })
 
+  // common practice: Ctrl/Cmd/Alt combinations belong to the browser, and typed text is never a command
   it('leaves key combinations to the browser and text fields to typing, Escape excepted', () => {
     expect(keyActionFor('review', press('a', { ctrlKey: true }), on('BODY'))).toBeNull()
     expect(keyActionFor('review', press('a', { metaKey: true }), on('BODY'))).toBeNull()

@@ -42,7 +42,7 @@ describe('undoing an approval', () => {
     expect(approved.status).toBe(200)
     const pending = await pieceState(piece.id)
     expect(pending.row!.stage).toBe('approved')
-    // The window is counted on the database's clock from the approval itself.
+    // The window is counted on the database's clock from the approval itself (source: issue 13, "an Undo for 10 s").
     expect(pending.row!.approval_final_at.getTime() - pending.row!.approved_at.getTime()).toBe(APPROVAL_UNDO_WINDOW_S * 1000)
     expect(new Date(approved.body.undoUntil).getTime()).toBe(pending.row!.approval_final_at.getTime())
     expect((await api('/api/review', { token: sup.token })).body).toEqual([])
