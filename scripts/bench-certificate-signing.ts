@@ -8,6 +8,7 @@
  */
 import { cpus, loadavg } from 'node:os'
 import { encodeWav } from '../shared/analysis/encodeWav'
+import { APPROVAL_UNDO_WINDOW_S } from '../shared/records/approvalWindow'
 import { synthStrike } from '../shared/synthesis/synthStrike'
 import { api, memberWithRole, newWorkshop } from '../tests/integration/support/http'
 
@@ -40,6 +41,8 @@ for (const [i, piece] of set.pieces.entries()) {
   const approved = await api(`/api/pieces/${piece.id}/approve`, { method: 'POST', token: supervisor.token, body: { strikeId: strike.body.id ?? strike.body.strike?.id } })
   if (approved.status !== 200) throw new Error(`approve: ${approved.status} ${JSON.stringify(approved.body)}`)
 }
+// A set is signed only once its approvals are final (their undo window has passed).
+await new Promise(r => setTimeout(r, (APPROVAL_UNDO_WINDOW_S + 1) * 1000))
 
 /** Health latency samples (every 50 ms) until the certificate's PDF is stored; the time until then. */
 async function untilPdf(id: string) {

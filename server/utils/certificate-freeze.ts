@@ -10,6 +10,7 @@ import { buildCertificateContent, type CertificateContent } from '../../shared/c
 import { isFinished } from '../../shared/records/stages'
 import { parseStoredAnalysis } from '../../shared/schemas/analysis'
 import type { Member } from './auth'
+import { approvalPending } from './approval-window'
 import { fail } from './http-errors'
 
 /** A re-issue names the valid certificate it replaces and says why. */
@@ -69,7 +70,7 @@ export function supersessionProblem(
 }
 
 /** Why these live pieces cannot be certified yet, or null. */
-export function readinessProblem(live: { note: string, stage: string, approvedStrikeId: string | null }[]): string | null {
+export function readinessProblem(live: { note: string, stage: string, approvedStrikeId: string | null, approvalPending?: boolean }[]): string | null {
   const notReady = live.filter(p => !isFinished(p.stage))
   if (live.length === 0) return 'This set has no pieces to certify.'
   if (notReady.length) {
@@ -77,6 +78,11 @@ export function readinessProblem(live: { note: string, stage: string, approvedSt
     return `Not every piece is approved yet (${notReady.length} left: ${names}${notReady.length > 5 ? ', …' : ''}).`
   }
   if (live.some(p => !p.approvedStrikeId)) return 'A piece has no approved strike; reopen and approve it again.'
+  // A pending approval can still be undone: signing waits until it is final.
+  const pending = live.filter(p => p.approvalPending)
+  if (pending.length) {
+    return `${pending.map(p => p.note).slice(0, 5).join(', ')}${pending.length > 5 ? ', …' : ''} ${pending.length === 1 ? 'was' : 'were'} approved moments ago and can still be undone; sign in a few seconds.`
+  }
   return null
 }
 
@@ -105,11 +111,11 @@ async function lockForSigning(tx: Executor, workshopId: string, setId: string, r
 
 /** The set's pieces (locked) with their template versions, the live ones checked ready, and their approved strikes. */
 async function readApprovedPieces(tx: Executor, workshopId: string, setId: string) {
-  const rows = await tx.select({ piece: pieces, template: templateVersions }).from(pieces)
+  const rows = await tx.select({ piece: pieces, template: templateVersions, approvalPending: approvalPending() }).from(pieces)
     .innerJoin(templateVersions, eq(templateVersions.id, pieces.templateVersionId))
     .where(eq(pieces.setId, setId)).orderBy(asc(pieces.position)).for('update', { of: pieces })
   const live = rows.filter(r => r.piece.stage !== 'scrapped')
-  const problem = readinessProblem(live.map(r => r.piece))
+  const problem = readinessProblem(live.map(r => ({ ...r.piece, approvalPending: r.approvalPending })))
   if (problem) fail(409, problem)
   const strikeIds = live.map(r => r.piece.approvedStrikeId!)
   const strikeRows = await tx.select().from(strikes).where(and(inArray(strikes.id, strikeIds), eq(strikes.workshopId, workshopId)))

@@ -1,8 +1,9 @@
-import { and, asc, avg, count, eq, gte, inArray, sql } from 'drizzle-orm'
+import { and, asc, avg, count, eq, gte, inArray, isNull, sql } from 'drizzle-orm'
 import { memberships, pieces, sets, strikes, users } from '../database/schema'
 import type { Executor } from '../database/client'
 import { FINISHED_STAGES } from '../../shared/records/stages'
 import { StoredMatchesSchema } from '../../shared/schemas/analysis'
+import { REVIEW_TRAIL_STRIKES, type ReviewQuery } from '../../shared/schemas/review'
 import { listSets } from './sets'
 
 /** Monday 00:00 UTC of the current week. */
@@ -40,19 +41,28 @@ export async function dashboardFor(db: Executor, workshopId: string) {
   }
 }
 
-/** Pieces waiting for a supervisor, oldest first, with the latest strike's matches. */
-export async function reviewQueue(db: Executor, workshopId: string) {
+/**
+ * Pieces waiting for a supervisor, oldest first, with the latest strike's matches and the
+ * worst cents of the last few strikes (oldest first); optionally one set's or one
+ * benchmaker's (the assignee; `none`: unassigned). Always within the member's workshop.
+ */
+export async function reviewQueue(db: Executor, workshopId: string, filter: Omit<ReviewQuery, 'group'> = {}) {
+  const trail = sql<(number | null)[]>`(select coalesce(json_agg(t.w order by t.at), '[]'::json) from (select ${strikes.worstCents} as w, ${strikes.createdAt} as at from ${strikes} where ${strikes.pieceId} = ${pieces.id} order by ${strikes.createdAt} desc limit ${REVIEW_TRAIL_STRIKES}) t)`
   return db.select({
     id: pieces.id, note: pieces.note, position: pieces.position, targetHz: pieces.targetHz, setId: sets.id, setName: sets.name,
     strikeCount: pieces.strikeCount, reworkCount: pieces.reworkCount, latestStrikeId: pieces.latestStrikeId,
     latestVerdict: pieces.latestVerdict, latestWorstCents: pieces.latestWorstCents, updatedAt: pieces.updatedAt,
-    assigneeName: users.name,
+    assigneeId: pieces.assigneeId, assigneeName: users.name, worstCentsTrail: trail,
     matches: sql<unknown>`(select ${strikes.analysis} -> 'matches' from ${strikes} where ${strikes.id} = ${pieces.latestStrikeId})`.mapWith(v => StoredMatchesSchema.parse(v)),
     temperatureC: sql<number | null>`(select ${strikes.temperatureC} from ${strikes} where ${strikes.id} = ${pieces.latestStrikeId})`,
   }).from(pieces)
     .innerJoin(sets, eq(sets.id, pieces.setId))
     .leftJoin(users, eq(users.id, pieces.assigneeId))
-    .where(and(eq(pieces.workshopId, workshopId), eq(pieces.stage, 'review')))
+    .where(and(
+      eq(pieces.workshopId, workshopId), eq(pieces.stage, 'review'),
+      filter.set ? eq(pieces.setId, filter.set) : undefined,
+      filter.benchmaker === 'none' ? isNull(pieces.assigneeId) : filter.benchmaker ? eq(pieces.assigneeId, filter.benchmaker) : undefined,
+    ))
     .orderBy(asc(pieces.updatedAt))
     .limit(200)
 }

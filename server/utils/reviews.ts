@@ -2,11 +2,12 @@ import { and, eq, sql } from 'drizzle-orm'
 import { pieces, reviews, strikes } from '../database/schema'
 import type { Database, Executor } from '../database/client'
 import { DECISION_MOVES, isFinished } from '../../shared/records/stages'
+import { APPROVAL_UNDO_WINDOW_S } from '../../shared/records/approvalWindow'
 import type { Member } from './auth'
 import { audit } from './audit'
 import { fail } from './http-errors'
 
-async function lockPiece(tx: Executor, member: Member, pieceId: string) {
+export async function lockPiece(tx: Executor, member: Member, pieceId: string) {
   const [piece] = await tx.select().from(pieces)
     .where(and(eq(pieces.id, pieceId), eq(pieces.workshopId, member.workshopId))).for('update')
   if (!piece) fail(404, 'No such piece in this workshop.')
@@ -16,6 +17,8 @@ async function lockPiece(tx: Executor, member: Member, pieceId: string) {
 /**
  * Approves a piece in review on its latest strike. The row lock makes two
  * simultaneous approvals queue: the second finds the piece approved and gets 409.
+ * The approval stays pending (undoable) until `approval_final_at`, taken from the
+ * database's clock so every app instance agrees; the answer says until when.
  */
 export function approvePiece(db: Database, member: Member, pieceId: string, input: { strikeId: string, overrideReason?: string, comment?: string }) {
   return db.transaction(async (tx) => {
@@ -33,12 +36,17 @@ export function approvePiece(db: Database, member: Member, pieceId: string, inpu
       workshopId: member.workshopId, pieceId, strikeId: strike.id, supervisorId: member.userId, decision: 'approve',
       comment: input.comment ?? '', overrideReason: strike.verdict === 'within' ? null : input.overrideReason ?? null,
     }).returning()
-    await tx.update(pieces).set({ stage: DECISION_MOVES.approve.to, approvedStrikeId: strike.id, approvedAt: new Date(), updatedAt: new Date() }).where(eq(pieces.id, pieceId))
+    const [approved] = await tx.update(pieces).set({
+      stage: DECISION_MOVES.approve.to, approvedStrikeId: strike.id, approvedAt: sql`now()`,
+      approvalFinalAt: sql`now() + make_interval(secs => ${APPROVAL_UNDO_WINDOW_S})`, updatedAt: new Date(),
+    }).where(eq(pieces.id, pieceId)).returning({ undoUntil: pieces.approvalFinalAt })
+    // previousUpdatedAt lets an undo put the piece back in its place in the queue.
     await audit(tx, {
       workshopId: member.workshopId, actorId: member.userId, action: 'piece.approve', subjectType: 'piece', subjectId: pieceId,
-      fromState: DECISION_MOVES.approve.from, toState: DECISION_MOVES.approve.to, reason: input.overrideReason ?? input.comment ?? null, details: { strikeId: strike.id, override: strike.verdict !== 'within' },
+      fromState: DECISION_MOVES.approve.from, toState: DECISION_MOVES.approve.to, reason: input.overrideReason ?? input.comment ?? null,
+      details: { strikeId: strike.id, override: strike.verdict !== 'within', reviewId: review!.id, previousUpdatedAt: piece.updatedAt.toISOString() },
     })
-    return review!
+    return { ...review!, undoUntil: approved!.undoUntil }
   })
 }
 
@@ -64,7 +72,7 @@ export function reopenPiece(db: Database, member: Member, pieceId: string, reaso
     const [review] = await tx.insert(reviews).values({
       workshopId: member.workshopId, pieceId, strikeId: piece.approvedStrikeId, supervisorId: member.userId, decision: 'reopen', comment: reason,
     }).returning()
-    await tx.update(pieces).set({ stage: DECISION_MOVES.reopen.to, approvedStrikeId: null, approvedAt: null, updatedAt: new Date() }).where(eq(pieces.id, pieceId))
+    await tx.update(pieces).set({ stage: DECISION_MOVES.reopen.to, approvedStrikeId: null, approvedAt: null, approvalFinalAt: null, updatedAt: new Date() }).where(eq(pieces.id, pieceId))
     await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.reopen', subjectType: 'piece', subjectId: pieceId, fromState: DECISION_MOVES.reopen.from, toState: DECISION_MOVES.reopen.to, reason })
     return review!
   })

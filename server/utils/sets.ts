@@ -5,6 +5,7 @@ import type { CreateSetInput } from '../../shared/schemas/records'
 import { noteToFrequencyHz } from '../../shared/analysis/noteToFrequencyHz'
 import { expandNoteRange, noteToMidi } from '../../shared/records/noteRange'
 import { FINISHED_STAGES } from '../../shared/records/stages'
+import { approvalPending } from './approval-window'
 import { audit } from './audit'
 import { conflictOnDuplicate, fail } from './http-errors'
 import { currentVersionOf } from './templates'
@@ -59,22 +60,27 @@ export async function createSet(db: Transactor, workshopId: string, actorId: str
 /** Sets with their pieces counted by stage. */
 export async function listSets(db: Executor, workshopId: string) {
   const rows = await db.select().from(sets).where(eq(sets.workshopId, workshopId)).orderBy(desc(sets.createdAt))
-  const counts = await db.select({ setId: pieces.setId, stage: pieces.stage, n: count() }).from(pieces)
+  const counts = await db.select({ setId: pieces.setId, stage: pieces.stage, n: count(), pending: sql<number>`count(*) filter (where ${approvalPending()})::int` }).from(pieces)
     .where(eq(pieces.workshopId, workshopId)).groupBy(pieces.setId, pieces.stage)
   return rows.map((s) => {
     const byStage: Record<string, number> = {}
-    for (const c of counts) if (c.setId === s.id) byStage[c.stage] = c.n
-    return { ...s, byStage, ...progress(byStage) }
+    let pending = 0
+    for (const c of counts) {
+      if (c.setId !== s.id) continue
+      byStage[c.stage] = c.n
+      pending += c.pending
+    }
+    return { ...s, byStage, ...progress(byStage, pending) }
   })
 }
 
-/** Progress toward certifiable: every non-scrapped piece approved (or beyond). */
-export function progress(byStage: Record<string, number>) {
+/** Progress toward certifiable: every non-scrapped piece approved (or beyond), no approval still undoable. */
+export function progress(byStage: Record<string, number>, pendingApprovalCount = 0) {
   const total = Object.values(byStage).reduce((a, b) => a + b, 0)
   const scrapped = byStage.scrapped ?? 0
   const done = FINISHED_STAGES.reduce((n, stage) => n + (byStage[stage] ?? 0), 0)
   const live = total - scrapped
-  return { pieceCount: total, approvedCount: done, liveCount: live, certifiable: live > 0 && done === live }
+  return { pieceCount: total, approvedCount: done, liveCount: live, pendingApprovalCount, certifiable: live > 0 && done === live && pendingApprovalCount === 0 }
 }
 
 export async function getSet(db: Executor, workshopId: string, setId: string) {
@@ -84,7 +90,7 @@ export async function getSet(db: Executor, workshopId: string, setId: string) {
     id: pieces.id, position: pieces.position, note: pieces.note, targetHz: pieces.targetHz, stage: pieces.stage,
     latestVerdict: pieces.latestVerdict, latestWorstCents: pieces.latestWorstCents, strikeCount: pieces.strikeCount,
     assigneeId: pieces.assigneeId, templateVersionId: pieces.templateVersionId, templateName: templateVersions.name,
-    templateVersion: templateVersions.version, lotId: pieces.lotId,
+    templateVersion: templateVersions.version, lotId: pieces.lotId, approvalPending: approvalPending(),
   }).from(pieces)
     .innerJoin(templateVersions, eq(templateVersions.id, pieces.templateVersionId))
     .where(and(eq(pieces.setId, setId), eq(pieces.workshopId, workshopId)))
@@ -94,7 +100,7 @@ export async function getSet(db: Executor, workshopId: string, setId: string) {
   const [template] = set.templateId
     ? await db.select({ name: ratioTemplates.name }).from(ratioTemplates).where(eq(ratioTemplates.id, set.templateId))
     : []
-  return { ...set, templateName: template?.name ?? null, pieces: rows, byStage, ...progress(byStage) }
+  return { ...set, templateName: template?.name ?? null, pieces: rows, byStage, ...progress(byStage, rows.filter(p => p.approvalPending).length) }
 }
 
 /** Marks a certified set shipped (office or owner), moving its certified pieces along. */

@@ -88,7 +88,8 @@ export const ApproveSchema = z.object({
   overrideReason: z.string().trim().min(5, 'Give a reason of at least 5 characters for the override').max(500, 'A reason is at most 500 characters').optional(),
   comment: z.string().trim().max(1000, 'A comment is at most 1000 characters').optional(),
 })
-export const ReturnSchema = z.object({ comment: z.string({ required_error: 'Say what needs rework' }).trim().min(3, 'Say what needs rework').max(1000, 'A comment is at most 1000 characters') })
+export const RETURN_REASON_MAX = 1000
+export const ReturnSchema = z.object({ comment: z.string({ required_error: 'Say what needs rework', invalid_type_error: 'Say what needs rework, in words' }).trim().min(3, 'Say what needs rework').max(RETURN_REASON_MAX, `A comment is at most ${RETURN_REASON_MAX} characters`) })
 export const ReopenSchema = z.object({ reason: z.string({ required_error: 'Give the reason for reopening' }).trim().min(5, 'Give a reason of at least 5 characters').max(500, 'A reason is at most 500 characters') })
 export const AssignSchema = z.object({ assigneeId: z.string().uuid('Choose a member').nullable() })
 

@@ -98,6 +98,8 @@ export const pieces = pgTable('pieces', {
   latestStrikeAt: instant('latest_strike_at'),
   approvedStrikeId: uuid('approved_strike_id'),
   approvedAt: instant('approved_at'),
+  // An approval can be undone until this time (the database's clock); null or past: final.
+  approvalFinalAt: instant('approval_final_at'),
   createdAt: createdAt(),
   updatedAt: instant('updated_at').notNull().defaultNow(),
 }, t => [

@@ -117,7 +117,7 @@ describe('two app instances, one database, one bucket', () => {
 
   it('a certificate signed on one is mailed exactly once with both mail workers running, its PDF from the bucket', async () => {
     const ctx = await approvedSet({ from: 'C5', to: 'E5' })
-    await approveAll(ctx)
+    await approveAll(ctx, { databaseUrl: PAIR_DATABASE_URL })
     const signed = await api(`/api/sets/${ctx.set.id}/certificates`, { method: 'POST', token: ctx.supervisor.token, baseUrl: b.baseUrl })
     expect(signed.status).toBe(201)
     const pdf = await until('the certificate PDF', async () => {

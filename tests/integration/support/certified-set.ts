@@ -1,3 +1,4 @@
+import postgres from 'postgres'
 import { encodeWav } from '../../../shared/analysis/encodeWav'
 import { synthStrike } from '../../../shared/synthesis/synthStrike'
 import { api, memberWithRole, newWorkshop, uniqueEmail } from './http'
@@ -29,8 +30,23 @@ export async function approvedSet(options: { from?: string, to?: string, serial?
   return { owner, supervisor, office, bench, set, buyerEmail, template }
 }
 
-/** Strikes, reviews and approves every piece of the set. */
-export async function approveAll(ctx: Awaited<ReturnType<typeof approvedSet>>) {
+/**
+ * Makes the set's approvals final at once, as if their undo window had passed: no API may
+ * do this, so it is direct SQL on the database the server uses (the pair's for the
+ * two-instance test).
+ */
+export async function finishApprovals(setId: string, databaseUrl = process.env.NUXT_DATABASE_URL!) {
+  const sql = postgres(databaseUrl, { max: 1, onnotice: () => {} })
+  try {
+    await sql`update pieces set approval_final_at = now() - interval '1 second' where set_id = ${setId} and approval_final_at > now()`
+  }
+  finally {
+    await sql.end()
+  }
+}
+
+/** Strikes, reviews and approves every piece of the set, and lets the approvals become final. */
+export async function approveAll(ctx: Awaited<ReturnType<typeof approvedSet>>, options: { databaseUrl?: string } = {}) {
   for (const [i, piece] of (ctx.set.pieces as { id: string, targetHz: number }[]).entries()) {
     const samples = synthStrike([
       { frequencyHz: piece.targetHz, amplitudeDb: -8, decayDbPerS: 12 },
@@ -52,4 +68,5 @@ export async function approveAll(ctx: Awaited<ReturnType<typeof approvedSet>>) {
     const approved = await api(`/api/pieces/${piece.id}/approve`, { method: 'POST', token: ctx.supervisor.token, body: { strikeId } })
     if (approved.status !== 200) throw new Error(`approve: ${approved.status} ${JSON.stringify(approved.body)}`)
   }
+  await finishApprovals(ctx.set.id, options.databaseUrl)
 }

@@ -133,10 +133,10 @@ describe('review', () => {
     await expectText(page.getByTestId('review-conflict'), /already approved/)
     await item('D6').waitFor({ state: 'detached' })
 
-    // G6: `r` opens the comment, the comment is sent with Ctrl+Enter.
+    // G6: `x` opens the reason for rework, which is sent with Ctrl+Enter.
     await item('G6').click()
     await current.getByRole('heading', { name: /G6/ }).waitFor()
-    await page.keyboard.press('r')
+    await page.keyboard.press('x')
     const comment = page.getByLabel('What needs rework?')
     await expect.poll(() => comment.evaluate(el => el === document.activeElement)).toBe(true)
     await page.keyboard.type('Chip on the near edge; dress it and strike again')

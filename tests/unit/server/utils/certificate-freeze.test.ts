@@ -81,6 +81,15 @@ describe('readinessProblem', () => {
   it('refuses an approved piece without its approved strike', () => {
     expect(readinessProblem([piece('C5', 'approved', null)])).toBe('A piece has no approved strike; reopen and approve it again.')
   })
+
+  it('waits for approvals that can still be undone, naming them', () => {
+    const pending = (note: string) => ({ ...piece(note, 'approved'), approvalPending: true })
+    expect(readinessProblem([piece('C5', 'approved'), pending('D5')]))
+      .toBe('D5 was approved moments ago and can still be undone; sign in a few seconds.')
+    expect(readinessProblem([pending('C5'), pending('D5')]))
+      .toBe('C5, D5 were approved moments ago and can still be undone; sign in a few seconds.')
+    expect(readinessProblem([{ ...piece('C5', 'approved'), approvalPending: false }])).toBeNull()
+  })
 })
 
 describe('latestOverrideByStrike', () => {

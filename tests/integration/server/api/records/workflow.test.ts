@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { api, memberWithRole, newWorkshop } from '../../../support/http'
+import { finishApprovals } from '../../../support/certified-set'
 import { createSet, postStrike, strikeWav } from '../../../support/records'
 
 async function pieceInReview(cents: number[]) {
@@ -145,8 +146,12 @@ describe('approval', () => {
     await api(`/api/pieces/${a.id}/approve`, { method: 'POST', token: owner.token, body: { strikeId: s.body.id } })
     expect((await api(`/api/sets/${set.id}`, { token: owner.token })).body.certifiable).toBe(false)
     expect((await api(`/api/pieces/${b.id}/stage`, { method: 'POST', token: owner.token, body: { to: 'scrapped' } })).status).toBe(200)
+    // Still within its undo window, the approval does not count yet.
+    const pending = await api(`/api/sets/${set.id}`, { token: owner.token })
+    expect(pending.body).toMatchObject({ certifiable: false, approvedCount: 1, liveCount: 1, pendingApprovalCount: 1 })
+    await finishApprovals(set.id)
     const after = await api(`/api/sets/${set.id}`, { token: owner.token })
-    expect(after.body).toMatchObject({ certifiable: true, approvedCount: 1, liveCount: 1 })
+    expect(after.body).toMatchObject({ certifiable: true, approvedCount: 1, liveCount: 1, pendingApprovalCount: 0 })
   })
 
   it('moves pieces in bulk all or nothing', async () => {

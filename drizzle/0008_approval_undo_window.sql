@@ -1,0 +1,1 @@
+ALTER TABLE "pieces" ADD COLUMN "approval_final_at" timestamp with time zone;
