@@ -1,4 +1,4 @@
-import { blackmanHarris } from './blackmanHarris'
+import { cachedBlackmanHarris } from './cachedBlackmanHarris'
 import type { Baseband, DecimatedBand } from './decimateBand'
 
 /**
@@ -14,7 +14,7 @@ export function windowBand(band: DecimatedBand, startIndex: number, length: numb
   const first = (startIndex - band.firstIndex) / factor
   const count = Math.min(Math.ceil(length / factor), band.re.length - first)
   if (!(Number.isInteger(first) && first >= 0 && count >= 1 && length >= 1)) throw new RangeError('windowBand needs a span inside the band that starts on one of its samples')
-  const w = blackmanHarris(count, length / factor)
+  const w = cachedBlackmanHarris(count, length / factor)
   const re = new Float64Array(count)
   const im = new Float64Array(count)
   for (let j = 0; j < count; j++) {
