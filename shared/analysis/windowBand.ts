@@ -16,10 +16,9 @@ export function windowBand(band: DecimatedBand, startIndex: number, length: numb
   if (!(Number.isInteger(first) && first >= 0 && count >= 1 && length >= 1)) throw new RangeError('windowBand needs a span inside the band that starts on one of its samples')
   const w = cachedBlackmanHarris(count, length / factor)
   const re = new Float64Array(count)
-  const im = new Float64Array(count)
-  for (let j = 0; j < count; j++) {
-    re[j] = band.re[first + j]! * w[j]!
-    im[j] = band.im[first + j]! * w[j]!
-  }
+  for (let j = 0; j < count; j++) re[j] = band.re[first + j]! * w[j]!
+  // A real band's zeros stay zeros: a view of them, read only like every windowed span.
+  const im = band.real ? band.im.subarray(first, first + count) : new Float64Array(count)
+  if (!band.real) for (let j = 0; j < count; j++) im[j] = band.im[first + j]! * w[j]!
   return { re, im, sampleRateHz: band.sampleRateHz, centerHz: band.centerHz, durationS: (length / factor) / band.sampleRateHz, real: band.real }
 }
