@@ -18,32 +18,49 @@ export function basebandDtft(span: Baseband, frequenciesHz: readonly number[]): 
   const out: Complex[] = []
   // Three recurrences at a time in one pass: each waits on its own last step, so interleaved
   // they cost about what one does. A short last group repeats its last frequency (dropped).
-  for (let first = 0; first < frequenciesHz.length; first += 3) {
-    const last = frequenciesHz.length - 1
-    const omegas = [0, 1, 2].map(k => (-2 * Math.PI * (frequenciesHz[Math.min(first + k, last)]! - centerHz)) / sampleRateHz)
-    const [aRe, bRe, cRe] = omegas.map(Math.cos) as [number, number, number]
-    const [aIm, bIm, cIm] = omegas.map(Math.sin) as [number, number, number]
-    let aSumRe = 0
-    let aSumIm = 0
-    let bSumRe = 0
-    let bSumIm = 0
-    let cSumRe = 0
-    let cSumIm = 0
-    for (let j = re.length - 1; j >= 0; j--) {
-      const x = re[j]!
-      const y = im[j]!
-      const aNext = aSumRe * aRe - aSumIm * aIm + x
-      aSumIm = aSumRe * aIm + aSumIm * aRe + y
-      aSumRe = aNext
-      const bNext = bSumRe * bRe - bSumIm * bIm + x
-      bSumIm = bSumRe * bIm + bSumIm * bRe + y
-      bSumRe = bNext
-      const cNext = cSumRe * cRe - cSumIm * cIm + x
-      cSumIm = cSumRe * cIm + cSumIm * cRe + y
-      cSumRe = cNext
-    }
-    const sums = [{ re: aSumRe, im: aSumIm }, { re: bSumRe, im: bSumIm }, { re: cSumRe, im: cSumIm }]
-    for (let k = 0; k < 3 && first + k <= last; k++) out.push(sums[k]!)
+  const sums = new Float64Array(6)
+  const last = frequenciesHz.length - 1
+  for (let first = 0; first <= last; first += 3) {
+    const omegaA = (-2 * Math.PI * (frequenciesHz[first]! - centerHz)) / sampleRateHz
+    const omegaB = (-2 * Math.PI * (frequenciesHz[Math.min(first + 1, last)]! - centerHz)) / sampleRateHz
+    const omegaC = (-2 * Math.PI * (frequenciesHz[Math.min(first + 2, last)]! - centerHz)) / sampleRateHz
+    hornerThree(re, im, omegaA, omegaB, omegaC, sums)
+    for (let k = 0; k < 3 && first + k <= last; k++) out.push({ re: sums[2 * k]!, im: sums[2 * k + 1]! })
   }
   return out
+}
+
+/** Σ z[j]·r^j for r = e^{iω} at three ω by Horner's rule, from the last sample; re, im pairs into `sums`. */
+function hornerThree(re: Float64Array, im: Float64Array, omegaA: number, omegaB: number, omegaC: number, sums: Float64Array): void {
+  const aRe = Math.cos(omegaA)
+  const aIm = Math.sin(omegaA)
+  const bRe = Math.cos(omegaB)
+  const bIm = Math.sin(omegaB)
+  const cRe = Math.cos(omegaC)
+  const cIm = Math.sin(omegaC)
+  let aSumRe = 0
+  let aSumIm = 0
+  let bSumRe = 0
+  let bSumIm = 0
+  let cSumRe = 0
+  let cSumIm = 0
+  for (let j = re.length - 1; j >= 0; j--) {
+    const x = re[j]!
+    const y = im[j]!
+    const aNext = aSumRe * aRe - aSumIm * aIm + x
+    aSumIm = aSumRe * aIm + aSumIm * aRe + y
+    aSumRe = aNext
+    const bNext = bSumRe * bRe - bSumIm * bIm + x
+    bSumIm = bSumRe * bIm + bSumIm * bRe + y
+    bSumRe = bNext
+    const cNext = cSumRe * cRe - cSumIm * cIm + x
+    cSumIm = cSumRe * cIm + cSumIm * cRe + y
+    cSumRe = cNext
+  }
+  sums[0] = aSumRe
+  sums[1] = aSumIm
+  sums[2] = bSumRe
+  sums[3] = bSumIm
+  sums[4] = cSumRe
+  sums[5] = cSumIm
 }
