@@ -69,7 +69,16 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
   }
   const re = new Float64Array(count)
   const im = new Float64Array(count)
-  for (let m = 0; m < count; m++) {
+  foldedFir(signal, startIndex, factor, delay, omega, hCos, hSin, re, im)
+  return { re, im, sampleRateHz: sampleRate / factor, centerHz, factor, firstIndex: startIndex + delay, taps }
+}
+
+/**
+ * The filter at each kept output with its carrier mixed off, into `re`/`im` (a function of its
+ * own: the loop is compiled whole, not entered mid-way).
+ */
+function foldedFir(signal: Float64Array, startIndex: number, factor: number, delay: number, omega: number, hCos: Float64Array, hSin: Float64Array, re: Float64Array, im: Float64Array): void {
+  for (let m = 0; m < re.length; m++) {
     const base = startIndex + m * factor
     const centre = base + delay
     let sRe = hCos[0]! * signal[centre]!
@@ -87,7 +96,6 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
     re[m] = sRe * c - sIm * s
     im[m] = sRe * s + sIm * c
   }
-  return { re, im, sampleRateHz: sampleRate / factor, centerHz, factor, firstIndex: startIndex + delay, taps }
 }
 
 /** The folded band-pass taps, reused from call to call (only the first delay + 1 are written and read). */
