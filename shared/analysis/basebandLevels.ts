@@ -17,10 +17,27 @@ export function basebandLevels(windowed: Baseband, centreHz: number, halfWidthHz
   const count = Math.floor(n / block)
   const re = new Float64Array(count)
   const im = new Float64Array(count)
-  const step = (-2 * Math.PI * (centreHz - windowed.centerHz)) / sampleRate
+  mixBlocks(xRe, xIm, (-2 * Math.PI * (centreHz - windowed.centerHz)) / sampleRate, block, re, im)
+  const points = Math.ceil(halfWidthHz / gridHz)
+  const offsetsHz = Array.from({ length: 2 * points + 1 }, (_, i) => (i - points) * gridHz)
+  const values = basebandDtft({ re, im, sampleRateHz: sampleRate / block, centerHz: 0 }, offsetsHz)
+  const levels = new Float64Array(2 * points + 1)
+  for (let i = 0; i < levels.length; i++) {
+    const x = (Math.PI * offsetsHz[i]!) / sampleRate
+    const droop = x === 0 ? 1 : Math.abs(Math.sin(block * x) / (block * Math.sin(x)))
+    levels[i] = 10 * Math.log10((values[i]!.re ** 2 + values[i]!.im ** 2) / (droop * droop) + 1e-300)
+  }
+  return levels
+}
+
+/**
+ * Sums of `block` samples each turned by e^{i·step·n} (n the sample's index), one per slot of
+ * `re`/`im`. A function of its own so the loop is compiled whole, not entered mid-way.
+ */
+function mixBlocks(xRe: Float64Array, xIm: Float64Array, step: number, block: number, re: Float64Array, im: Float64Array): void {
   const cs = Math.cos(step)
   const sn = Math.sin(step)
-  for (let b = 0; b < count; b++) {
+  for (let b = 0; b < re.length; b++) {
     // Re-seeded every block so rounding cannot build up.
     let c = Math.cos(step * b * block)
     let s = Math.sin(step * b * block)
@@ -38,14 +55,4 @@ export function basebandLevels(windowed: Baseband, centreHz: number, halfWidthHz
     re[b] = sr
     im[b] = si
   }
-  const points = Math.ceil(halfWidthHz / gridHz)
-  const offsetsHz = Array.from({ length: 2 * points + 1 }, (_, i) => (i - points) * gridHz)
-  const values = basebandDtft({ re, im, sampleRateHz: sampleRate / block, centerHz: 0 }, offsetsHz)
-  const levels = new Float64Array(2 * points + 1)
-  for (let i = 0; i < levels.length; i++) {
-    const x = (Math.PI * offsetsHz[i]!) / sampleRate
-    const droop = x === 0 ? 1 : Math.abs(Math.sin(block * x) / (block * Math.sin(x)))
-    levels[i] = 10 * Math.log10((values[i]!.re ** 2 + values[i]!.im ** 2) / (droop * droop) + 1e-300)
-  }
-  return levels
 }

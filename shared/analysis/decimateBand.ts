@@ -35,7 +35,7 @@ export function decimateBand(spectrum: Float64Array, fftSize: number, sampleRate
   const half = bins / 2
   // fft.js divides the inverse by its size; the band's samples want 1/N.
   const scale = bins / fftSize
-  const data = new Float64Array(2 * bins)
+  const { data, out } = scratchFor(bins)
   // e^{2πiq·firstIndex/N} by a rotation recurrence from q = −half, re-seeded every 1024 bins.
   const turn = (2 * Math.PI * (firstIndex % fftSize)) / fftSize
   const cosTurn = Math.cos(turn)
@@ -64,7 +64,6 @@ export function decimateBand(spectrum: Float64Array, fftSize: number, sampleRate
     sn = sn * cosTurn + c * sinTurn
     c = next
   }
-  const out = new Float64Array(2 * bins)
   fftPlan(bins).inverseTransform(out, data)
   const re = new Float64Array(bins)
   const im = new Float64Array(bins)
@@ -73,4 +72,12 @@ export function decimateBand(spectrum: Float64Array, fftSize: number, sampleRate
     im[j] = out[2 * j + 1]!
   }
   return { re, im, sampleRateHz: (sampleRate * bins) / fftSize, centerHz: (centreBin * sampleRate) / fftSize, factor: fftSize / bins, firstIndex }
+}
+
+/** The inverse transform's input and output, reused: every slot is written before it is read. */
+let scratch = new Float64Array(0)
+
+function scratchFor(bins: number): { data: Float64Array, out: Float64Array } {
+  if (scratch.length < 4 * bins) scratch = new Float64Array(4 * bins)
+  return { data: scratch.subarray(0, 2 * bins), out: scratch.subarray(2 * bins, 4 * bins) }
 }

@@ -143,8 +143,10 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
     }
   }
   const evd = new EigenvalueDecomposition(new Matrix(product))
-  const candidates = evd.realEigenvalues
-    .map((re, k) => ({ re, im: evd.imaginaryEigenvalues[k]! }))
+  // As typed arrays: ml-matrix's plain arrays hold small integers or doubles by turns, which
+  // sends compiled code here back to the interpreter again and again.
+  const imaginary = Float64Array.from(evd.imaginaryEigenvalues)
+  const candidates = Array.from(Float64Array.from(evd.realEigenvalues), (re, k) => ({ re, im: imaginary[k]! }))
     .sort((a, b) => b.im - a.im)
     .slice(0, order)
   // z = λ / i.

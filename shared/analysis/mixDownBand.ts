@@ -1,5 +1,5 @@
 import { kaiserLowPass } from './kaiserLowPass'
-import { phasorTable } from './phasorTable'
+import { phasorTable, type PhasorTable } from './phasorTable'
 
 /** A complex-valued signal as two parallel arrays. */
 export interface ComplexSignal {
@@ -61,14 +61,24 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
   // centre tap, g[c ± k] = h[c + k]·e^{∓iωk}; the pair x[c+k], x[c−k] then costs two
   // multiplications instead of four: Re += h cos ωk·(x₊ + x₋), Im += h sin ωk·(x₋ − x₊);
   // e^{iωk} by a rotation recurrence (phasorTable).
-  const { cos: hCos, sin: hSin } = phasorTable(omega, delay + 1)
+  if (folded.cos.length < delay + 1) folded = { cos: new Float64Array(delay + 1), sin: new Float64Array(delay + 1) }
+  const { cos: hCos, sin: hSin } = phasorTable(omega, delay + 1, folded)
   for (let k = 0; k <= delay; k++) {
     hCos[k]! *= taps[delay + k]!
     hSin[k]! *= taps[delay + k]!
   }
   const re = new Float64Array(count)
   const im = new Float64Array(count)
-  for (let m = 0; m < count; m++) {
+  foldedFir(signal, startIndex, factor, delay, omega, hCos, hSin, re, im)
+  return { re, im, sampleRateHz: sampleRate / factor, centerHz, factor, firstIndex: startIndex + delay, taps }
+}
+
+/**
+ * The filter at each kept output with its carrier mixed off, into `re`/`im` (a function of its
+ * own: the loop is compiled whole, not entered mid-way).
+ */
+function foldedFir(signal: Float64Array, startIndex: number, factor: number, delay: number, omega: number, hCos: Float64Array, hSin: Float64Array, re: Float64Array, im: Float64Array): void {
+  for (let m = 0; m < re.length; m++) {
     const base = startIndex + m * factor
     const centre = base + delay
     let sRe = hCos[0]! * signal[centre]!
@@ -86,8 +96,10 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
     re[m] = sRe * c - sIm * s
     im[m] = sRe * s + sIm * c
   }
-  return { re, im, sampleRateHz: sampleRate / factor, centerHz, factor, firstIndex: startIndex + delay, taps }
 }
+
+/** The folded band-pass taps, reused from call to call (only the first delay + 1 are written and read). */
+let folded: PhasorTable = { cos: new Float64Array(0), sin: new Float64Array(0) }
 
 /** Designs already made, by factor, passband and attenuation (the same few recur for every partial). */
 const designs = new Map<string, Float64Array>()

@@ -1,5 +1,5 @@
 import { basebandDtft } from './basebandDtft'
-import { blackmanHarris } from './blackmanHarris'
+import { cachedBlackmanHarris } from './cachedBlackmanHarris'
 import type { Baseband } from './decimateBand'
 import { dtftAt, type Complex } from './dtftAt'
 import { finishGoertzel } from './finishGoertzel'
@@ -55,7 +55,7 @@ export function separatePair(
   const frameLength = Math.min(Math.round((2.5 / deltaHz) * sampleRate), Math.floor((spanEnd - spanStart) / 1.5))
   const hop = Math.max(1, Math.round(frameLength / 4))
   if (!(frameLength >= minFrameLength)) return null
-  const w = blackmanHarris(frameLength)
+  const w = cachedBlackmanHarris(frameLength)
   let w0 = 0
   for (let i = 0; i < frameLength; i++) w0 += w[i]!
   const wUp = dtftAt(w, f1Hz - f2Hz, sampleRate) // W(ω1 − ω2): leakage of partial 2 into X(f1)
@@ -81,7 +81,7 @@ export function separatePair(
 
   // Long window over the span, with each partial's own decaying window gain.
   const length = spanEnd - spanStart
-  const long = blackmanHarris(length)
+  const long = cachedBlackmanHarris(length)
   // Σ gₖ[n] and the DTFT of each gain sequence gₖ[n] = w[n]·e^{−αₖ(t_n − t_onset)} at the
   // other partial's offset, in one pass without storing the sequences (Goertzel 1958).
   const alpha = decayDbPerS.map(d => (d * Math.LN10) / 20)

@@ -1,4 +1,4 @@
-import { blackmanHarris } from './blackmanHarris'
+import { cachedBlackmanHarris } from './cachedBlackmanHarris'
 import { parabolicPeak } from './parabolicPeak'
 import { realFft } from './realFft'
 import { bandNoiseFloor } from './bandNoiseFloor'
@@ -48,7 +48,7 @@ export interface ShortTimeSettings {
 export function shortTimePeaks(signal: Float64Array, sampleRate: number, settings: ShortTimeSettings): SpectrumFrame[] {
   const { windowLength, fftSize, hop } = settings
   if (fftSize < windowLength || hop < 1) throw new RangeError('fftSize must cover the window and hop must be ≥ 1')
-  const window = blackmanHarris(windowLength)
+  const window = cachedBlackmanHarris(windowLength)
   let windowSum = 0
   for (let i = 0; i < windowLength; i++) windowSum += window[i]!
   // |X| of a sinusoid of amplitude A is A·Σw/2: this turns power into dB of amplitude.

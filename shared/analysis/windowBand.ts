@@ -1,4 +1,4 @@
-import { blackmanHarris } from './blackmanHarris'
+import { cachedBlackmanHarris } from './cachedBlackmanHarris'
 import type { Baseband, DecimatedBand } from './decimateBand'
 
 /**
@@ -14,12 +14,16 @@ export function windowBand(band: DecimatedBand, startIndex: number, length: numb
   const first = (startIndex - band.firstIndex) / factor
   const count = Math.min(Math.ceil(length / factor), band.re.length - first)
   if (!(Number.isInteger(first) && first >= 0 && count >= 1 && length >= 1)) throw new RangeError('windowBand needs a span inside the band that starts on one of its samples')
-  const w = blackmanHarris(count, length / factor)
-  const re = new Float64Array(count)
-  const im = new Float64Array(count)
-  for (let j = 0; j < count; j++) {
-    re[j] = band.re[first + j]! * w[j]!
-    im[j] = band.im[first + j]! * w[j]!
-  }
+  const w = cachedBlackmanHarris(count, length / factor)
+  const re = windowed(band.re, first, w, count)
+  // A real band's zeros stay zeros: a view of them, read only like every windowed span.
+  const im = band.real ? band.im.subarray(first, first + count) : windowed(band.im, first, w, count)
   return { re, im, sampleRateHz: band.sampleRateHz, centerHz: band.centerHz, durationS: (length / factor) / band.sampleRateHz, real: band.real }
+}
+
+/** x[first + j]·w[j] for j < count (a function of its own: the loop is compiled whole, not entered mid-way). */
+function windowed(x: Float64Array, first: number, w: Float64Array, count: number): Float64Array {
+  const out = new Float64Array(count)
+  for (let j = 0; j < count; j++) out[j] = x[first + j]! * w[j]!
+  return out
 }

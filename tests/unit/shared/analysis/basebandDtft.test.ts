@@ -60,6 +60,16 @@ describe('basebandDtft', () => {
     })
   })
 
+  it('reads each frequency the same, bit for bit, alone or in a group of any size (three run in one pass)', () => {
+    const span = { re: noise(999, 8), im: noise(999, 9), sampleRateHz: 3000, centerHz: 440 }
+    const frequencies = [430, 437.5, 440, 441.25, 452, 460, 471.5]
+    for (let count = 1; count <= frequencies.length; count++) {
+      const group = basebandDtft(span, frequencies.slice(0, count))
+      expect(group).toHaveLength(count)
+      group.forEach((x, i) => expect(x).toStrictEqual(basebandDtft(span, [frequencies[i]!])[0]))
+    }
+  })
+
   it('refuses a span without a rate', () => {
     expect(() => basebandDtft({ re: new Float64Array(4), im: new Float64Array(4), sampleRateHz: 0, centerHz: 0 }, [1])).toThrow(RangeError)
   })

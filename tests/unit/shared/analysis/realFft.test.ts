@@ -1,7 +1,15 @@
+import FFT from 'fft.js'
 import { describe, expect, it } from 'vitest'
 import { directDft } from '../../../../shared/analysis/directDft'
-import { realFft } from '../../../../shared/analysis/realFft'
+import { fftPlan, realFft } from '../../../../shared/analysis/realFft'
 import { seededRandom } from '../../../support/seededRandom'
+
+/** How many entries differ in any bit (a deep equality of long arrays is slow in the test runner). */
+function differing(a: Float64Array, b: Float64Array): number {
+  let count = Math.abs(a.length - b.length)
+  for (let i = 0; i < Math.min(a.length, b.length); i++) if (!Object.is(a[i], b[i])) count++
+  return count
+}
 
 describe('realFft', () => {
   it('equals a direct DFT on random input to 1e-9 relative', () => {
@@ -33,6 +41,26 @@ describe('realFft', () => {
     let binEnergy = spectrum[0]! ** 2 + spectrum[n]! ** 2 + spectrum[n + 1]! ** 2
     for (let k = 1; k < n / 2; k++) binEnergy += 2 * (spectrum[2 * k]! ** 2 + spectrum[2 * k + 1]! ** 2)
     expect(binEnergy / n / timeEnergy).toBeCloseTo(1, 10)
+  })
+
+  it('plans transform bit for bit as plans fft.js builds itself, forward and inverse', () => {
+    const random = seededRandom(11)
+    // Largest first: the smaller plans then take their twiddles from its table.
+    for (let power = 14; power >= 1; power--) {
+      const n = 2 ** power
+      const x = new Float64Array(n).map(() => random.normal())
+      const reference = new FFT(n)
+      const expected = new Float64Array(2 * n)
+      const actual = new Float64Array(2 * n)
+      reference.realTransform(expected, x)
+      fftPlan(n).realTransform(actual, x)
+      expect(differing(actual, expected)).toBe(0)
+      const back = new Float64Array(2 * n)
+      const backExpected = new Float64Array(2 * n)
+      reference.inverseTransform(backExpected, expected)
+      fftPlan(n).inverseTransform(back, expected)
+      expect(differing(back, backExpected)).toBe(0)
+    }
   })
 
   it('refuses lengths that are not powers of two', () => {

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { bandSource } from '../../../../shared/analysis/bandSource'
 import { basebandDtft } from '../../../../shared/analysis/basebandDtft'
+import { cachedBlackmanHarris } from '../../../../shared/analysis/cachedBlackmanHarris'
+import { inputBand } from '../../../../shared/analysis/inputBand'
 import { windowBand } from '../../../../shared/analysis/windowBand'
 
 const sampleRate = 48000
@@ -17,6 +19,20 @@ describe('windowBand', () => {
       expect(span.durationS).toBeCloseTo(length / sampleRate, 12)
       const [v] = basebandDtft(span, [1000.3])
       expect(Math.abs((2 * Math.hypot(v!.re, v!.im) * band.factor) / (0.35875 * length * amplitude) - 1)).toBeLessThan(1e-4)
+    }
+  })
+
+  it('windows the input itself sample by sample, its imaginary part left all zeros', () => {
+    const x = new Float64Array(5000).map((_, n) => Math.sin(0.01 * n * n))
+    const span = windowBand(inputBand(x, sampleRate), 1200, 2048)
+    const w = cachedBlackmanHarris(2048)
+    expect(span.real).toBe(true)
+    expect(span.re).toHaveLength(2048)
+    expect(span.im).toHaveLength(2048)
+    for (const j of [0, 1, 777, 2047]) {
+      // source: definition of a windowed frame, x_w[j] = x[start + j]·w[j] (Harris 1978, eq. 1)
+      expect(span.re[j]).toBe(x[1200 + j]! * w[j]!)
+      expect(span.im[j]).toBe(0)
     }
   })
 
