@@ -1,0 +1,2 @@
+ALTER TABLE "pieces" ADD COLUMN "geometry" jsonb;--> statement-breakpoint
+ALTER TABLE "pieces" ADD COLUMN "material" text;
