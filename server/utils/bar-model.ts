@@ -25,8 +25,8 @@ async function offThread(task: BarModelTask) {
 }
 
 /** POST /api/cut-plan's work: where to cut and how deep. */
-export async function planCutsOffThread(input: CutPlanInput): Promise<CutPlan> {
-  return await offThread({ kind: 'plan', input }) as CutPlan
+export async function planCutsOffThread(input: CutPlanInput, handFactor?: number): Promise<CutPlan> {
+  return await offThread({ kind: 'plan', input, handFactor }) as CutPlan
 }
 
 /** POST /api/blanks/grade's work: what a blank's strike says about its material. */

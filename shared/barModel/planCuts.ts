@@ -22,6 +22,11 @@ export interface CutPlanOptions {
   /** Linearise–solve–re-solve rounds; default 4. */
   rounds?: number
   elements?: number
+  /**
+   * How far the workshop's cuts move a partial for each cent the model predicts (1: as the
+   * model says). Predictions are scaled by it, so the depths are chosen for the hand that cuts.
+   */
+  handFactor?: number
 }
 
 const CENTS_PER_LN = 1200 / Math.LN2
@@ -46,6 +51,8 @@ export function planCuts(bar: BarGeometry, partials: readonly PlannedPartial[], 
   if (partials.length === 0 || partials.length > 8) throw new RangeError('give one to eight partials')
   const count = options.stations ?? 21
   if (!Number.isInteger(count) || count < 3 || count > 101) throw new RangeError('stations must be a whole number from 3 to 101')
+  const hand = options.handFactor ?? 1
+  if (!(Number.isFinite(hand) && hand >= 0.1 && hand <= 10)) throw new RangeError('the hand factor must be between 0.1 and 10')
   const modeOf = rankByRatio(partials)
   const model = { modes: Math.max(4, partials.length), elements: options.elements }
   const before = solveBarModes(bar, model).frequenciesHz
@@ -56,7 +63,7 @@ export function planCuts(bar: BarGeometry, partials: readonly PlannedPartial[], 
   const limits = cutDepthLimitsMm(bar.profile, stationsMm, { maxDepthMm, minThicknessMm })
   const groups = stationGroups(count, isSymmetricProfile(bar.profile, bar.lengthMm))
   const depths = new Float64Array(count)
-  const centsAfter = (modesHz: Float64Array) => partials.map((p, i) => p.cents + 1200 * Math.log2(modesHz[modeOf[i]!]! / before[modeOf[i]!]!))
+  const centsAfter = (modesHz: Float64Array) => partials.map((p, i) => p.cents + hand * 1200 * Math.log2(modesHz[modeOf[i]!]! / before[modeOf[i]!]!))
   const cut = () => ({ ...bar, profile: applyCuts(bar.profile, stationsMm.map((xMm, j) => ({ xMm, depthMm: depths[j]! }))) })
   const alreadyWithin = partials.every(p => Math.abs(p.cents) <= p.toleranceCents)
 
@@ -70,7 +77,7 @@ export function planCuts(bar: BarGeometry, partials: readonly PlannedPartial[], 
     const a = Matrix.zeros(rows, groups.length)
     const b = new Float64Array(rows)
     partials.forEach((p, i) => {
-      groups.forEach((g, k) => a.set(i, k, g.reduce((s, j) => s + CENTS_PER_LN * sensitivity[modeOf[i]!]![j]!, 0) / p.toleranceCents))
+      groups.forEach((g, k) => a.set(i, k, g.reduce((s, j) => s + hand * CENTS_PER_LN * sensitivity[modeOf[i]!]![j]!, 0) / p.toleranceCents))
       b[i] = -cents[i]! / p.toleranceCents
     })
     groups.forEach((g, k) => {

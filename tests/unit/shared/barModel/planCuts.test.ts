@@ -69,4 +69,16 @@ describe('planCuts', () => {
     const after = cut(hard.stations).profile
     for (const p of after) expect(p.thicknessMm).toBeGreaterThanOrEqual(21 - 1e-9)
   })
+  it('cuts deeper for a hand that moves partials less than the model says, and predicts in the hand\'s cents', () => {
+    // A hand at 0.5×: the model must move the fundamental twice as far, −20 ¢, for the bar to land on target.
+    const halfHand = planCuts(bar, sharp, { handFactor: 0.5 })
+    expect(halfHand.feasible).toBe(true)
+    const modelMoved = centsMoved(halfHand.modesHz[0]!, solveBarModes(cut(halfHand.stations)).frequenciesHz[0]!)
+    // The prediction is the hand's: half the model's own change (checked by hand: 10 + 0.5 · modelMoved).
+    expect(halfHand.predicted[0]!.centsAfter).toBeCloseTo(10 + 0.5 * modelMoved, 6)
+    // Within the 3 ¢ tolerance for the hand means the model itself moves −20 ± 6 ¢: twice as far as for a hand of 1.
+    expect(modelMoved).toBeGreaterThanOrEqual(-26)
+    expect(modelMoved).toBeLessThanOrEqual(-14)
+    expect(() => planCuts(bar, sharp, { handFactor: 0 })).toThrow(RangeError)
+  })
 })
