@@ -34,7 +34,9 @@ export async function handFactorFor(db: Executor, workshopId: string, family: Te
         and s.fundamental_hz > 0 and n.fundamental_hz > 0
       order by p.created_at desc limit ${RECENT_PLANS}
     ) ratios`)
-  const { mean = null, spread = null, count = 0 } = rows[0] ?? {}
+  const mean = rows[0]?.mean ?? null
+  const spread = rows[0]?.spread ?? null
+  const count = rows[0]?.count ?? 0
   const usable = mean !== null && count >= HAND_FACTOR_MIN_PLANS && mean >= APPLIED_RANGE[0] && mean <= APPLIED_RANGE[1]
   return { family, material, mean, spread, count, applied: usable ? mean : 1 }
 }

@@ -2,7 +2,7 @@ import { BAR_MATERIALS, type BarMaterial } from '../records/barMaterials'
 import { CUT_PLAN_LIMITS } from '../schemas/cutPlan'
 import type { TemplateFamily } from '../records/lists'
 import { solveBarModes } from './solveBarModes'
-import type { BarGeometry } from './types'
+import type { BarGeometry, ProfileStation } from './types'
 
 /**
  * The starting section and shape of each family the bar model covers, from memory of
@@ -27,7 +27,7 @@ export function isModelledFamily(family: TemplateFamily): family is ModelledFami
 }
 
 /** The family's profile at length `lengthMm` and thickness `thicknessMm` (a raised-cosine arch under the middle). */
-function familyProfile(family: ModelledFamily, lengthMm: number, thicknessMm: number) {
+function familyProfile(family: ModelledFamily, lengthMm: number, thicknessMm: number): ProfileStation[] {
   const { archFrom, archDepth } = FAMILY_SHAPES[family]
   if (archDepth === 0) return [{ xMm: 0, thicknessMm }, { xMm: lengthMm, thicknessMm }]
   return Array.from({ length: ARCH_STATIONS }, (_, i) => {
@@ -57,7 +57,7 @@ function shapeConstant(family: ModelledFamily): number {
  * for a shape scaled along its length). Throws a RangeError with a plain sentence when the
  * note needs a bar longer or shorter than the model takes.
  */
-export function defaultBarGeometry(family: ModelledFamily, targetHz: number, material: BarMaterial): BarGeometry {
+export function defaultBarGeometry(family: ModelledFamily, targetHz: number, material: BarMaterial): BarGeometry & { profile: ProfileStation[] } {
   if (!(Number.isFinite(targetHz) && targetHz > 0)) throw new RangeError('The target frequency must be a positive number of hertz.')
   const shape = FAMILY_SHAPES[family]
   const { densityKgM3, youngsModulusGPa } = BAR_MATERIALS[material]
