@@ -57,10 +57,14 @@ function shapeConstant(family: ModelledFamily): number {
  * for a shape scaled along its length). Throws a RangeError with a plain sentence when the
  * note needs a bar longer or shorter than the model takes.
  */
-export function defaultBarGeometry(family: ModelledFamily, targetHz: number, material: BarMaterial): BarGeometry & { profile: ProfileStation[] } {
+export function defaultBarGeometry(
+  family: ModelledFamily, targetHz: number, material: BarMaterial,
+  measured?: { densityKgM3: number, youngsModulusGPa: number },
+): BarGeometry & { profile: ProfileStation[] } {
   if (!(Number.isFinite(targetHz) && targetHz > 0)) throw new RangeError('The target frequency must be a positive number of hertz.')
   const shape = FAMILY_SHAPES[family]
-  const { densityKgM3, youngsModulusGPa } = BAR_MATERIALS[material]
+  // A graded blank's own figures, else the material's typical ones.
+  const { densityKgM3, youngsModulusGPa } = measured ?? BAR_MATERIALS[material]
   const thicknessMm = WOODS.includes(material) ? shape.woodThicknessMm : shape.metalThicknessMm
   const lengthM = Math.sqrt((shapeConstant(family) * (thicknessMm / 1000) * Math.sqrt((youngsModulusGPa * 1e9) / densityKgM3)) / targetHz)
   const lengthMm = Math.round(lengthM * 10_000) / 10

@@ -12,7 +12,7 @@ export const BLANK_GRADE_LIMITS = {
 const L = { ...CUT_PLAN_LIMITS, ...BLANK_GRADE_LIMITS }
 
 /** A blank's dimensions and mass, and optionally its species (for a grade from the species' thresholds). */
-const blankShape = {
+export const blankShape = {
   lengthMm: within('the length', L.lengthMm, ' mm'),
   widthMm: within('the width', L.widthMm, ' mm'),
   thicknessMm: within('the thickness', L.thicknessMm, ' mm'),
@@ -20,18 +20,20 @@ const blankShape = {
   species: BarMaterialSchema.optional(),
 }
 
-function checkDensity(blank: { lengthMm: number, widthMm: number, thicknessMm: number, massG: number }, context: z.RefinementCtx) {
+export function checkDensity(blank: { lengthMm: number, widthMm: number, thicknessMm: number, massG: number }, context: z.RefinementCtx) {
   const densityKgM3 = (blank.massG * 1e6) / (blank.lengthMm * blank.widthMm * blank.thicknessMm)
   if (densityKgM3 < L.densityKgM3[0] || densityKgM3 > L.densityKgM3[1]) {
     context.addIssue({ code: z.ZodIssueCode.custom, path: ['massG'], message: `These dimensions and mass make ${Math.round(densityKgM3)} kg/m³, which no blank is: check them` })
   }
 }
 
-export const BlankGradeInputSchema = z.object({
-  ...blankShape,
+/** The first mode and its decay, as measured. */
+export const blankModeShape = {
   f1Hz: within('the first mode\'s frequency', L.f1Hz, ' Hz'),
   decayDbPerS: within('the decay rate', L.decayDbPerS, ' dB/s').optional(),
-}).strict().superRefine(checkDensity)
+}
+
+export const BlankGradeInputSchema = z.object({ ...blankShape, ...blankModeShape }).strict().superRefine(checkDensity)
 export type BlankGradeInput = z.infer<typeof BlankGradeInputSchema>
 
 /**
