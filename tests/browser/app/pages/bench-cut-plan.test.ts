@@ -32,7 +32,9 @@ describe('the cut plan on the Bench', () => {
 
     await page.getByTestId('cut-plan-make').click()
     const drawing = page.getByTestId('cut-plan-drawing')
-    await drawing.waitFor({ timeout: 30_000 })
+    // The drawing, or the server's sentence when it refused: either ends the wait, and the sentence is shown if it failed.
+    await page.locator('[data-testid="cut-plan-drawing"], [data-testid="cut-plan"] [role="alert"]').first().waitFor({ timeout: 60_000 })
+    expect(await page.getByTestId('cut-plan').locator('[role="alert"]').allInnerTexts()).toEqual([])
     expect(await drawing.locator('path').count()).toBeGreaterThanOrEqual(1)
     // Each cut: position from the left end in mm and depth in mm to 0.05 mm (two decimals).
     const cutRows = await page.getByTestId('cut-plan-cuts').locator('tbody tr').allInnerTexts()
