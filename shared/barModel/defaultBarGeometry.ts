@@ -30,12 +30,14 @@ export function isModelledFamily(family: TemplateFamily): family is ModelledFami
 function familyProfile(family: ModelledFamily, lengthMm: number, thicknessMm: number): ProfileStation[] {
   const { archFrom, archDepth } = FAMILY_SHAPES[family]
   if (archDepth === 0) return [{ xMm: 0, thicknessMm }, { xMm: lengthMm, thicknessMm }]
-  return Array.from({ length: ARCH_STATIONS }, (_, i) => {
+  const stations = Array.from({ length: ARCH_STATIONS }, (_, i) => {
     const u = i / (ARCH_STATIONS - 1)
     const inArch = Math.max(0, 1 - Math.abs(u - 0.5) / (0.5 - archFrom))
     const depth = archDepth * 0.5 * (1 - Math.cos(Math.PI * inArch))
-    return { xMm: i === ARCH_STATIONS - 1 ? lengthMm : Math.round(u * lengthMm * 10) / 10, thicknessMm: Math.round(thicknessMm * (1 - depth) * 100) / 100 }
+    return { xMm: Math.round(u * lengthMm * 100) / 100, thicknessMm: Math.round(thicknessMm * (1 - depth) * 100) / 100 }
   })
+  // Mirror the left half exactly, so the planner sees a symmetric bar and plans mirrored cuts.
+  return stations.map((s, i) => (i <= (ARCH_STATIONS - 1) / 2 ? s : { ...stations[ARCH_STATIONS - 1 - i]!, xMm: lengthMm - stations[ARCH_STATIONS - 1 - i]!.xMm }))
 }
 
 /** f₁ · L² / (h · √(E/ρ)) of a family's shape: a constant of the shape alone under Euler–Bernoulli, so one solve serves every note. */

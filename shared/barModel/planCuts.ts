@@ -19,7 +19,7 @@ export interface CutPlanOptions {
   minThicknessMm?: number
   /** Evenly spaced cut stations from end to end; default 21 (one at the centre). */
   stations?: number
-  /** Linearise–solve–re-solve rounds; default 4. */
+  /** Linearise–solve–re-solve rounds (a step that made things worse is halved in the next); default 6. */
   rounds?: number
   elements?: number
   /**
@@ -67,10 +67,30 @@ export function planCuts(bar: BarGeometry, partials: readonly PlannedPartial[], 
   const cut = () => ({ ...bar, profile: applyCuts(bar.profile, stationsMm.map((xMm, j) => ({ xMm, depthMm: depths[j]! }))) })
   const alreadyWithin = partials.every(p => Math.abs(p.cents) <= p.toleranceCents)
 
-  for (let round = 0; round < (alreadyWithin ? 0 : options.rounds ?? 4); round++) {
+  // The best depths seen, by the re-solved model: a linearised step can overshoot on a strongly
+  // undercut bar, and a plan must never be worse than not cutting.
+  const misfit = (cents: number[]) => cents.reduce((sum, c, i) => sum + (c / partials[i]!.toleranceCents) ** 2, 0)
+  let best = { misfit: Number.POSITIVE_INFINITY, depths: depths.slice() }
+  const keepIfBest = (cents: number[]) => {
+    const m = misfit(cents)
+    if (m < best.misfit) best = { misfit: m, depths: depths.slice() }
+    return m <= best.misfit
+  }
+  // The last step taken from the best depths: halved and tried again when it made things worse.
+  let lastStep = new Float64Array(count)
+  const rounds = alreadyWithin ? 0 : options.rounds ?? 6
+  let evaluated = true
+  for (let round = 0; round < rounds; round++) {
     const current = cut()
     const modes = solveBarModes(current, model)
     const cents = centsAfter(modes.frequenciesHz)
+    evaluated = true
+    if (!keepIfBest(cents)) {
+      lastStep = lastStep.map(v => v / 2)
+      depths.set(best.depths.map((d, j) => Math.min(limits[j]!, d + lastStep[j]!)))
+      evaluated = false
+      continue
+    }
     if (cents.every((c, i) => Math.abs(c) <= partials[i]!.toleranceCents / 4)) break
     const sensitivity = frequencySensitivity(current, modes, stationsMm)
     const rows = partials.length + groups.length + 1
@@ -87,10 +107,15 @@ export function planCuts(bar: BarGeometry, partials: readonly PlannedPartial[], 
     const room = Float64Array.from(groups, g => Math.min(...g.map(j => limits[j]! - depths[j]!)))
     const step = boundedLeastSquares(a, b, room)
     if (step.every(v => v < 1e-4)) break
+    evaluated = false
     groups.forEach((g, k) => g.forEach((j) => {
+      lastStep[j] = step[k]!
       depths[j] = Math.min(limits[j]!, depths[j]! + step[k]!)
     }))
   }
+
+  if (!evaluated) keepIfBest(centsAfter(solveBarModes(cut(), model).frequenciesHz))
+  if (rounds > 0) depths.set(best.depths)
 
   // To the 0.05 mm a benchmaker can cut, never past a limit.
   const steps = 1 / DEPTH_STEP_MM

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { applyCuts } from '../../../../shared/barModel/applyCuts'
+import { defaultBarGeometry } from '../../../../shared/barModel/defaultBarGeometry'
 import { planCuts } from '../../../../shared/barModel/planCuts'
 import { solveBarModes } from '../../../../shared/barModel/solveBarModes'
 import { ROSEWOOD_LIKE, uniformBar } from '../../../support/bars'
@@ -80,5 +81,16 @@ describe('planCuts', () => {
     expect(modelMoved).toBeGreaterThanOrEqual(-26)
     expect(modelMoved).toBeLessThanOrEqual(-14)
     expect(() => planCuts(bar, sharp, { handFactor: 0 })).toThrow(RangeError)
+  })
+  it('plans shallow mirrored cuts for an undercut bar whose fundamental is 10 ¢ sharp, keeping the tuned second and third', () => {
+    // C4 = 261.63 Hz (ISO 16:1975); tolerances 3, 5 and 10 ¢ (starter triple marimba template, common practice)
+    const arch = defaultBarGeometry('bar', 261.6256, 'rosewood')
+    const triple = [{ ratio: 1, cents: 10, toleranceCents: 3 }, { ratio: 4, cents: 0, toleranceCents: 5 }, { ratio: 10, cents: 0, toleranceCents: 10 }]
+    const archPlan = planCuts(arch, triple)
+    expect(archPlan.feasible).toBe(true)
+    archPlan.predicted.forEach((p, i) => expect(Math.abs(p.centsAfter)).toBeLessThanOrEqual(triple[i]!.toleranceCents))
+    const depths = archPlan.stations.map(s => s.depthMm)
+    expect(depths).toEqual([...depths].reverse())
+    for (const d of depths) expect(d).toBeLessThanOrEqual(1)
   })
 })
