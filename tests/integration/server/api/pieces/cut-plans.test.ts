@@ -165,5 +165,5 @@ describe('the workshop\'s hand', () => {
     // The prediction is the hand's: the model's own change times the factor.
     const predictedChange = plan.predicted[0].centsAfter - plan.predicted[0].centsBefore
     expect(predictedChange).toBeCloseTo(plan.modelFundamentalChangeCents * mean, 9)
-  })
+  }, 240_000) // eight strikes measured and four plans worked out, on a shared machine
 })
