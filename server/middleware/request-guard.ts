@@ -18,7 +18,7 @@ export default defineEventHandler(async (event) => {
   const problem = crossSiteProblem(event, String(useRuntimeConfig().siteUrl ?? ''))
   if (problem) fail(403, problem)
   if (!hasBody(event)) return
-  const policy = bodyPolicy(event.method, event.path.split('?')[0]!)
+  const policy = bodyPolicy(event.method, event.path.split('?')[0]!, getHeader(event, 'content-type'))
   if (!acceptsType(policy.kind, getHeader(event, 'content-type'))) {
     fail(415, policy.kind === 'upload'
       ? 'Send the recording as a multipart form (multipart/form-data) with a "file" field.'

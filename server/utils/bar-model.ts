@@ -1,5 +1,6 @@
 import { createError } from 'h3'
 import type { BlankFigures } from '../../shared/barModel/gradeBlank'
+import { gradeFromThresholds, type BlankGrade } from '../../shared/barModel/gradeFromThresholds'
 import type { BarModelTask } from '../../shared/barModel/runBarModelTask'
 import type { BlankGradeInput } from '../../shared/schemas/blankGrade'
 import type { CutPlan, CutPlanInput } from '../../shared/schemas/cutPlan'
@@ -25,12 +26,12 @@ async function offThread(task: BarModelTask) {
 }
 
 /** POST /api/cut-plan's work: where to cut and how deep. */
-export async function planCutsOffThread(input: CutPlanInput): Promise<CutPlan> {
-  return await offThread({ kind: 'plan', input }) as CutPlan
+export async function planCutsOffThread(input: CutPlanInput, handFactor?: number): Promise<CutPlan> {
+  return await offThread({ kind: 'plan', input, handFactor }) as CutPlan
 }
 
-/** POST /api/blanks/grade's work: what a blank's strike says about its material. */
-export async function gradeBlankOffThread(input: BlankGradeInput): Promise<BlankFigures & { grade: null }> {
-  // Grades come from the workshop's own thresholds per species, which are not stored yet.
-  return { ...(await offThread({ kind: 'grade', input }) as BlankFigures), grade: null }
+/** POST /api/blanks/grade's work: what a blank's strike says about its material, graded when its species is given. */
+export async function gradeBlankOffThread(input: BlankGradeInput): Promise<BlankFigures & { grade: BlankGrade | null }> {
+  const figures = await offThread({ kind: 'grade', input }) as BlankFigures
+  return { ...figures, grade: input.species ? gradeFromThresholds(figures, input.species) : null }
 }

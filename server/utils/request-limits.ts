@@ -21,6 +21,11 @@ const UPLOAD_ROUTES: readonly { method: string, path: RegExp }[] = [
   { method: 'POST', path: /^\/api\/analyze$/ },
 ]
 
+/** Routes that take either JSON or a multipart upload (a recording), told apart by the Content-Type. */
+const JSON_OR_UPLOAD_ROUTES: readonly { method: string, path: RegExp }[] = [
+  { method: 'POST', path: /^\/api\/blanks\/grade$/ },
+]
+
 /** Routes anyone may call without signing in. */
 const PUBLIC_PREFIXES = ['/api/auth/', '/api/invitations/', '/api/verify/']
 
@@ -28,9 +33,11 @@ export type BodyKind = 'upload' | 'json'
 
 export interface BodyPolicy { kind: BodyKind, maxBytes: number }
 
-/** What body a request may carry, from its method and path (without the query). */
-export function bodyPolicy(method: string, path: string): BodyPolicy {
-  if (UPLOAD_ROUTES.some(r => r.method === method && r.path.test(path))) return { kind: 'upload', maxBytes: BODY_LIMITS.uploadBytes }
+/** What body a request may carry, from its method and path (without the query), and on a route that takes either, its Content-Type. */
+export function bodyPolicy(method: string, path: string, contentType?: string): BodyPolicy {
+  const multipart = mediaType(contentType) === 'multipart/form-data'
+  const either = multipart && JSON_OR_UPLOAD_ROUTES.some(r => r.method === method && r.path.test(path))
+  if (either || UPLOAD_ROUTES.some(r => r.method === method && r.path.test(path))) return { kind: 'upload', maxBytes: BODY_LIMITS.uploadBytes }
   const open = PUBLIC_PREFIXES.some(p => path.startsWith(p))
   return { kind: 'json', maxBytes: open ? BODY_LIMITS.publicJsonBytes : BODY_LIMITS.jsonBytes }
 }

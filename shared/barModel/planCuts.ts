@@ -19,9 +19,14 @@ export interface CutPlanOptions {
   minThicknessMm?: number
   /** Evenly spaced cut stations from end to end; default 21 (one at the centre). */
   stations?: number
-  /** Linearise–solve–re-solve rounds; default 4. */
+  /** Linearise–solve–re-solve rounds (a step that made things worse is halved in the next); default 6. */
   rounds?: number
   elements?: number
+  /**
+   * How far the workshop's cuts move a partial for each cent the model predicts (1: as the
+   * model says). Predictions are scaled by it, so the depths are chosen for the hand that cuts.
+   */
+  handFactor?: number
 }
 
 const CENTS_PER_LN = 1200 / Math.LN2
@@ -46,6 +51,8 @@ export function planCuts(bar: BarGeometry, partials: readonly PlannedPartial[], 
   if (partials.length === 0 || partials.length > 8) throw new RangeError('give one to eight partials')
   const count = options.stations ?? 21
   if (!Number.isInteger(count) || count < 3 || count > 101) throw new RangeError('stations must be a whole number from 3 to 101')
+  const hand = options.handFactor ?? 1
+  if (!(Number.isFinite(hand) && hand >= 0.1 && hand <= 10)) throw new RangeError('the hand factor must be between 0.1 and 10')
   const modeOf = rankByRatio(partials)
   const model = { modes: Math.max(4, partials.length), elements: options.elements }
   const before = solveBarModes(bar, model).frequenciesHz
@@ -56,21 +63,41 @@ export function planCuts(bar: BarGeometry, partials: readonly PlannedPartial[], 
   const limits = cutDepthLimitsMm(bar.profile, stationsMm, { maxDepthMm, minThicknessMm })
   const groups = stationGroups(count, isSymmetricProfile(bar.profile, bar.lengthMm))
   const depths = new Float64Array(count)
-  const centsAfter = (modesHz: Float64Array) => partials.map((p, i) => p.cents + 1200 * Math.log2(modesHz[modeOf[i]!]! / before[modeOf[i]!]!))
+  const centsAfter = (modesHz: Float64Array) => partials.map((p, i) => p.cents + hand * 1200 * Math.log2(modesHz[modeOf[i]!]! / before[modeOf[i]!]!))
   const cut = () => ({ ...bar, profile: applyCuts(bar.profile, stationsMm.map((xMm, j) => ({ xMm, depthMm: depths[j]! }))) })
   const alreadyWithin = partials.every(p => Math.abs(p.cents) <= p.toleranceCents)
 
-  for (let round = 0; round < (alreadyWithin ? 0 : options.rounds ?? 4); round++) {
+  // The best depths seen, by the re-solved model: a linearised step can overshoot on a strongly
+  // undercut bar, and a plan must never be worse than not cutting.
+  const misfit = (cents: number[]) => cents.reduce((sum, c, i) => sum + (c / partials[i]!.toleranceCents) ** 2, 0)
+  let best = { misfit: Number.POSITIVE_INFINITY, depths: depths.slice() }
+  const keepIfBest = (cents: number[]) => {
+    const m = misfit(cents)
+    if (m < best.misfit) best = { misfit: m, depths: depths.slice() }
+    return m <= best.misfit
+  }
+  // The last step taken from the best depths: halved and tried again when it made things worse.
+  let lastStep = new Float64Array(count)
+  const rounds = alreadyWithin ? 0 : options.rounds ?? 6
+  let evaluated = true
+  for (let round = 0; round < rounds; round++) {
     const current = cut()
     const modes = solveBarModes(current, model)
     const cents = centsAfter(modes.frequenciesHz)
+    evaluated = true
+    if (!keepIfBest(cents)) {
+      lastStep = lastStep.map(v => v / 2)
+      depths.set(best.depths.map((d, j) => Math.min(limits[j]!, d + lastStep[j]!)))
+      evaluated = false
+      continue
+    }
     if (cents.every((c, i) => Math.abs(c) <= partials[i]!.toleranceCents / 4)) break
     const sensitivity = frequencySensitivity(current, modes, stationsMm)
     const rows = partials.length + groups.length + 1
     const a = Matrix.zeros(rows, groups.length)
     const b = new Float64Array(rows)
     partials.forEach((p, i) => {
-      groups.forEach((g, k) => a.set(i, k, g.reduce((s, j) => s + CENTS_PER_LN * sensitivity[modeOf[i]!]![j]!, 0) / p.toleranceCents))
+      groups.forEach((g, k) => a.set(i, k, g.reduce((s, j) => s + hand * CENTS_PER_LN * sensitivity[modeOf[i]!]![j]!, 0) / p.toleranceCents))
       b[i] = -cents[i]! / p.toleranceCents
     })
     groups.forEach((g, k) => {
@@ -80,10 +107,15 @@ export function planCuts(bar: BarGeometry, partials: readonly PlannedPartial[], 
     const room = Float64Array.from(groups, g => Math.min(...g.map(j => limits[j]! - depths[j]!)))
     const step = boundedLeastSquares(a, b, room)
     if (step.every(v => v < 1e-4)) break
+    evaluated = false
     groups.forEach((g, k) => g.forEach((j) => {
+      lastStep[j] = step[k]!
       depths[j] = Math.min(limits[j]!, depths[j]! + step[k]!)
     }))
   }
+
+  if (!evaluated) keepIfBest(centsAfter(solveBarModes(cut(), model).frequenciesHz))
+  if (rounds > 0) depths.set(best.depths)
 
   // To the 0.05 mm a benchmaker can cut, never past a limit.
   const steps = 1 / DEPTH_STEP_MM

@@ -27,6 +27,17 @@ export const ProfileStationSchema = z.object({
   thicknessMm: within('the thickness', L.thicknessMm, ' mm'),
 }).strict()
 
+/** A profile must run from 0 mm to the bar's length, left to right: a zod refinement shared by every bar body. */
+export function checkProfileEnds(input: { lengthMm: number, profile: { xMm: number }[] }, context: z.RefinementCtx) {
+  const p = input.profile
+  const add = (message: string) => context.addIssue({ code: z.ZodIssueCode.custom, path: ['profile'], message })
+  if (p[0]!.xMm !== 0 || p[p.length - 1]!.xMm !== input.lengthMm) add('The profile must start at 0 mm and end at the bar\'s length')
+  else if (p.some((s, i) => i > 0 && !(s.xMm > p[i - 1]!.xMm))) add('Profile stations must go from left to right without repeats')
+}
+
+export const ProfileSchema = z.array(ProfileStationSchema, { required_error: 'Give the thickness profile' })
+  .min(2, 'The profile needs at least two stations').max(L.profileStations, `The profile has at most ${L.profileStations} stations`)
+
 export const CutPlanPartialSchema = z.object({
   ratio: within('the ratio', L.ratio, ''),
   cents: within('the deviation', [-L.cents, L.cents], ' ¢'),
@@ -36,8 +47,7 @@ export const CutPlanPartialSchema = z.object({
 export const CutPlanInputSchema = z.object({
   lengthMm: within('the length', L.lengthMm, ' mm'),
   widthMm: within('the width', L.widthMm, ' mm'),
-  profile: z.array(ProfileStationSchema, { required_error: 'Give the thickness profile' })
-    .min(2, 'The profile needs at least two stations').max(L.profileStations, `The profile has at most ${L.profileStations} stations`),
+  profile: ProfileSchema,
   densityKgM3: within('the density', L.densityKgM3, ' kg/m³'),
   youngsModulusGPa: within('Young\'s modulus', L.youngsModulusGPa, ' GPa'),
   partials: z.array(CutPlanPartialSchema, { required_error: 'Give the measured partials' })
@@ -45,12 +55,7 @@ export const CutPlanInputSchema = z.object({
     .refine(ps => new Set(ps.map(p => p.ratio)).size === ps.length, 'Two partials have the same ratio'),
   maxDepthMm: within('the maximum depth', L.maxDepthMm, ' mm').optional(),
   minThicknessMm: within('the minimum thickness', L.thicknessMm, ' mm').optional(),
-}).strict().superRefine((input, context) => {
-  const p = input.profile
-  const add = (message: string) => context.addIssue({ code: z.ZodIssueCode.custom, path: ['profile'], message })
-  if (p[0]!.xMm !== 0 || p[p.length - 1]!.xMm !== input.lengthMm) add('The profile must start at 0 mm and end at the bar\'s length')
-  else if (p.some((s, i) => i > 0 && !(s.xMm > p[i - 1]!.xMm))) add('Profile stations must go from left to right without repeats')
-})
+}).strict().superRefine(checkProfileEnds)
 export type CutPlanInput = z.infer<typeof CutPlanInputSchema>
 
 export const CutPlanSchema = z.object({

@@ -5,6 +5,8 @@ import { createdAt, instant, personRef, workshopRecord } from './columns'
 import type { TemplatePartialSpec } from '../../../shared/analysis/types'
 import { PIECE_STAGES } from '../../../shared/records/stages'
 import { PIECE_VERDICTS, TEMPLATE_FAMILIES } from '../../../shared/records/lists'
+import { BAR_MATERIAL_NAMES } from '../../../shared/records/barMaterials'
+import type { PieceGeometry } from '../../../shared/schemas/pieceGeometry'
 
 /** One partial of a ratio template, as stored in a template version (the engine's own shape). */
 export type StoredTemplatePartial = TemplatePartialSpec
@@ -100,6 +102,9 @@ export const pieces = pgTable('pieces', {
   approvedAt: instant('approved_at'),
   // An approval can be undone until this time (the database's clock); null or past: final.
   approvalFinalAt: instant('approval_final_at'),
+  /** The bar model's geometry entered by hand; null: the register's default for the note. */
+  geometry: jsonb('geometry').$type<PieceGeometry>(),
+  material: text('material', { enum: BAR_MATERIAL_NAMES }),
   createdAt: createdAt(),
   updatedAt: instant('updated_at').notNull().defaultNow(),
 }, t => [

@@ -12,6 +12,13 @@ describe('bodyPolicy', () => {
     expect(BODY_LIMITS.uploadBytes - LIMITS.maxBytes).toBeLessThanOrEqual(1024 * 1024)
   })
 
+  it('takes JSON or, by its Content-Type, a multipart recording on the blank-grading route', () => {
+    expect(bodyPolicy('POST', '/api/blanks/grade', 'application/json').kind).toBe('json')
+    expect(bodyPolicy('POST', '/api/blanks/grade').kind).toBe('json')
+    expect(bodyPolicy('POST', '/api/blanks/grade', 'multipart/form-data; boundary=x')).toEqual({ kind: 'upload', maxBytes: BODY_LIMITS.uploadBytes })
+    expect(bodyPolicy('POST', '/api/cut-plan', 'multipart/form-data; boundary=x').kind).toBe('json')
+  })
+
   it('gives public routes 64 kB and signed-in routes 1 MB', () => {
     for (const path of ['/api/auth/login', '/api/auth/signup', '/api/invitations/accept', '/api/verify/abc']) expect(bodyPolicy('POST', path).maxBytes).toBe(64 * 1024)
     for (const path of ['/api/lots', '/api/sets', '/api/templates/x', '/api/authx']) expect(bodyPolicy('POST', path).maxBytes).toBe(1024 * 1024)

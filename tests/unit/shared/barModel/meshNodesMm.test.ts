@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest'
 import { isSymmetricProfile } from '../../../../shared/barModel/isSymmetricProfile'
+import { applyCuts } from '../../../../shared/barModel/applyCuts'
+import { defaultBarGeometry } from '../../../../shared/barModel/defaultBarGeometry'
 import { meshNodesMm } from '../../../../shared/barModel/meshNodesMm'
+import { solveBarModes } from '../../../../shared/barModel/solveBarModes'
 import { thicknessAtMm } from '../../../../shared/barModel/thicknessAtMm'
 
 describe('meshNodesMm', () => {
@@ -24,5 +27,16 @@ describe('thicknessAtMm and isSymmetricProfile', () => {
   it('tells a symmetric arch from a lopsided one', () => {
     expect(isSymmetricProfile(arch, 200)).toBe(true)
     expect(isSymmetricProfile([{ xMm: 0, thicknessMm: 20 }, { xMm: 80, thicknessMm: 10 }, { xMm: 200, thicknessMm: 20 }], 200)).toBe(false)
+  })
+  it('merges stations a few µm apart, so stations that do not change the bar do not change its modes', () => {
+    const nodes = meshNodesMm(100, [{ xMm: 0, thicknessMm: 10 }, { xMm: 25, thicknessMm: 9 }, { xMm: 25.004, thicknessMm: 9 }, { xMm: 100, thicknessMm: 10 }], 40)
+    for (let i = 1; i < nodes.length; i++) expect(nodes[i]! - nodes[i - 1]!).toBeGreaterThan(100 / 40 / 1000)
+    expect(nodes.at(-1)).toBe(100)
+    // Identity: zero-depth cuts add stations on the straight parts of the profile and leave the bar as it was.
+    const bar = defaultBarGeometry('bar', 261.6256, 'rosewood')
+    const same = { ...bar, profile: applyCuts(bar.profile, Array.from({ length: 21 }, (_, j) => ({ xMm: (bar.lengthMm * j) / 20, depthMm: 0 }))) }
+    const a = solveBarModes(bar).frequenciesHz
+    const b = solveBarModes(same).frequenciesHz
+    for (let m = 0; m < 4; m++) expect(Math.abs(b[m]! / a[m]! - 1)).toBeLessThan(1e-5)
   })
 })

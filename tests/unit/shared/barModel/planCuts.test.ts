@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { applyCuts } from '../../../../shared/barModel/applyCuts'
+import { defaultBarGeometry } from '../../../../shared/barModel/defaultBarGeometry'
 import { planCuts } from '../../../../shared/barModel/planCuts'
 import { solveBarModes } from '../../../../shared/barModel/solveBarModes'
 import { ROSEWOOD_LIKE, uniformBar } from '../../../support/bars'
@@ -68,5 +69,28 @@ describe('planCuts', () => {
     for (const s of hard.stations) expect(s.depthMm).toBeLessThanOrEqual(1 + 1e-9)
     const after = cut(hard.stations).profile
     for (const p of after) expect(p.thicknessMm).toBeGreaterThanOrEqual(21 - 1e-9)
+  })
+  it('cuts deeper for a hand that moves partials less than the model says, and predicts in the hand\'s cents', () => {
+    // A hand at 0.5×: the model must move the fundamental twice as far, −20 ¢, for the bar to land on target.
+    const halfHand = planCuts(bar, sharp, { handFactor: 0.5 })
+    expect(halfHand.feasible).toBe(true)
+    const modelMoved = centsMoved(halfHand.modesHz[0]!, solveBarModes(cut(halfHand.stations)).frequenciesHz[0]!)
+    // The prediction is the hand's: half the model's own change (checked by hand: 10 + 0.5 · modelMoved).
+    expect(halfHand.predicted[0]!.centsAfter).toBeCloseTo(10 + 0.5 * modelMoved, 6)
+    // Within the 3 ¢ tolerance for the hand means the model itself moves −20 ± 6 ¢: twice as far as for a hand of 1.
+    expect(modelMoved).toBeGreaterThanOrEqual(-26)
+    expect(modelMoved).toBeLessThanOrEqual(-14)
+    expect(() => planCuts(bar, sharp, { handFactor: 0 })).toThrow(RangeError)
+  })
+  it('plans shallow mirrored cuts for an undercut bar whose fundamental is 10 ¢ sharp, keeping the tuned second and third', () => {
+    // C4 = 261.63 Hz (ISO 16:1975); tolerances 3, 5 and 10 ¢ (starter triple marimba template, common practice)
+    const arch = defaultBarGeometry('bar', 261.6256, 'rosewood')
+    const triple = [{ ratio: 1, cents: 10, toleranceCents: 3 }, { ratio: 4, cents: 0, toleranceCents: 5 }, { ratio: 10, cents: 0, toleranceCents: 10 }]
+    const archPlan = planCuts(arch, triple)
+    expect(archPlan.feasible).toBe(true)
+    archPlan.predicted.forEach((p, i) => expect(Math.abs(p.centsAfter)).toBeLessThanOrEqual(triple[i]!.toleranceCents))
+    const depths = archPlan.stations.map(s => s.depthMm)
+    expect(depths).toEqual([...depths].reverse())
+    for (const d of depths) expect(d).toBeLessThanOrEqual(1)
   })
 })

@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import { benchMembers } from '../../../support/bench-members'
-import { api } from '../../../support/http'
+import { api, BASE_URL } from '../../../support/http'
 
 // A rosewood-like blank. from memory: dense rosewoods are about 1000 kg/m³ with E near 20 GPa along the grain.
 const E_GPA = 20
@@ -59,10 +59,16 @@ describe('POST /api/blanks/grade', () => {
     })
   }
 
-  it('refuses a strike upload on this route until the recording path exists (415, never 500)', async () => {
+  it('checks a strike upload\'s figures before measuring it (400 with a sentence, never 500)', async () => {
     const form = new FormData()
     form.set('file', new Blob([new Uint8Array(64)], { type: 'audio/wav' }), 'blank.wav')
     const reply = await api('/api/blanks/grade', { method: 'POST', token: benchmaker, body: form })
+    expect(reply.status).toBe(400)
+    expect(reply.body.message).toMatch(/^lengthMm: Enter the length\.$/)
+  })
+
+  it('answers 415 for a body that is neither JSON nor a multipart form', async () => {
+    const reply = await fetch(`${BASE_URL}/api/blanks/grade`, { method: 'POST', headers: { 'content-type': 'text/plain', 'authorization': `Bearer ${benchmaker}` }, body: 'f1Hz=600' })
     expect(reply.status).toBe(415)
   })
 })
