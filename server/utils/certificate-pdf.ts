@@ -68,13 +68,22 @@ function field(label: string, value: string): Content[] {
   return [{ text: label, color: SOFT }, { text: value }]
 }
 
+/** The lots line: each lot's code, material and species, and the permit number of a listed species. */
+export function materialLotsText(lots: CertificateContent['instrument']['lots']): string {
+  if (!lots.length) return 'none recorded'
+  return lots.map((l) => {
+    const what = [l.material, l.species].filter(Boolean).join(', ')
+    return `${l.code} (${what}${l.permitNumber ? `; permit ${l.permitNumber}` : ''})`
+  }).join('; ')
+}
+
 /** The document definition of a certificate (pure: the same content gives the same layout). */
 export async function certificateDocument(content: CertificateContent, status: string, paper: Paper): Promise<TDocumentDefinitions> {
   const qr = await QRCode.toDataURL(content.verificationUrl, { errorCorrectionLevel: 'M', margin: 0, width: 240, color: { dark: INK, light: WHITE } })
   const signedAt = new Date(content.signedAt)
   const signedText = `${signedAt.toISOString().slice(0, 10)} ${signedAt.toISOString().slice(11, 16)} UTC`
   const i = content.instrument
-  const lots = i.lots.length ? i.lots.map(l => `${l.code} (${[l.material, l.species].filter(Boolean).join(', ')})`).join('; ') : 'none recorded'
+  const lots = materialLotsText(i.lots)
   return {
     pageSize: paper,
     pageMargins: [48, 62, 48, 58],
@@ -133,7 +142,8 @@ export async function certificateDocument(content: CertificateContent, status: s
             [...field('Model', i.model), ...field('Serial number', i.serial)],
             [...field('Name', i.name), ...field('Range', i.range)],
             [...field('Pieces', `${i.pieceCount}${i.scrappedCount ? ` (${i.scrappedCount} scrapped, not listed)` : ''}`), ...field('Reference pitch', `A4 = ${content.referenceHz} Hz, ${content.temperament}`)],
-            [...field('Material lots', lots), { text: '' }, { text: '' }],
+            // Every lot on one line across the table, not squeezed into one of its four columns.
+            [{ text: 'Material lots', color: SOFT }, { text: lots, colSpan: 3 }, { text: '' }, { text: '' }],
           ],
         },
         layout: 'noBorders',
