@@ -2,7 +2,7 @@ import { and, asc, eq, isNull } from 'drizzle-orm'
 import { auditEvents, certificates, pieces, serviceRecords, sets } from '../database/schema'
 import type { Database, Executor } from '../database/client'
 import type { ServiceBooking } from '../../shared/schemas/service'
-import { SERVICE_KIND_LABELS, type SetHistoryKind } from '../../shared/records/lists'
+import { SERVICE_KIND_LABELS, type CertificateStatus, type SetHistoryKind } from '../../shared/records/lists'
 import type { Member } from './auth'
 import { audit } from './audit'
 import { conflictOnDuplicate, fail } from './http-errors'
@@ -76,7 +76,7 @@ interface HistoryEvent {
   kind: SetHistoryKind
   text: string
   reason: string | null
-  certificate: { number: string, code: string, status: string } | null
+  certificate: { number: string, code: string, status: CertificateStatus } | null
 }
 
 /** A set's whole life in time order: made, certified, shipped, booked in, re-certified, revoked. */

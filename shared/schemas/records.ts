@@ -93,14 +93,17 @@ export const ReturnSchema = z.object({ comment: z.string({ required_error: 'Say 
 export const ReopenSchema = z.object({ reason: z.string({ required_error: 'Give the reason for reopening' }).trim().min(5, 'Give a reason of at least 5 characters').max(500, 'A reason is at most 500 characters') })
 export const AssignSchema = z.object({ assigneeId: z.string().uuid('Choose a member').nullable() })
 
+const emptyAsNull = (v: unknown) => (v === '' ? null : v)
+
 /** A lot's fields; a listed timber species needs its permit number (shared/records/listedTimber.ts). */
 export const LotFieldsSchema = z.object({
   code: z.string().trim().min(1, 'Give the lot a code').max(40, 'A lot code is at most 40 characters'),
   material: z.string().trim().min(1, 'Name the material').max(80, 'The material is at most 80 characters'),
   species: z.string().trim().max(120, 'The species or alloy is at most 120 characters').default(''),
   supplier: z.string().trim().max(160, 'The supplier is at most 160 characters').default(''),
-  receivedOn: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Write the date received as YYYY-MM-DD').nullish(),
-  moisturePct: finite('the moisture content').min(0, 'Moisture content must be between 0 and 100 %').max(100, 'Moisture content must be between 0 and 100 %').nullish(),
+  // An empty field of a form means "not recorded".
+  receivedOn: z.preprocess(emptyAsNull, z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Write the date received as YYYY-MM-DD').nullish()),
+  moisturePct: z.preprocess(emptyAsNull, finite('the moisture content').min(0, 'Moisture content must be between 0 and 100 %').max(100, 'Moisture content must be between 0 and 100 %').nullish()),
   permitNumber: z.string().trim().max(80, 'A permit number is at most 80 characters').default(''),
   documents: z.string().max(2000, 'Documents are at most 2000 characters').default(''),
   notes: z.string().max(2000, 'Notes are at most 2000 characters').default(''),
