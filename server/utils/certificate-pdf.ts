@@ -2,6 +2,7 @@ import pdfmake from 'pdfmake'
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
 import QRCode from 'qrcode'
 import type { CertificateContent, CertificatePartial } from '../../shared/certificates/content'
+import { materialLotsText } from '../../shared/certificates/materialLotsText'
 import { formatCents, partialState } from '../../shared/format/numbers'
 import { CERTIFICATE_MEANING, lookHex, PARTIAL_MEANING, verdictMeaning, type Meaning } from '../../shared/look/meanings'
 import { markSvg } from '../../shared/look/markSvg'
@@ -66,15 +67,6 @@ const heading = (text: string): Content => ({ text, style: 'h2' })
 
 function field(label: string, value: string): Content[] {
   return [{ text: label, color: SOFT }, { text: value }]
-}
-
-/** The lots line: each lot's code, material and species, and the permit number of a listed species. */
-export function materialLotsText(lots: CertificateContent['instrument']['lots']): string {
-  if (!lots.length) return 'none recorded'
-  return lots.map((l) => {
-    const what = [l.material, l.species].filter(Boolean).join(', ')
-    return `${l.code} (${what}${l.permitNumber ? `; permit ${l.permitNumber}` : ''})`
-  }).join('; ')
 }
 
 /** The document definition of a certificate (pure: the same content gives the same layout). */
