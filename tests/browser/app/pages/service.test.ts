@@ -18,7 +18,7 @@ describe('service booking', () => {
     await signInAs(page, ctx.office.email, ctx.office.password)
     await page.goto(`${BASE_URL}/sets/${ctx.set.id}`)
     await page.getByRole('button', { name: 'Book in for service…' }).click()
-    await page.getByLabel('Service').selectOption({ label: 'Retune' })
+    await page.getByLabel('Service', { exact: true }).selectOption({ label: 'Retune' })
     await page.getByLabel('Reason').fill('Top octave drifted sharp after a dry winter')
     await page.getByLabel('Condition on arrival').fill('Frame sound, two bars scuffed')
     await page.getByRole('button', { name: 'Book in for service', exact: true }).click()
