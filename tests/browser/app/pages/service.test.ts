@@ -33,6 +33,8 @@ describe('service booking', () => {
     await page.reload()
     const recertified = page.getByTestId('set-history').locator('[data-kind="recertified"]')
     await expectText(recertified, new RegExp(`Certificate ${second.number} .*superseding ${first.number}`))
+    // The first certificate's line carries its standing now, by shape and word as everywhere.
+    await expectText(page.getByTestId('set-history').locator('[data-kind="certified"]'), /Superseded/)
     expect(await page.getByTestId('set-history').locator('li').evaluateAll(els => els.map(e => e.getAttribute('data-kind'))))
       .toEqual(['made', 'certified', 'shipped', 'serviced', 'recertified'])
     await screenshot(page, 'set-serviced-1280x800')
