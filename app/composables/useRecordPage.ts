@@ -14,7 +14,7 @@ export interface RecordPageSpec<T> {
  * title from it, and what DetailPage takes (`v-bind="page"`: the record, the load error, its
  * name and its way back).
  */
-export async function useRecordPage<T>(collection: 'pieces' | 'sets' | 'templates', spec: RecordPageSpec<T>) {
+export async function useRecordPage<T>(collection: 'pieces' | 'sets' | 'templates' | 'lots', spec: RecordPageSpec<T>) {
   const id = String(useRoute().params.id)
   const fetched = useFetch<T>(`/api/${collection}/${id}`, { key: `${collection}-${id}` })
   useHead({ title: () => `${fetched.data.value ? spec.name(fetched.data.value as T) : spec.fallback} · Tonewright` })

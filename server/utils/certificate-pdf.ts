@@ -2,6 +2,7 @@ import pdfmake from 'pdfmake'
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
 import QRCode from 'qrcode'
 import type { CertificateContent, CertificatePartial } from '../../shared/certificates/content'
+import { materialLotsText } from '../../shared/certificates/materialLotsText'
 import { formatCents, partialState } from '../../shared/format/numbers'
 import { CERTIFICATE_MEANING, lookHex, PARTIAL_MEANING, verdictMeaning, type Meaning } from '../../shared/look/meanings'
 import { markSvg } from '../../shared/look/markSvg'
@@ -74,7 +75,7 @@ export async function certificateDocument(content: CertificateContent, status: s
   const signedAt = new Date(content.signedAt)
   const signedText = `${signedAt.toISOString().slice(0, 10)} ${signedAt.toISOString().slice(11, 16)} UTC`
   const i = content.instrument
-  const lots = i.lots.length ? i.lots.map(l => `${l.code} (${[l.material, l.species].filter(Boolean).join(', ')})`).join('; ') : 'none recorded'
+  const lots = materialLotsText(i.lots)
   return {
     pageSize: paper,
     pageMargins: [48, 62, 48, 58],
@@ -133,7 +134,8 @@ export async function certificateDocument(content: CertificateContent, status: s
             [...field('Model', i.model), ...field('Serial number', i.serial)],
             [...field('Name', i.name), ...field('Range', i.range)],
             [...field('Pieces', `${i.pieceCount}${i.scrappedCount ? ` (${i.scrappedCount} scrapped, not listed)` : ''}`), ...field('Reference pitch', `A4 = ${content.referenceHz} Hz, ${content.temperament}`)],
-            [...field('Material lots', lots), { text: '' }, { text: '' }],
+            // Every lot on one line across the table, not squeezed into one of its four columns.
+            [{ text: 'Material lots', color: SOFT }, { text: lots, colSpan: 3 }, { text: '' }, { text: '' }],
           ],
         },
         layout: 'noBorders',

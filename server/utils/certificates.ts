@@ -10,6 +10,7 @@ import { PDF_PENDING } from './certificate-pdf-job'
 import { renderPdfOffThread } from './certificate-pdf-pool'
 import { storeCertificate } from './certificate-store'
 import { fail } from './http-errors'
+import { closeService, openService, serviceReissueReason } from './service'
 import { certificateMail, queueMail } from './mail'
 import type { BlobStorage } from './storage'
 
@@ -45,14 +46,26 @@ export async function reissueCertificate(db: Database, member: Member, id: strin
 async function issue(db: Database, member: Member, setId: string, siteUrl: string, reissue: Reissue | null) {
   try {
     return await db.transaction(async (tx) => {
-      const frozen = await freezeCertificate(tx, member, setId, siteUrl, reissue)
-      return storeCertificate(tx, member, setId, frozen, reissue?.reason ?? null)
+      // Signing a set back from service supersedes the certificate it came in with.
+      const supersede = reissue ?? await serviceReissue(tx, setId)
+      const frozen = await freezeCertificate(tx, member, setId, siteUrl, supersede)
+      const stored = await storeCertificate(tx, member, setId, frozen, supersede?.reason ?? null)
+      await closeService(tx, member, setId, stored.id)
+      return stored
     })
   }
   catch (error) {
     if (isOneValidViolation(error)) fail(409, 'This set was signed a moment ago by another request; its certificate is in the list.')
     throw error
   }
+}
+
+/** The re-issue a signing under an open service makes of the set's valid certificate, or null. */
+async function serviceReissue(tx: Executor, setId: string): Promise<Reissue | null> {
+  const open = await openService(tx, setId)
+  if (!open) return null
+  const [valid] = await tx.select({ id: certificates.id }).from(certificates).where(and(eq(certificates.setId, setId), eq(certificates.status, 'valid')))
+  return valid ? { id: valid.id, reason: serviceReissueReason(open) } : null
 }
 
 export async function findCertificate(db: Executor, workshopId: string, id: string): Promise<Certificate> {

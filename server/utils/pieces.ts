@@ -44,10 +44,11 @@ export async function listPieces(db: Executor, member: Member, query: PieceQuery
       note: pieces.note, targetHz: pieces.targetHz, stage: pieces.stage, latestVerdict: pieces.latestVerdict,
       latestWorstCents: pieces.latestWorstCents, latestFundamentalHz: pieces.latestFundamentalHz,
       strikeCount: pieces.strikeCount, assigneeId: pieces.assigneeId, assigneeName: users.name,
-      updatedAt: pieces.updatedAt, latestStrikeAt: pieces.latestStrikeAt,
+      updatedAt: pieces.updatedAt, latestStrikeAt: pieces.latestStrikeAt, lotId: pieces.lotId, lotCode: lots.code,
     }).from(pieces)
       .innerJoin(sets, eq(sets.id, pieces.setId))
       .leftJoin(users, eq(users.id, pieces.assigneeId))
+      .leftJoin(lots, eq(lots.id, pieces.lotId))
       .where(filter)
       .orderBy(...SORTS[query.sort]!)
       .limit(query.pageSize)

@@ -72,6 +72,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Bench', to: '/bench', permission: 'bench:strike' },
   { label: 'Pieces', to: '/pieces', permission: 'pieces:read' },
   { label: 'Sets', to: '/sets', permission: 'sets:read' },
+  { label: 'Lots', to: '/lots', permission: 'pieces:read' },
   { label: 'Review', to: '/review', permission: 'review:decide' },
   { label: 'Templates', to: '/templates', permission: 'templates:read' },
   { label: 'Certificates', to: '/certificates', permission: 'certificates:read' },

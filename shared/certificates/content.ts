@@ -34,7 +34,7 @@ export interface ContentInput {
   workshop: { name: string, address: string }
   set: Pick<InstrumentSetFields, 'name' | 'model' | 'serial' | 'fromNote' | 'toNote' | 'chromatic' | 'buyerName' | 'buyerOrganisation' | 'buyerEmail' | 'referenceHz' | 'temperament'>
   scrappedCount: number
-  lots: { id: string, code: string, material: string, species: string }[]
+  lots: { id: string, code: string, material: string, species: string, permitNumber?: string }[]
   pieces: {
     position: number
     note: string
@@ -82,7 +82,7 @@ export function buildCertificateContent(input: ContentInput): CertificateContent
   const lotById = new Map(input.lots.map(l => [l.id, l]))
   const usedLots = [...new Set(input.pieces.map(p => p.lotId).filter((id): id is string => Boolean(id)))]
     .map(id => lotById.get(id)).filter(l => l !== undefined)
-    .map(l => ({ code: l.code, material: l.material, species: l.species }))
+    .map(l => ({ code: l.code, material: l.material, species: l.species, permitNumber: l.permitNumber ?? '' }))
     .sort((a, b) => a.code.localeCompare(b.code))
   const templates = new Map<string, { template: string, referenceTemperatureC: number, coefficientCentsPerC: number }>()
   for (const p of input.pieces) {

@@ -73,3 +73,20 @@ export type MailKind = (typeof MAIL_KINDS)[number]
 /** Where an e-mail in the outbox stands. */
 export const MAIL_STATUSES = ['queued', 'sent', 'failed'] as const
 export type MailStatus = (typeof MAIL_STATUSES)[number]
+
+/** Why a shipped set came back: retuning, or a repair (which is then retuned). */
+export const SERVICE_KIND_LABELS = { retune: 'Retune', repair: 'Repair' }
+export const SERVICE_KINDS = keysOf(SERVICE_KIND_LABELS)
+export type ServiceKind = (typeof SERVICE_KINDS)[number]
+
+/** The moments of a set's life its page lists, in the words it uses. */
+export const SET_HISTORY_LABELS = {
+  made: 'Made',
+  certified: 'Certified',
+  shipped: 'Shipped',
+  serviced: 'Booked in for service',
+  recertified: 'Re-certified',
+  revoked: 'Certificate revoked',
+}
+export const SET_HISTORY_KINDS = keysOf(SET_HISTORY_LABELS)
+export type SetHistoryKind = (typeof SET_HISTORY_KINDS)[number]

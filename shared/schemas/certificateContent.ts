@@ -43,7 +43,8 @@ export const CertificateContentSchema = z.object({
     range: z.string(),
     pieceCount: z.number(),
     scrappedCount: z.number(),
-    lots: z.array(z.object({ code: z.string(), material: z.string(), species: z.string() })),
+    // The permit number was added for listed timber species: older certificates read it as none.
+    lots: z.array(z.object({ code: z.string(), material: z.string(), species: z.string(), permitNumber: z.string().default('') })),
   }),
   referenceHz: z.number(),
   temperament: z.string(),

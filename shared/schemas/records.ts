@@ -3,6 +3,7 @@ import { parseNoteName } from '../analysis/parseNoteName'
 import { COMPOSITE_MOVES, isCompositeMove, PIECE_STAGES } from '../records/stages'
 import { PIECE_VERDICTS, TEMPLATE_FAMILIES } from '../records/lists'
 import { wordsOr } from '../format/words'
+import { permitProblem } from '../records/listedTimber'
 
 export const finite = (what: string) => z.number({ required_error: `Enter ${what}`, invalid_type_error: `${what} must be a number` }).finite(`${what} must be a number`)
 
@@ -93,20 +94,38 @@ export const ReturnSchema = z.object({ comment: z.string({ required_error: 'Say 
 export const ReopenSchema = z.object({ reason: z.string({ required_error: 'Give the reason for reopening' }).trim().min(5, 'Give a reason of at least 5 characters').max(500, 'A reason is at most 500 characters') })
 export const AssignSchema = z.object({ assigneeId: z.string().uuid('Choose a member').nullable() })
 
-export const LotInputSchema = z.object({
+const emptyAsNull = (v: unknown) => (v === '' ? null : v)
+
+/** A lot's fields; a listed timber species needs its permit number (shared/records/listedTimber.ts). */
+export const LotFieldsSchema = z.object({
   code: z.string().trim().min(1, 'Give the lot a code').max(40, 'A lot code is at most 40 characters'),
   material: z.string().trim().min(1, 'Name the material').max(80, 'The material is at most 80 characters'),
   species: z.string().trim().max(120, 'The species or alloy is at most 120 characters').default(''),
   supplier: z.string().trim().max(160, 'The supplier is at most 160 characters').default(''),
-  receivedOn: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Write the date received as YYYY-MM-DD').nullish(),
-  moisturePct: finite('the moisture content').min(0, 'Moisture content must be between 0 and 100 %').max(100, 'Moisture content must be between 0 and 100 %').nullish(),
+  // An empty field of a form means "not recorded".
+  receivedOn: z.preprocess(emptyAsNull, z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Write the date received as YYYY-MM-DD').nullish()),
+  moisturePct: z.preprocess(emptyAsNull, finite('the moisture content').min(0, 'Moisture content must be between 0 and 100 %').max(100, 'Moisture content must be between 0 and 100 %').nullish()),
+  permitNumber: z.string().trim().max(80, 'A permit number is at most 80 characters').default(''),
   documents: z.string().max(2000, 'Documents are at most 2000 characters').default(''),
   notes: z.string().max(2000, 'Notes are at most 2000 characters').default(''),
 })
+const permitRule = (lot: { species?: string, permitNumber?: string }, ctx: z.RefinementCtx) => {
+  const problem = permitProblem(lot.species ?? '', lot.permitNumber ?? '')
+  if (problem) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['permitNumber'], message: problem })
+}
+export const LotInputSchema = LotFieldsSchema.superRefine(permitRule)
+/** An edit names only the fields it changes; the service checks the permit rule on the merged lot. */
+export const LotPatchSchema = LotFieldsSchema.partial().refine(p => Object.keys(p).length > 0, 'Change at least one field of the lot')
+export type LotPatch = z.infer<typeof LotPatchSchema>
 export type LotInput = z.infer<typeof LotInputSchema>
 
 /** Multipart fields of a strike upload (strings, as forms send them). */
 export const StrikeFieldsSchema = z.object({
   temperatureC: z.coerce.number({ invalid_type_error: 'The temperature must be a number in °C' }).min(-10, 'The bench temperature must be between −10 and 50 °C').max(50, 'The bench temperature must be between −10 and 50 °C').optional(),
   humidityPct: z.coerce.number({ invalid_type_error: 'The humidity must be a number in %' }).min(0, 'Humidity must be between 0 and 100 %').max(100, 'Humidity must be between 0 and 100 %').optional(),
+})
+
+/** Pieces made from one lot: at most a few sets' worth in one request. */
+export const LotAssignSchema = z.object({
+  pieceIds: z.array(z.string().uuid('That is not a valid piece id'), { required_error: 'List the pieces' }).min(1, 'List at least one piece').max(500, 'At most 500 pieces at a time'),
 })

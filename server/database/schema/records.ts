@@ -47,6 +47,8 @@ export const lots = pgTable('lots', {
   supplier: text('supplier').notNull().default(''),
   receivedOn: text('received_on'),
   moisturePct: doublePrecision('moisture_pct'),
+  // The permit or certificate number a listed timber species needs (shared/records/listedTimber.ts).
+  permitNumber: text('permit_number').notNull().default(''),
   documents: text('documents').notNull().default(''),
   notes: text('notes').notNull().default(''),
   createdAt: createdAt(),

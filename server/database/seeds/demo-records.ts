@@ -146,7 +146,7 @@ export async function seedDemoRecords(db: Transaction, storage: BlobStorage, wor
     office: await byEmail('office@tonewright.test'),
   }
   await db.insert(lots).values([
-    { workshopId, code: 'RW-2611', material: 'rosewood', species: 'Dalbergia (billet batch)', supplier: 'Marrowgate Timber Yard', receivedOn: '2026-09-14', moisturePct: 9.5, documents: 'Timber trade paperwork on file, folder 26/11', notes: 'Quarter-sawn billets, air-dried 3 years.' },
+    { workshopId, code: 'RW-2611', material: 'rosewood', species: 'Dalbergia (billet batch)', supplier: 'Marrowgate Timber Yard', receivedOn: '2026-09-14', moisturePct: 9.5, permitNumber: 'MTY-EX-26-0917', documents: 'Timber trade paperwork on file, folder 26/11', notes: 'Quarter-sawn billets, air-dried 3 years.' },
     { workshopId, code: 'ST-0409', material: 'steel', species: 'spring steel, hardened', supplier: 'Coldharbour Bar Stock', receivedOn: '2026-10-02', documents: 'Mill certificate on file', notes: 'Bar stock 32 × 8 mm.' },
   ])
   const marimbaTriple = await templateIdByName(db, workshopId, 'Marimba bar, triple (1 : 4 : 10)')

@@ -9,7 +9,7 @@ import { ROLES, expectText } from '../../support/screens'
 let session: Awaited<ReturnType<typeof launch>>
 
 /** The screens built here, with the heading each opens with. */
-const HEADINGS: Record<string, string> = { '/pieces': 'Pieces', '/sets': 'Sets', '/review': 'Review', '/templates': 'Templates', '/team': 'Team' }
+const HEADINGS: Record<string, string> = { '/pieces': 'Pieces', '/sets': 'Sets', '/lots': 'Lots', '/review': 'Review', '/templates': 'Templates', '/team': 'Team' }
 
 /** A synthetic strike on one piece: its fundamental, `cents` away from the target. */
 function strikeWav(targetHz: number, cents: number) {

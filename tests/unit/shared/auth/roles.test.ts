@@ -43,13 +43,13 @@ describe('can', () => {
 
 describe('navigation', () => {
   it('shows the owner every screen in the product order, Mailbox only in development', () => {
-    expect(navItemsFor('owner').map(i => i.label)).toEqual(['Bench', 'Pieces', 'Sets', 'Review', 'Templates', 'Certificates', 'Team'])
+    expect(navItemsFor('owner').map(i => i.label)).toEqual(['Bench', 'Pieces', 'Sets', 'Lots', 'Review', 'Templates', 'Certificates', 'Team'])
     expect(navItemsFor('owner', { dev: true }).map(i => i.label)).toContain('Mailbox')
   })
 
   it('hides the Bench and Review from the office, and Review and Certificates from a benchmaker', () => {
-    expect(navItemsFor('office').map(i => i.label)).toEqual(['Pieces', 'Sets', 'Templates', 'Certificates', 'Team'])
-    expect(navItemsFor('benchmaker').map(i => i.label)).toEqual(['Bench', 'Pieces', 'Sets', 'Templates', 'Team'])
+    expect(navItemsFor('office').map(i => i.label)).toEqual(['Pieces', 'Sets', 'Lots', 'Templates', 'Certificates', 'Team'])
+    expect(navItemsFor('benchmaker').map(i => i.label)).toEqual(['Bench', 'Pieces', 'Sets', 'Lots', 'Templates', 'Team'])
   })
 
   it('finds the permission of nested screen paths', () => {
