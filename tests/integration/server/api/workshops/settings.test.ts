@@ -4,7 +4,7 @@ import { api, memberWithRole, newWorkshop } from '../../../support/http'
 const URL = '/api/workshops/current/settings'
 
 describe('workshop settings', () => {
-  it('starts at UTC, °C and A = 440 Hz, and the owner changes them (audited)', async () => {
+  it('starts at UTC, °C and A = 440 Hz, and the owner changes them', async () => {
     const owner = await newWorkshop('Settings check works')
     const first = await api(URL, { token: owner.token })
     expect(first.status).toBe(200)
