@@ -1,4 +1,6 @@
 import { formatZonedDate, formatZonedDateTime, UTC_CLOCK, type WorkshopClock } from '#shared/format/dates'
+import { formatTemperature } from '#shared/format/temperature'
+import type { TemperatureUnit } from '#shared/records/lists'
 
 /**
  * The signed-in workshop's clock (its time zone and date locale, carried by the session), or
@@ -22,4 +24,13 @@ export function formatWhen(value: string | Date | null | undefined): string {
 /** A calendar day in the workshop's time zone and locale ("30 Mar 2026"). */
 export function formatDay(value: string | Date | null | undefined): string {
   return formatZonedDate(value, workshopClock())
+}
+
+/** A bench temperature (stored in °C) in the workshop's unit. */
+export function formatBenchTemperature(celsius: number | null | undefined): string {
+  let unit: TemperatureUnit = 'C'
+  tryUseNuxtApp()?.runWithContext(() => {
+    unit = useAuth().data.value?.settings?.temperatureUnit ?? 'C'
+  })
+  return formatTemperature(celsius, unit)
 }
