@@ -104,6 +104,7 @@ export default defineNuxtConfig({
           role: ROLES.map(role => `'${role}'`).join(' | '),
           workshops: '{ id: string, name: string, role: string }[]',
           mustChangePassword: 'boolean',
+          settings: '{ timeZone: string, locale: string, temperatureUnit: \'C\' | \'F\', referenceHz: number } | null',
         },
       },
     },

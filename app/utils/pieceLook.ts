@@ -25,9 +25,3 @@ export function lookOf(meaning: Meaning) {
 export function stateWord(state: PartialState): string {
   return MEANINGS[state].word
 }
-
-export function formatWhen(value: string | Date | null | undefined): string {
-  if (!value) return '—'
-  const d = new Date(value)
-  return d.toLocaleString('en-GB', { day: '2-digit', month: 'short', hour: '2-digit', minute: '2-digit', timeZone: 'UTC' }) + ' UTC'
-}

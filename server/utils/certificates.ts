@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { certificates, pieces, type Certificate } from '../database/schema'
-import type { Database, Executor } from '../database/client'
+import type { Database, Executor, Transactor } from '../database/client'
 import { parseCertificateContent } from '../../shared/schemas/certificateContent'
 import type { Member } from './auth'
 import { audit } from './audit'
@@ -33,7 +33,7 @@ function isOneValidViolation(error: unknown) {
  * explicit re-issue with a reason. Two signings racing meet at the set row lock,
  * and the one-valid-per-set index is the last word.
  */
-export async function signCertificate(db: Database, member: Member, setId: string, siteUrl: string) {
+export async function signCertificate(db: Transactor, member: Member, setId: string, siteUrl: string) {
   return issue(db, member, setId, siteUrl, null)
 }
 
@@ -43,7 +43,7 @@ export async function reissueCertificate(db: Database, member: Member, id: strin
   return issue(db, member, cert.setId, siteUrl, { id, reason })
 }
 
-async function issue(db: Database, member: Member, setId: string, siteUrl: string, reissue: Reissue | null) {
+async function issue(db: Transactor, member: Member, setId: string, siteUrl: string, reissue: Reissue | null) {
   try {
     return await db.transaction(async (tx) => {
       // Signing a set back from service supersedes the certificate it came in with.
@@ -130,7 +130,7 @@ export async function prepareCertificateMail(db: Executor, workshopId: string, i
 }
 
 /** Queues the certificate e-mail to the buyer (or another address); a background job sends it. */
-export async function sendCertificate(db: Database, member: Member, id: string, to: string | undefined) {
+export async function sendCertificate(db: Transactor, member: Member, id: string, to: string | undefined) {
   return db.transaction(async (tx) => {
     const { cert, to: address, mail } = await prepareCertificateMail(tx, member.workshopId, id, to)
     const message = await queueMail(tx, {

@@ -77,6 +77,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Templates', to: '/templates', permission: 'templates:read' },
   { label: 'Certificates', to: '/certificates', permission: 'certificates:read' },
   { label: 'Team', to: '/team', permission: 'team:read' },
+  { label: 'Settings', to: '/settings', permission: 'workshop:manage' },
   { label: 'Mailbox', to: '/mailbox', permission: 'workshop:read', devOnly: true },
 ]
 

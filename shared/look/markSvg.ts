@@ -1,6 +1,7 @@
-import { lookHex, MEANINGS, type Meaning, type Shape } from './meanings'
+import { lookHex, MEANINGS, type Look, type Meaning, type Shape } from './meanings'
+import { hex } from './palette'
 
-const SHAPES: Record<Shape, (colour: string) => string> = {
+const SHAPES: Record<Shape, (colour: string, edge: string) => string> = {
   'disc': c => `<circle cx="7" cy="7" r="6" fill="${c}"/>`,
   'triangle-up': c => `<polygon points="7,1 13,13 1,13" fill="${c}"/>`,
   'triangle-down': c => `<polygon points="1,1 13,1 7,13" fill="${c}"/>`,
@@ -12,10 +13,12 @@ const SHAPES: Record<Shape, (colour: string) => string> = {
   'cross': c => `<path d="M3 3l8 8M11 3l-8 8" stroke="${c}" stroke-width="2.4"/>`,
   'clock': c => `<g fill="none" stroke="${c}" stroke-width="1.6"><circle cx="7" cy="7" r="5.5"/><path d="M7 3.8V7l2.2 1.6"/></g>`,
   'swatch': c => `<rect x="1" y="1" width="12" height="12" rx="2" fill="${c}"/>`,
+  'warning-sign': (c, edge) => `<polygon points="7,1.2 13,12.6 1,12.6" fill="${c}" stroke="${edge}" stroke-width="1.4" stroke-linejoin="round"/><path d="M7 5v3.6M7 10.2v.9" stroke="${edge}" stroke-width="1.6"/>`,
 }
 
 /** A meaning's mark as a standalone SVG (for documents that are not Vue: the certificate PDF). */
 export function markSvg(meaning: Meaning, sizePx: number): string {
-  const draw = SHAPES[MEANINGS[meaning].shape]
-  return `<svg width="${sizePx}" height="${sizePx}" viewBox="0 0 14 14">${draw(lookHex(meaning).colour)}</svg>`
+  const look: Look = MEANINGS[meaning]
+  const draw = SHAPES[look.shape]
+  return `<svg width="${sizePx}" height="${sizePx}" viewBox="0 0 14 14">${draw(lookHex(meaning).colour, hex(look.outline ?? look.colour))}</svg>`
 }

@@ -11,7 +11,7 @@ import { familyOf, hex, type Family, type Tone } from './palette'
  * message families (madder, heather) belong to their group alone, so a verdict never
  * looks like an error, a notice, a piece of advice or a stage.
  */
-export type Shape = 'disc' | 'triangle-up' | 'triangle-down' | 'open-square' | 'ring' | 'crossed-square' | 'check' | 'cross' | 'clock' | 'dot-ring' | 'swatch'
+export type Shape = 'disc' | 'triangle-up' | 'triangle-down' | 'open-square' | 'ring' | 'crossed-square' | 'check' | 'cross' | 'clock' | 'dot-ring' | 'swatch' | 'warning-sign'
 
 export type LookGroup = 'verdict' | 'stage' | 'status' | 'message' | 'advice'
 
@@ -29,6 +29,8 @@ export interface Look {
   onColour: Tone
   /** A chart marker where it sits on the tint (a stronger shade where needed). */
   marker: Tone
+  /** The mark's edge when its colour alone is too light to stand out from the paper (the warning sign). */
+  outline?: Tone
   shape: Shape
   word: string
 }
@@ -69,6 +71,8 @@ export const MEANINGS = {
   // Messages: something went wrong, or something to know.
   error: look('message', { colour: 'madder-500', text: 'madder-700', tint: 'madder-50', edge: 'madder-100' }, 'cross', 'error'),
   info: look('message', { colour: 'heather-500', text: 'heather-700', tint: 'heather-50', edge: 'heather-100' }, 'dot-ring', 'note'),
+  // A warning or caution: safety yellow with a black edge, as ISO 3864-1 draws warning signs.
+  warning: { ...look('message', { colour: 'signal-400', text: 'signal-800', tint: 'signal-50', edge: 'signal-100' }, 'warning-sign', 'caution'), onColour: 'ink', outline: 'ink' },
   // Advice at the bench: where to remove material (never drawn like sharp or flat).
   advice: look('advice', { colour: 'brass-600', text: 'brass-700', tint: 'brass-100', edge: 'brass-400' }, 'swatch', 'remove material here'),
 } as const satisfies Record<string, Look>
@@ -83,6 +87,10 @@ export const STAGE_MEANING: Record<PieceStage, Meaning> = Object.fromEntries(PIE
 export const CERTIFICATE_MEANING: Record<CertificateStatus, Meaning> = { valid: 'valid', superseded: 'superseded', revoked: 'revoked' }
 export const CERTIFICATE_PDF_MEANING: Record<CertificatePdfStatus, Meaning> = { pending: 'waiting', ready: 'done' }
 export const MAIL_MEANING: Record<MailStatus, Meaning> = { queued: 'waiting', sent: 'done', failed: 'error' }
+/** What a message box says: something went wrong, something to take care with, something to know, something done. */
+export const MESSAGE_TONES = ['error', 'warning', 'info', 'success'] as const
+export type MessageTone = (typeof MESSAGE_TONES)[number]
+export const MESSAGE_MEANING: Record<MessageTone, Meaning> = { error: 'error', warning: 'warning', info: 'info', success: 'done' }
 export const REANALYSIS_MEANING: Record<ReanalysisStatus, Meaning> = { queued: 'waiting', running: 'waiting', done: 'done', failed: 'error' }
 
 /**
@@ -103,7 +111,7 @@ export function lookHex(meaning: Meaning): { colour: string, text: string, tint:
 
 /** Every tone a look uses, with its family (for the checks that keep looks apart). */
 export function lookTones(l: Look): { tone: Tone, family: Family }[] {
-  return [l.colour, l.text, l.tint, l.edge, l.onColour, l.marker].map(tone => ({ tone, family: familyOf(tone) }))
+  return [l.colour, l.text, l.tint, l.edge, l.onColour, l.marker, ...(l.outline ? [l.outline] : [])].map(tone => ({ tone, family: familyOf(tone) }))
 }
 
 /**
@@ -124,10 +132,11 @@ export function lookClasses(meaning: Meaning) {
     softFill: `fill-${l.tint}`,
     marker: `fill-${l.marker}`,
     background: `bg-${l.colour}`,
+    outline: l.outline ? `stroke-${l.outline}` : '',
   }
 }
 
 /** Every class `lookClasses` can return, for Tailwind's safelist. */
 export function lookClassNames(): string[] {
-  return [...new Set((Object.keys(MEANINGS) as Meaning[]).flatMap(m => Object.values(lookClasses(m))))]
+  return [...new Set((Object.keys(MEANINGS) as Meaning[]).flatMap(m => Object.values(lookClasses(m))))].filter(Boolean)
 }

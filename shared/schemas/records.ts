@@ -73,17 +73,24 @@ export const PieceQuerySchema = z.object({
 export type PieceQuery = z.infer<typeof PieceQuerySchema>
 
 const COMPOSITE_MOVE_NAMES = Object.entries(COMPOSITE_MOVES).map(([to, via]) => `${to} through ${via}`).join(', ')
+/** Scrapping is final for the piece and the audit keeps why: it needs a reason of a few words. */
+export const SCRAP_REASON_MIN = 3
+const SCRAP_REASON = { message: 'Say why the piece is scrapped (a reason of at least 3 characters)', path: ['reason'] }
+function hasReasonWhereNeeded(b: { to: string, reason?: string }) {
+  return b.to !== 'scrapped' || (b.reason ?? '').length >= SCRAP_REASON_MIN
+}
 // `via`: a composite move of the stage table (review through tuning), made in one transaction.
 export const StageChangeSchema = z.object({
   to: stage,
   via: stage.optional(),
   reason: z.string().trim().max(500, 'A reason is at most 500 characters').optional(),
 }).refine(b => !b.via || isCompositeMove(b.to, b.via), { message: `A move through another stage is one of: ${COMPOSITE_MOVE_NAMES}`, path: ['via'] })
+  .refine(hasReasonWhereNeeded, SCRAP_REASON)
 export const BulkStageSchema = z.object({
   pieceIds: z.array(z.string().uuid('A piece id is not valid')).min(1, 'Choose at least one piece').max(200, 'Change at most 200 pieces at once'),
   to: stage,
   reason: z.string().trim().max(500, 'A reason is at most 500 characters').optional(),
-})
+}).refine(hasReasonWhereNeeded, SCRAP_REASON)
 export const ApproveSchema = z.object({
   strikeId: z.string({ required_error: 'Say which strike the approval rests on' }).uuid('That is not a strike id'),
   overrideReason: z.string().trim().min(5, 'Give a reason of at least 5 characters for the override').max(500, 'A reason is at most 500 characters').optional(),

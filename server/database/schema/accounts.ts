@@ -12,6 +12,9 @@ export const workshops = pgTable('workshops', {
   address: text('address').notNull().default(''),
   referenceHz: doublePrecision('reference_hz').notNull().default(440),
   temperatureUnit: text('temperature_unit', { enum: TEMPERATURE_UNITS }).notNull().default('C'),
+  // Times are shown in this IANA zone and dates written in this BCP 47 locale (checked with Intl on the way in).
+  timeZone: text('time_zone').notNull().default('UTC'),
+  locale: text('locale').notNull().default('en-GB'),
   createdAt: createdAt(),
 })
 

@@ -4,6 +4,8 @@ import type { Role } from '../../../shared/auth/roles'
 export const DEMO_WORKSHOP = {
   name: 'Brackenfold Bar & Bell Works',
   address: 'Unit 4, Ropewalk Yard, Brackenfold',
+  timeZone: 'Europe/London',
+  locale: 'en-GB',
 }
 
 export const DEMO_PASSWORD = 'tonewright-demo'

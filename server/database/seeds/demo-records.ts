@@ -14,7 +14,7 @@ import type { BlobStorage } from '../../utils/storage'
 const SAMPLE_RATE = 44100
 const DURATION_S = 1.4
 
-interface People { owner: string, supervisor: string, bench: string, office: string }
+export interface People { owner: string, supervisor: string, bench: string, office: string }
 
 /**
  * How far along each piece is. The marimba is mid-way: its low bars approved, the
@@ -58,7 +58,7 @@ function strikeCountFor(stage: PieceStage, random: ReturnType<typeof seededRando
   return 2 + Math.floor(random.uniform() * 3)
 }
 
-async function seedSetStrikes(
+export async function seedSetStrikes(
   db: Transaction, storage: BlobStorage, workshopId: string, setId: string, people: People,
   stageOf: (i: number, n: number) => PieceStage, seed: number, decayScale: number,
 ) {
@@ -170,4 +170,5 @@ export async function seedDemoRecords(db: Transaction, storage: BlobStorage, wor
   // Rosewood rings for a shorter time than steel.
   await seedSetStrikes(db, storage, workshopId, marimba.id, people, marimbaStage, 43, 1.6)
   await seedSetStrikes(db, storage, workshopId, glockSet.id, people, glockStage, 37, 0.5)
+  return people
 }

@@ -6,10 +6,10 @@ import type { Locator } from 'playwright-core'
 // sets, buyers, certificates, read everything). The test server is a production
 // build, so the development-only Mailbox is never among them.
 export const ROLES = {
-  owner: { email: 'owner@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Lots', 'Review', 'Templates', 'Certificates', 'Team'], forbidden: [] },
-  supervisor: { email: 'supervisor@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Lots', 'Review', 'Templates', 'Certificates', 'Team'], forbidden: [] },
-  benchmaker: { email: 'bench@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Lots', 'Templates', 'Team'], forbidden: ['/review', '/certificates'] },
-  office: { email: 'office@tonewright.test', nav: ['Pieces', 'Sets', 'Lots', 'Templates', 'Certificates', 'Team'], forbidden: ['/bench', '/review'] },
+  owner: { email: 'owner@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Lots', 'Review', 'Templates', 'Certificates', 'Team', 'Settings'], forbidden: [] },
+  supervisor: { email: 'supervisor@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Lots', 'Review', 'Templates', 'Certificates', 'Team'], forbidden: ['/settings'] },
+  benchmaker: { email: 'bench@tonewright.test', nav: ['Bench', 'Pieces', 'Sets', 'Lots', 'Templates', 'Team'], forbidden: ['/review', '/certificates', '/settings'] },
+  office: { email: 'office@tonewright.test', nav: ['Pieces', 'Sets', 'Lots', 'Templates', 'Certificates', 'Team'], forbidden: ['/bench', '/review', '/settings'] },
 } as const
 
 /** Waits for the first match and then for its text to match the pattern. */

@@ -38,7 +38,6 @@ describe('invitation and password reset screens', () => {
     const email = uniqueEmail('revoked')
     const workshop = await newWorkshop('Tidemill Chimes')
     const page = await session.newPage()
-    page.on('dialog', dialog => dialog.accept())
     await signInAs(page, workshop.email, workshop.password)
     await page.goto(`${BASE_URL}/team`)
     const form = page.locator('form', { has: page.getByRole('heading', { name: 'Invite by e-mail' }) })
@@ -48,6 +47,7 @@ describe('invitation and password reset screens', () => {
     await row.waitFor()
     await screenshot(page, 'team-pending-invitations')
     await row.getByRole('button', { name: `Revoke the invitation to ${email}` }).click()
+    await page.getByTestId('confirm-dialog').getByRole('button', { name: 'Revoke invitation' }).click()
     await page.getByText(`The invitation to ${email} was revoked.`).waitFor()
     // The list reloads after the answer: the row leaves once it has.
     await row.waitFor({ state: 'detached' })

@@ -43,7 +43,7 @@ describe('can', () => {
 
 describe('navigation', () => {
   it('shows the owner every screen in the product order, Mailbox only in development', () => {
-    expect(navItemsFor('owner').map(i => i.label)).toEqual(['Bench', 'Pieces', 'Sets', 'Lots', 'Review', 'Templates', 'Certificates', 'Team'])
+    expect(navItemsFor('owner').map(i => i.label)).toEqual(['Bench', 'Pieces', 'Sets', 'Lots', 'Review', 'Templates', 'Certificates', 'Team', 'Settings'])
     expect(navItemsFor('owner', { dev: true }).map(i => i.label)).toContain('Mailbox')
   })
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import {
   CERTIFICATE_MEANING, CERTIFICATE_PDF_MEANING, lookClassNames, lookHex, lookTones, MAIL_MEANING, MEANINGS,
-  NEUTRAL_FAMILIES, PARTIAL_MEANING, REANALYSIS_MEANING, STAGE_MEANING, verdictMeaning, type Look, type Meaning,
+  MESSAGE_MEANING, MESSAGE_TONES, NEUTRAL_FAMILIES, PARTIAL_MEANING, REANALYSIS_MEANING, STAGE_MEANING, verdictMeaning, type Look, type Meaning,
 } from '../../../../shared/look/meanings'
 import { familyOf, hex, PALETTE, SERIES_TONES } from '../../../../shared/look/palette'
 import {
@@ -55,6 +55,25 @@ describe('the meaning map', () => {
     expect([MEANINGS.sharp.colour, MEANINGS.flat.colour]).not.toContain(MEANINGS.advice.colour)
   })
 
+  it('gives error, warning, info, success, within, sharp, flat, each stage and each mail status a look of its own colour', () => {
+    const named: Record<string, Meaning> = {
+      ...Object.fromEntries(MESSAGE_TONES.map(t => [`message ${t}`, MESSAGE_MEANING[t]])),
+      within: PARTIAL_MEANING.within, sharp: PARTIAL_MEANING.sharp, flat: PARTIAL_MEANING.flat,
+      ...Object.fromEntries(PIECE_STAGES.map(s => [`stage ${s}`, STAGE_MEANING[s]])),
+    }
+    const colours = Object.entries(named).map(([name, m]) => [name, hex(MEANINGS[m].colour)] as const)
+    const clashes = colours.filter(([name, c]) => colours.some(([other, d]) => other !== name && d === c))
+    expect(clashes).toEqual([])
+    // The mail statuses look unlike each other; a failed send is an error and looks like one (one meaning, one look).
+    expect(new Set(MAIL_STATUSES.map(s => hex(MEANINGS[MAIL_MEANING[s]].colour))).size).toBe(MAIL_STATUSES.length)
+    expect(MAIL_MEANING.failed).toBe(MESSAGE_MEANING.error)
+    expect(MAIL_MEANING.sent).toBe(MESSAGE_MEANING.success)
+    // A warning is not the sharp orange nor the advice brass; success is not the within green.
+    expect(MEANINGS[MESSAGE_MEANING.warning].group).toBe('message')
+    expect(MEANINGS[MESSAGE_MEANING.success].colour).not.toBe(MEANINGS.within.colour)
+    expect([MEANINGS.sharp.colour, MEANINGS.advice.colour, MEANINGS.tuning.colour]).not.toContain(MEANINGS.warning.colour)
+  })
+
   it('has a look for every partial state, piece verdict, stage and status', () => {
     for (const s of PARTIAL_STATES) expect(MEANINGS[PARTIAL_MEANING[s]].word).toBe(s)
     for (const v of PIECE_VERDICTS) {
@@ -81,14 +100,17 @@ describe('the meaning map', () => {
     // source: WCAG 2.1 success criterion 1.4.3 (contrast minimum): 4.5:1 for text.
     for (const [meaning, look] of entries) {
       expect(contrast(hex(look.text), PALETTE.paper.DEFAULT), meaning).toBeGreaterThanOrEqual(4.5)
+      // ...and on its own tint (a message box writes its text on the tint).
+      expect(contrast(hex(look.text), hex(look.tint)), meaning).toBeGreaterThanOrEqual(4.5)
       if (look.group === 'stage') expect(contrast(hex(look.onColour), hex(look.colour)), meaning).toBeGreaterThanOrEqual(4.5)
     }
   })
 
   it('draws marks that stand out from the paper', () => {
     // source: WCAG 2.1 success criterion 1.4.11 (non-text contrast): 3:1 for graphical objects.
+    // A mark too light on its own (the yellow warning sign) is drawn with an edge that carries the contrast.
     for (const [meaning, look] of entries.filter(([, l]) => l.group !== 'stage')) {
-      expect(contrast(hex(look.colour), PALETTE.paper.DEFAULT), meaning).toBeGreaterThanOrEqual(3)
+      expect(contrast(hex(look.outline ?? look.colour), PALETTE.paper.DEFAULT), meaning).toBeGreaterThanOrEqual(3)
     }
   })
 

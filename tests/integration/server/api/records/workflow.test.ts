@@ -145,7 +145,7 @@ describe('approval', () => {
     await api(`/api/pieces/${a.id}/stage`, { method: 'POST', token: owner.token, body: { to: 'review' } })
     await api(`/api/pieces/${a.id}/approve`, { method: 'POST', token: owner.token, body: { strikeId: s.body.id } })
     expect((await api(`/api/sets/${set.id}`, { token: owner.token })).body.certifiable).toBe(false)
-    expect((await api(`/api/pieces/${b.id}/stage`, { method: 'POST', token: owner.token, body: { to: 'scrapped' } })).status).toBe(200)
+    expect((await api(`/api/pieces/${b.id}/stage`, { method: 'POST', token: owner.token, body: { to: 'scrapped', reason: 'Split along the grain' } })).status).toBe(200)
     // Still within its undo window, the approval does not count yet.
     const pending = await api(`/api/sets/${set.id}`, { token: owner.token })
     expect(pending.body).toMatchObject({ certifiable: false, approvedCount: 1, liveCount: 1, pendingApprovalCount: 1 })
