@@ -75,8 +75,10 @@ describe('the Bench', () => {
     await page.getByTestId('spectrum-chart').locator('canvas').waitFor()
     await page.getByTestId('decay-chart').locator('canvas').waitFor()
     expect(await page.getByText('Rough pitch (browser, a guide only)').isVisible()).toBe(true)
-    expect(await page.getByText(/hearing protection/).isVisible()).toBe(true)
-    expect(await page.getByText(/local workplace-safety rules/).isVisible()).toBe(true)
+    // The Bench's own cautions (the cut plan panel repeats some of them in its own note).
+    const safety = page.getByTestId('safety-note').first()
+    expect(await safety.getByText(/hearing protection/).first().isVisible()).toBe(true)
+    expect(await safety.getByText(/local workplace-safety rules/).isVisible()).toBe(true)
     const stored = await pieceOf(BASE_URL, bench.token, bench.byNote('C4').id)
     expect(stored.strikeCount).toBe(1)
     expect(stored.strikes[0]).toMatchObject({ temperatureC: 20, humidityPct: 45 })
