@@ -1,0 +1,2 @@
+export { measureClockOffset, MIN_REFERENCE_TONE_S, type ClockOffset, type ClockOffsetOptions } from './measureClockOffset'
+export { correctFrequencyHz } from './correctFrequencyHz'
