@@ -1,12 +1,11 @@
-import { createError } from 'h3'
 import { calibrations } from '../database/schema'
 import type { Database } from '../database/client'
-import { AnalysisError } from '../../shared/analysis/AnalysisError'
 import type { ClockOffset } from '../../shared/calibration/measureClockOffset'
 import { CalibrationFieldsSchema, type CalibrationAnswer } from '../../shared/schemas/calibrations'
-import { AnalysisBusyError, useAnalysisPool } from './analysis-pool'
+import { throwPoolError } from './analysis'
+import { useAnalysisPool } from './analysis-pool'
 import { audit } from './audit'
-import { fail, validateInput } from './http-errors'
+import { validateInput } from './http-errors'
 
 /** The pool's measurement of a reference tone; refusals become HTTP errors with the engine's sentence. */
 async function measureTone(bytes: Uint8Array, referenceHz: number, referenceUncertaintyPpm: number | undefined): Promise<ClockOffset> {
@@ -14,11 +13,7 @@ async function measureTone(bytes: Uint8Array, referenceHz: number, referenceUnce
     return await useAnalysisPool().calibrate({ bytes, referenceHz, referenceUncertaintyPpm })
   }
   catch (error) {
-    if (error instanceof AnalysisError) fail(error.status, error.message)
-    if (error instanceof AnalysisBusyError) {
-      throw createError({ statusCode: 503, statusMessage: 'Service Unavailable', message: error.message, data: { retryAfterS: error.retryAfterS } })
-    }
-    throw error
+    throwPoolError(error)
   }
 }
 
