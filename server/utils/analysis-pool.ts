@@ -5,7 +5,8 @@ import { fileURLToPath, pathToFileURL } from 'node:url'
 import { Piscina } from 'piscina'
 import { AnalysisError } from '../../shared/analysis/AnalysisError'
 import type { AnalysisResult, AnalyzeOptions } from '../../shared/analysis/types'
-import type { AnalysisReply, AnalysisTask } from '../workers/analysis.worker'
+import type { ClockOffset } from '../../shared/calibration/measureClockOffset'
+import type { AnalysisReply, AnalysisTask, CalibrationReply, CalibrationTask } from '../workers/analysis.worker'
 
 /** The bundled worker's name beside the built server (`.output/server/workers/`). */
 export const BUILT_WORKER = join('workers', 'analysis.mjs')
@@ -47,6 +48,8 @@ export interface AnalysisPool {
   run(bytes: Uint8Array, options: AnalyzeOptions): Promise<AnalysisResult>
   /** As run, with the result's JSON text beside it. */
   measure(bytes: Uint8Array, options: AnalyzeOptions): Promise<MeasuredStrike>
+  /** The clock offset of the input that recorded a reference tone (the same threads and queue bound). */
+  calibrate(task: CalibrationTask): Promise<ClockOffset>
   close(): Promise<void>
 }
 
@@ -79,6 +82,11 @@ function decodeReply(reply: AnalysisReply): MeasuredStrike {
   throw new AnalysisError(reply.status, reply.code, reply.message)
 }
 
+function decodeCalibration(reply: CalibrationReply): ClockOffset {
+  if (reply.ok) return reply.offset
+  throw new AnalysisError(reply.status, reply.code, reply.message)
+}
+
 /**
  * A bounded pool of worker threads for decoding and measuring strikes, so the thread
  * that answers requests never does that work. When more than `maxQueue` tasks wait,
@@ -99,7 +107,7 @@ export function createAnalysisPool(options: AnalysisPoolOptions = {}): AnalysisP
     return inThreadPool(threads, maxQueue, retryAfterS)
   }
   const execArgv = located.typescript && !process.execArgv.some(a => a.includes('tsx')) ? [...process.execArgv, '--import', 'tsx'] : process.execArgv
-  const piscina = new Piscina<AnalysisTask, AnalysisReply>({
+  const piscina = new Piscina<AnalysisTask | CalibrationTask, AnalysisReply | CalibrationReply>({
     filename: pathToFileURL(located.file).href,
     minThreads: threads,
     maxThreads: threads,
@@ -116,13 +124,24 @@ export function createAnalysisPool(options: AnalysisPoolOptions = {}): AnalysisP
       // The upload is a view into the whole request body: copy just its bytes and hand
       // that copy over (a plain clone would copy the whole body buffer).
       const own = bytes.slice()
-      reply = await piscina.run({ bytes: own, options: analyzeOptions }, { transferList: [own.buffer] })
+      reply = await piscina.run({ bytes: own, options: analyzeOptions }, { transferList: [own.buffer] }) as AnalysisReply
     }
     catch (error) {
-      if (error instanceof Error && /queue is at limit|all workers are busy/i.test(error.message)) throw new AnalysisBusyError(retryAfterS)
-      throw error
+      throw busyOr(error, retryAfterS)
     }
     return decodeReply(reply)
+  }
+  const calibrate = async (task: CalibrationTask): Promise<ClockOffset> => {
+    if (piscina.queueSize >= maxQueue) throw new AnalysisBusyError(retryAfterS)
+    let reply: CalibrationReply
+    try {
+      const own = task.bytes.slice()
+      reply = await piscina.run({ ...task, bytes: own }, { name: 'calibrate', transferList: [own.buffer] }) as CalibrationReply
+    }
+    catch (error) {
+      throw busyOr(error, retryAfterS)
+    }
+    return decodeCalibration(reply)
   }
   return {
     threads,
@@ -130,6 +149,7 @@ export function createAnalysisPool(options: AnalysisPoolOptions = {}): AnalysisP
     mode: 'pool',
     workerFile: located.file,
     measure,
+    calibrate,
     run: async (bytes, analyzeOptions) => (await measure(bytes, analyzeOptions)).result,
     close: () => piscina.close({ force: true }),
   }
@@ -150,15 +170,33 @@ function inThreadPool(threads: number, maxQueue: number, retryAfterS: number): A
       waiting--
     }
   }
+  const calibrate = async (task: CalibrationTask): Promise<ClockOffset> => {
+    if (waiting >= maxQueue + threads) throw new AnalysisBusyError(retryAfterS)
+    waiting++
+    try {
+      const { calibrate: measureTone } = await import('../workers/analysis.worker')
+      return decodeCalibration(await measureTone(task))
+    }
+    finally {
+      waiting--
+    }
+  }
   return {
     threads,
     maxQueue,
     mode: 'in-thread',
     workerFile: null,
     measure,
+    calibrate,
     run: async (bytes, options) => (await measure(bytes, options)).result,
     close: async () => {},
   }
+}
+
+/** Piscina's refusal of a full queue as AnalysisBusyError; anything else as it came. */
+function busyOr(error: unknown, retryAfterS: number): unknown {
+  if (error instanceof Error && /queue is at limit|all workers are busy/i.test(error.message)) return new AnalysisBusyError(retryAfterS)
+  return error
 }
 
 let current: AnalysisPool | undefined

@@ -20,12 +20,17 @@ export async function measureStrike(bytes: Uint8Array, options: AnalyzeOptions):
     return await useAnalysisPool().measure(bytes, options)
   }
   catch (error) {
-    if (error instanceof AnalysisError) fail(error.status, error.message)
-    if (error instanceof AnalysisBusyError) {
-      throw createError({ statusCode: 503, statusMessage: 'Service Unavailable', message: error.message, data: { retryAfterS: error.retryAfterS } })
-    }
-    throw error
+    throwPoolError(error)
   }
+}
+
+/** A pool task's failure as the HTTP error it means: the engine's refusal with its sentence, a full queue 503. */
+export function throwPoolError(error: unknown): never {
+  if (error instanceof AnalysisError) fail(error.status, error.message)
+  if (error instanceof AnalysisBusyError) {
+    throw createError({ statusCode: 503, statusMessage: 'Service Unavailable', message: error.message, data: { retryAfterS: error.retryAfterS } })
+  }
+  throw error
 }
 
 /** The analyze route: options arrive as form fields; answers the result's JSON text. */

@@ -19,6 +19,7 @@ export const TOO_LARGE_UPLOAD = 'The file is larger than 50 MB; record a shorter
 const UPLOAD_ROUTES: readonly { method: string, path: RegExp }[] = [
   { method: 'POST', path: /^\/api\/pieces\/[^/]+\/strikes$/ },
   { method: 'POST', path: /^\/api\/analyze$/ },
+  { method: 'POST', path: /^\/api\/calibrations$/ },
 ]
 
 /** Routes that take either JSON or a multipart upload (a recording), told apart by the Content-Type. */

@@ -3,6 +3,8 @@ import { getPriority } from 'node:os'
 import { afterAll, describe, expect, it } from 'vitest'
 import { AnalysisError } from '../../../../shared/analysis/AnalysisError'
 import { analyzeStrike } from '../../../../shared/analysis/analyzeStrike'
+import { encodeWav } from '../../../../shared/analysis/encodeWav'
+import { synthStrike } from '../../../../shared/synthesis/synthStrike'
 import { AnalysisBusyError, createAnalysisPool, locateWorker } from '../../../../server/utils/analysis-pool'
 import { audioFixture } from '../../../support/audioFixture'
 
@@ -37,6 +39,16 @@ describe('analysis pool (worker threads from the TypeScript source through tsx)'
     expect(JSON.parse(json)).toEqual(JSON.parse(JSON.stringify(result)))
     expect(json).toBe(JSON.stringify(result))
     expect(Buffer.from(bytes).equals(before)).toBe(true)
+  }, 60_000)
+
+  it('measures a reference tone in the worker thread (calibrate), the caller\'s bytes untouched', async () => {
+    // A 1000 Hz reference on an input reading 300 ppm high (issue 15's check), SNR ≈ 31 dB.
+    const bytes = encodeWav(synthStrike([{ frequencyHz: 1000 * (1 + 300e-6), amplitudeDb: -6, decayDbPerS: 0 }], { sampleRate: 48000, durationS: 4, noiseDb: -40, seed: 6 }), 48000)
+    const before = Buffer.from(bytes)
+    const offset = await pool.calibrate({ bytes, referenceHz: 1000 })
+    expect(Math.abs(offset.offsetPpm - 300)).toBeLessThan(2)
+    expect(Buffer.from(bytes).equals(before)).toBe(true)
+    await expect(pool.calibrate({ bytes, referenceHz: 30000 })).rejects.toMatchObject({ name: 'AnalysisError', status: 400 })
   }, 60_000)
 
   it('brings a refusal back as an AnalysisError with its status and sentence', async () => {

@@ -3,10 +3,11 @@ import { acceptsType, BODY_LIMITS, bodyPolicy, sizeText } from '../../../../serv
 import { LIMITS } from '../../../../shared/analysis/limits'
 
 describe('bodyPolicy', () => {
-  it('takes multipart only on the two upload routes, with room for the form around 50 MB', () => {
+  it('takes multipart only on the upload routes, with room for the form around 50 MB', () => {
     expect(bodyPolicy('POST', '/api/pieces/5b1e1c7e-0000-4000-8000-000000000000/strikes')).toEqual({ kind: 'upload', maxBytes: BODY_LIMITS.uploadBytes })
     expect(bodyPolicy('POST', '/api/analyze').kind).toBe('upload')
     expect(bodyPolicy('PUT', '/api/analyze').kind).toBe('json')
+    expect(bodyPolicy('POST', '/api/calibrations').kind).toBe('upload')
     expect(bodyPolicy('POST', '/api/pieces/x/strikes/extra').kind).toBe('json')
     expect(BODY_LIMITS.uploadBytes).toBeGreaterThan(LIMITS.maxBytes)
     expect(BODY_LIMITS.uploadBytes - LIMITS.maxBytes).toBeLessThanOrEqual(1024 * 1024)

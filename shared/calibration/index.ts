@@ -1,0 +1,3 @@
+export { measureClockOffset, MIN_REFERENCE_TONE_S, type ClockOffset, type ClockOffsetOptions } from './measureClockOffset'
+export { correctFrequencyHz } from './correctFrequencyHz'
+export { calibrateRecording } from './calibrateRecording'

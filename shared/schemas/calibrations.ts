@@ -1,0 +1,23 @@
+import { z } from 'zod'
+import { finite } from './records'
+
+/** A form field holding a number: empty is missing, anything else must read as a number. */
+const numberField = <S extends z.ZodTypeAny>(schema: S) => z.preprocess(
+  v => (typeof v === 'string' ? (v.trim() === '' ? undefined : Number(v.trim())) : v),
+  schema,
+)
+
+/** The form fields of `POST /api/calibrations` (the recording itself is the `file` part). */
+export const CalibrationFieldsSchema = z.object({
+  referenceHz: numberField(finite('the reference frequency').min(20, 'The reference frequency must be between 20 and 20 000 Hz').max(20000, 'The reference frequency must be between 20 and 20 000 Hz')),
+  device: z.string({ required_error: 'Name the input device' }).trim().min(1, 'Name the input device').max(120, 'A device name is at most 120 characters'),
+  referenceUncertaintyPpm: numberField(finite('the reference uncertainty').min(0, 'The reference uncertainty must be between 0 and 1000 ppm').max(1000, 'The reference uncertainty must be between 0 and 1000 ppm').optional()),
+})
+export type CalibrationFields = z.infer<typeof CalibrationFieldsSchema>
+
+/** What the route answers. */
+export interface CalibrationAnswer {
+  id: string
+  offsetPpm: number
+  uncertaintyPpm: number
+}

@@ -1,0 +1,8 @@
+export * from './types'
+export { budgetLine, type BudgetLineInput } from './budgetLine'
+export { combineBudget } from './combineBudget'
+export { decideConformity } from './decideConformity'
+export { distributionDivisor } from './distributionDivisor'
+export { partialBudget, CENTS_PER_PPM, type PartialBudgetInput } from './partialBudget'
+export { ppmToCents } from './ppmToCents'
+export { typeAStandardUncertainty } from './typeAStandardUncertainty'
