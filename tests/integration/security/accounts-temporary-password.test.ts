@@ -3,6 +3,7 @@ import { readdirSync, statSync } from 'node:fs'
 import { join, relative } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { afterAll, describe, expect, it } from 'vitest'
+import { bodyPolicy } from '../../../server/utils/request-limits'
 import { api, memberOnTemporaryPassword, memberWithRole, newWorkshop } from '../support/http'
 import { testSql, waitForMailTo } from '../support/mail'
 
@@ -38,13 +39,12 @@ function allRoutes(dir = API_DIR): string[] {
   })
 }
 
-const UPLOAD_ROUTES = new Set(['POST /api/analyze', 'POST /api/pieces/:id/strikes'])
-
 function call(route: string, token: string) {
   const [method, path] = route.split(' ') as [string, string]
   const url = path.replace(/:file\b/, 'a.txt').replace(/:(\w+)/g, () => randomUUID())
-  // Upload routes take multipart only (the request guard answers 415 to anything else first).
-  const body = method === 'GET' ? undefined : UPLOAD_ROUTES.has(route) ? new FormData() : {}
+  // Upload routes take multipart only (the request guard answers 415 to anything else first);
+  // which routes those are is the guard's own list.
+  const body = method === 'GET' ? undefined : bodyPolicy(method, url).kind === 'upload' ? new FormData() : {}
   return api(url, { method, token, body })
 }
 
