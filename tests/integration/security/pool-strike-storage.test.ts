@@ -84,7 +84,7 @@ describe('class: nothing is half-saved or left dangling (strike audio)', () => {
         const form = new FormData()
         form.set('file', new Blob([wav], { type: 'audio/wav' }), 'strike.wav')
         const request = fetch(`${first.baseUrl}/api/pieces/${piece.id}/strikes`, { method: 'POST', headers: { authorization: `Bearer ${owner.token}` }, body: form }).catch(() => null)
-        await until(() => filesUnder(storage, pending).length === 1, 'the pending audio is written')
+        await until(() => filesUnder(storage, pending).length === 1, 'the pending audio is written', 90_000)
         await first.stop('SIGKILL')
         expect(await request).toBeNull()
       })
