@@ -198,7 +198,7 @@ describe('pieces', () => {
     await page.getByLabel(/Why reopen/).fill('Plate chipped in packing; retune after filing')
     await page.getByRole('button', { name: 'Reopen', exact: true }).click()
     await page.getByRole('heading', { name: /Piece E6/ }).locator('[data-stage="tuning"]').waitFor()
-    await page.getByText('Reopened').waitFor()
+    await page.getByText(/^Reopened by /).waitFor()
 
     // A supervisor hands the piece to a member.
     await page.getByLabel('Assigned to').selectOption({ label: 'Corin Hale' })
