@@ -1,9 +1,11 @@
 /** Accounts: workshops (the tenants), people, memberships, sessions, sign-in attempts and the audit trail. */
 import { sql } from 'drizzle-orm'
-import { boolean, doublePrecision, index, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { boolean, doublePrecision, index, integer, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
 import { createdAt, instant, personRef, recordId, workshopRecord } from './columns'
 import { ROLES } from '../../../shared/auth/roles'
 import { TEMPERATURE_UNITS } from '../../../shared/records/lists'
+import type { BarMaterial } from '../../../shared/records/barMaterials'
+import type { BlankThreshold } from '../../../shared/barModel/blankThresholds'
 
 /** A workshop is a tenant: every other row hangs off one. */
 export const workshops = pgTable('workshops', {
@@ -15,6 +17,12 @@ export const workshops = pgTable('workshops', {
   // Times are shown in this IANA zone and dates written in this BCP 47 locale (checked with Intl on the way in).
   timeZone: text('time_zone').notNull().default('UTC'),
   locale: text('locale').notNull().default('en-GB'),
+  /** Days an input calibration stays valid (a workshop setting; 90 unless changed). */
+  calibrationValidDays: integer('calibration_valid_days').notNull().default(90),
+  /** Ask the benchmaker for three strikes at the final state before review (Type A repeatability). */
+  repeatStrikesBeforeReview: boolean('repeat_strikes_before_review').notNull().default(false),
+  /** The workshop's own blank-grading thresholds per species; a species not listed uses the starting ones. */
+  blankThresholds: jsonb('blank_thresholds').$type<Partial<Record<BarMaterial, BlankThreshold>>>().notNull().default({}),
   createdAt: createdAt(),
 })
 

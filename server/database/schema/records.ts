@@ -5,6 +5,7 @@ import { createdAt, instant, personRef, workshopRecord } from './columns'
 import type { TemplatePartialSpec } from '../../../shared/analysis/types'
 import { PIECE_STAGES } from '../../../shared/records/stages'
 import { PIECE_VERDICTS, TEMPLATE_FAMILIES } from '../../../shared/records/lists'
+import { DECISION_RULES } from '../../../shared/uncertainty/types'
 import { BAR_MATERIAL_NAMES } from '../../../shared/records/barMaterials'
 import type { PieceGeometry } from '../../../shared/schemas/pieceGeometry'
 
@@ -32,6 +33,8 @@ export const templateVersions = pgTable('template_versions', {
   searchWindowCents: doublePrecision('search_window_cents').notNull().default(80),
   referenceTemperatureC: doublePrecision('reference_temperature_c').notNull().default(20),
   temperatureCoefficientCentsPerC: doublePrecision('temperature_coefficient_cents_per_c').notNull().default(0),
+  /** How a partial's verdict uses the expanded uncertainty U (ILAC-G8): simple or guarded acceptance. */
+  decisionRule: text('decision_rule', { enum: DECISION_RULES }).notNull().default('simple'),
   notes: text('notes').notNull().default(''),
   source: text('source').notNull().default(''),
   createdBy: personRef('created_by'),

@@ -7,6 +7,7 @@ import type { ReanalysisResult } from '../../../shared/reanalysis/types'
 import type { StoredAnalysis } from '../../../shared/schemas/analysis'
 import { ANALYSIS_REASONS, PIECE_VERDICTS, REANALYSIS_SCOPES, REANALYSIS_STATUSES, REVIEW_DECISIONS } from '../../../shared/records/lists'
 import { pieces, sets, templateVersions } from './records'
+import { calibrations } from './calibrations'
 
 /**
  * One recording of one blow on one piece, with the engine's current result. The audio and
@@ -25,6 +26,8 @@ export const strikes = pgTable('strikes', {
   audioBytes: integer('audio_bytes').notNull(),
   audioType: text('audio_type').notNull(),
   audioName: text('audio_name').notNull().default(''),
+  /** The input calibration the strike was measured under (its frequencies are corrected by it; the raw ones stay in the analysis). */
+  calibrationId: uuid('calibration_id').references(() => calibrations.id),
   engineVersion: text('engine_version').notNull(),
   analysis: jsonb('analysis').$type<StoredAnalysis>().notNull(),
   templateVersionId: uuid('template_version_id').references(() => templateVersions.id),
