@@ -1,10 +1,8 @@
 import { randomUUID } from 'node:crypto'
-import { readdirSync, statSync } from 'node:fs'
-import { join, relative } from 'node:path'
-import { fileURLToPath } from 'node:url'
 import { afterAll, describe, expect, it } from 'vitest'
 import { bodyPolicy } from '../../../server/utils/request-limits'
 import { api, memberOnTemporaryPassword, memberWithRole, newWorkshop } from '../support/http'
+import { allRoutes } from './routes'
 import { testSql, waitForMailTo } from '../support/mail'
 
 // Class guarded: "'Must change password' is enforced by the server for every API route except
@@ -14,7 +12,6 @@ afterAll(async () => {
   await testSql().end()
 })
 
-const API_DIR = fileURLToPath(new URL('../../../server/api', import.meta.url))
 const SENTENCE = 'Choose your own password first: you signed in with a temporary one.'
 
 /** Routes anyone may call without a session: the account's state does not matter to them. */
@@ -26,18 +23,6 @@ const PUBLIC = new Set([
 const ALLOWED = new Set(['GET /api/auth/session', 'POST /api/auth/password', 'POST /api/auth/logout'])
 /** Development-only routes that may not exist at all in the production build the tests run. */
 const DEV_ONLY = /^GET \/api\/dev\//
-
-/** Every route file under server/api, as "METHOD /api/path/:param". */
-function allRoutes(dir = API_DIR): string[] {
-  return readdirSync(dir).flatMap((name) => {
-    const path = join(dir, name)
-    if (statSync(path).isDirectory()) return allRoutes(path)
-    const match = /^(.*)\.(get|post|put|patch|delete)\.ts$/.exec(relative(API_DIR, path))
-    if (!match) return []
-    const route = `/api/${match[1]!.replace(/(^|\/)index$/, '')}`.replace(/\/$/, '').replace(/\[(\w+)\]/g, ':$1')
-    return [`${match[2]!.toUpperCase()} ${route}`]
-  })
-}
 
 function call(route: string, token: string) {
   const [method, path] = route.split(' ') as [string, string]

@@ -1,10 +1,8 @@
 import { randomUUID } from 'node:crypto'
-import { readdirSync, statSync } from 'node:fs'
-import { join, relative } from 'node:path'
-import { fileURLToPath } from 'node:url'
 import { afterAll, describe, expect, it } from 'vitest'
 import { bodyPolicy } from '../../../server/utils/request-limits'
 import { BASE_URL, api, newWorkshop } from '../support/http'
+import { allRoutes } from './routes'
 import { testSql } from '../support/mail'
 
 // Class guarded: "A malformed request gets a plain sentence and a 4xx, never a 500 or a stack trace",
@@ -14,21 +12,8 @@ afterAll(async () => {
   await testSql().end()
 })
 
-const API_DIR = fileURLToPath(new URL('../../../server/api', import.meta.url))
 /** Ends the session the walk runs on; its own tests cover it. */
 const SKIPPED = new Set(['POST /api/auth/logout'])
-
-/** Every route file under server/api, as "METHOD /api/path/:param". */
-function allRoutes(dir = API_DIR): string[] {
-  return readdirSync(dir).flatMap((name) => {
-    const path = join(dir, name)
-    if (statSync(path).isDirectory()) return allRoutes(path)
-    const match = /^(.*)\.(get|post|put|patch|delete)\.ts$/.exec(relative(API_DIR, path))
-    if (!match) return []
-    const route = `/api/${match[1]!.replace(/(^|\/)index$/, '')}`.replace(/\/$/, '').replace(/\[(\w+)\]/g, ':$1')
-    return [`${match[2]!.toUpperCase()} ${route}`]
-  })
-}
 
 /** Path parameters no record has: a well-formed id of nothing, and shapes no id has. */
 const IDS = [randomUUID(), 'not-an-id', '0', 'x'.repeat(400), '%2e%2e%2f%2e%2e%2fetc', `1'%20or%20'1'='1`, '%ff%fe']
