@@ -1,7 +1,7 @@
 // Whole-process time of the command-line analysis (npm run bench:cli [-- --runs 10]).
 // Runs `npm run analyze -- FILE --target-hz F --ratios R --json` on 4 s of a real strike
 // (the tubular-bells-c5 fixture) and, to show where the time goes, the same call without npm
-// (node scripts/run-built.mjs), the bundle started directly, and an empty Node for the floor.
+// (package.json's command line), the same without its Node flags, and an empty Node for the floor.
 // The calls take turns, so a change in the machine's load hits them alike. CPU is user +
 // system time of the process and everything it started (bash's `times`): on a shared machine
 // it tells slow code from a busy machine; wall time is printed beside it. Goal ≤ 0.3 s.
@@ -65,6 +65,8 @@ async function main() {
   const cases = [
     { name: 'npm run analyze', argv: ['npm', 'run', '--silent', 'analyze', '--', ...args], json: true },
     { name: launcher, argv: [...launcher.split(' '), ...args], json: true },
+    // What the Node flags in package.json are worth.
+    { name: 'node scripts/run-built.mjs analyze (no flags)', argv: [process.execPath, 'scripts/run-built.mjs', 'analyze', ...args], json: true },
     { name: 'node -e 0 (Node alone)', argv: [process.execPath, '-e', '0'], json: false },
   ]
   const times = cases.map(() => ({ wall: [] as number[], cpu: [] as number[] }))
@@ -80,7 +82,7 @@ async function main() {
   cases.forEach((c, k) => {
     const { wall, cpu } = times[k]!
     console.log(
-      `  ${c.name.padEnd(46)} CPU median ${median(cpu).toFixed(3)} s  min ${Math.min(...cpu).toFixed(3)} s   `
+      `  ${c.name.padEnd(64)} CPU median ${median(cpu).toFixed(3)} s  min ${Math.min(...cpu).toFixed(3)} s   `
       + `wall median ${median(wall).toFixed(3)} s  min ${Math.min(...wall).toFixed(3)} s`,
     )
   })
