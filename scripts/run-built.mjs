@@ -8,18 +8,17 @@
 import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath, pathToFileURL } from 'node:url'
-import { nodeBundleOptions } from './esbuild-bundle.mjs'
 
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 /** The scripts that may be run this way, by name. */
 const SCRIPTS = { analyze: 'scripts/analyze.ts' }
 const INPUTS_FILE = 'inputs.json'
 
-/** A file's identity for staleness: size and modification time. */
+/** A file's identity for staleness: size and modification time (a stat, no read: this runs at every call). */
 function fingerprint(path) {
   try {
-    const s = statSync(join(ROOT, path))
-    return `${s.size}:${s.mtimeMs}`
+    const s = statSync(join(ROOT, path), { throwIfNoEntry: false })
+    return s ? `${s.size}:${s.mtimeMs}` : 'missing'
   }
   catch {
     return 'missing'
@@ -40,7 +39,8 @@ function isFresh(dir) {
 
 /** Bundles the script into a fresh folder, then swaps it in, so a concurrent call never runs half a bundle. */
 async function build(name, dir) {
-  const { build: esbuild } = await import('esbuild')
+  // Loaded only to build, so a call with a fresh bundle does not pay for them.
+  const [{ build: esbuild }, { nodeBundleOptions }] = await Promise.all([import('esbuild'), import('./esbuild-bundle.mjs')])
   const temporary = `${dir}.${process.pid}.tmp`
   rmSync(temporary, { recursive: true, force: true })
   const result = await esbuild({

@@ -1,14 +1,22 @@
 import { spawnSync } from 'node:child_process'
-import { mkdtempSync, readFileSync, statSync, writeFileSync } from 'node:fs'
+import { mkdtempSync, readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
+import { analyzeStrike } from '../../../shared/analysis/index'
 
 const root = fileURLToPath(new URL('../../../', import.meta.url))
 
 function launcher(dir: string, ...args: string[]) {
   return spawnSync(process.execPath, ['scripts/run-built.mjs', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, env: { ...process.env, TONEWRIGHT_CLI_DIR: dir } })
+}
+
+/** The command `npm run analyze` runs, Node flags included, as package.json gives it. */
+function npmAnalyze(dir: string, ...args: string[]) {
+  const [command, ...words] = (JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')).scripts.analyze as string).split(' ')
+  expect(command).toBe('node')
+  return spawnSync(process.execPath, [...words, ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, env: { ...process.env, TONEWRIGHT_CLI_DIR: dir } })
 }
 
 describe('scripts/run-built.mjs (npm run analyze)', () => {
@@ -34,6 +42,33 @@ describe('scripts/run-built.mjs (npm run analyze)', () => {
     expect(launcher(dir, '--build', 'analyze').status).toBe(0)
     expect(statSync(bundle).mtimeMs).toBeGreaterThan(built)
     expect(JSON.parse(readFileSync(inputs, 'utf8'))['scripts/analyze.ts']).toBe(recorded['scripts/analyze.ts'])
+  }, 240_000)
+
+  it('rebuilds when a source it was made from is touched, and prints the same JSON as the engine', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tw-cli-build-'))
+    const bundle = join(dir, 'analyze', 'analyze.mjs')
+    const file = 'tests/fixtures/audio/strike-48k-16bit.wav'
+    const args = [file, '--note', 'A4', '--ratios', '1,2.7565', '--json']
+    const before = npmAnalyze(dir, ...args)
+    expect(before.stderr).toBe('')
+    expect(before.status).toBe(0)
+    const built = statSync(bundle).mtimeMs
+    const direct = await analyzeStrike(new Uint8Array(readFileSync(join(root, file))), { note: 'A4', ratios: [1, 2.7565] })
+    expect(before.stdout).toBe(`${JSON.stringify(direct, null, 2)}\n`)
+
+    // A real source of the engine, its content unchanged, with a new modification time.
+    const source = join(root, 'shared', 'analysis', 'analyzeStrike.ts')
+    const { atime, mtime } = statSync(source)
+    try {
+      utimesSync(source, atime, new Date(Date.now() + 5_000))
+      const after = npmAnalyze(dir, ...args)
+      expect(after.status).toBe(0)
+      expect(statSync(bundle).mtimeMs).toBeGreaterThan(built)
+      expect(after.stdout).toBe(before.stdout)
+    }
+    finally {
+      utimesSync(source, atime, mtime)
+    }
   }, 240_000)
 
   it('refuses a script it does not know with its usage line', () => {
