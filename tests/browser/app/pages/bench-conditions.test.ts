@@ -18,6 +18,11 @@ describe('the Bench\'s conditions in the workshop\'s units', () => {
     await page.goto(`${BASE_URL}/bench?piece=${set.pieces[0].id}`)
     const field = page.getByLabel('Temperature (°F)')
     await field.waitFor()
+    // The Bench's cautions wear the one warning look: the sign, the safety-yellow colours, the words.
+    const safety = page.getByTestId('safety-note')
+    expect(await safety.getAttribute('data-meaning')).toBe('warning')
+    expect(await safety.locator('svg').first().getAttribute('data-shape')).toBe('warning-sign')
+    expect(await safety.getByRole('heading', { name: 'At the bench' }).isVisible()).toBe(true)
 
     // source: t(°F) = t(°C) × 9/5 + 32: the bench range −10…50 °C is 14…122 °F.
     await field.fill('130')
