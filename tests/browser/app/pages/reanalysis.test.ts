@@ -33,7 +33,8 @@ describe('re-measure screens', () => {
     const html = await (await page.request.get(`${BASE_URL}/sets/${set.id}`)).text()
     expect(html).toMatch(/<button[^>]*disabled[^>]*>\s*Re-measure with engine/)
     await page.goto(`${BASE_URL}/sets/${set.id}`)
-    await page.getByRole('button', { name: `Re-measure with engine ${ENGINE_VERSION}` }).click()
+    // Enabled once the page runs in the browser: a slow machine may take a while to get there.
+    await page.getByRole('button', { name: `Re-measure with engine ${ENGINE_VERSION}` }).click({ timeout: 60_000 })
     // The run measures audio on a machine that may be busy: its progress shows while it waits its turn.
     const row = page.getByTestId('reanalysis-change-row').first()
     await row.or(page.getByTestId('reanalysis-progress')).first().waitFor({ timeout: 30_000 })
