@@ -1,26 +1,38 @@
 import { and, asc, avg, count, eq, gte, inArray, isNull, sql } from 'drizzle-orm'
-import { memberships, pieces, sets, strikes, users } from '../database/schema'
+import { memberships, pieces, sets, strikes, users, workshops } from '../database/schema'
 import type { Executor } from '../database/client'
+import { weekStartIn } from '../../shared/format/weekStart'
 import { FINISHED_STAGES } from '../../shared/records/stages'
 import { StoredMatchesSchema } from '../../shared/schemas/analysis'
 import { REVIEW_TRAIL_STRIKES, type ReviewQuery } from '../../shared/schemas/review'
+import { approvalPending } from './approval-window'
 import { listSets } from './sets'
 
-/** Monday 00:00 UTC of the current week. */
-function weekStart(now = new Date()): Date {
-  const d = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate()))
-  d.setUTCDate(d.getUTCDate() - ((d.getUTCDay() + 6) % 7))
-  return d
+/**
+ * A set's pieces by stage as the dashboard counts them: an approval that can still be
+ * undone is not counted as approved yet; it stays with the pieces in review.
+ */
+function settledStages(byStage: Record<string, number>, approvedCount: number, pendingApprovals: number) {
+  // Only an approved piece can be pending (undo, reopen and signing all need it final or clear it).
+  const pending = Math.min(pendingApprovals, byStage.approved ?? 0)
+  if (!pending) return { byStage, approvedCount }
+  const approved = (byStage.approved ?? 0) - pending
+  const { approved: _, ...rest } = byStage
+  return { byStage: { ...rest, ...(approved > 0 ? { approved } : {}), review: (byStage.review ?? 0) + pending }, approvedCount: approvedCount - pending }
 }
 
 export async function dashboardFor(db: Executor, workshopId: string) {
-  const since = weekStart()
+  const [workshop] = await db.select({ timeZone: workshops.timeZone }).from(workshops).where(eq(workshops.id, workshopId))
+  // "This week" is the workshop's week: from Monday 00:00 where the workshop is.
+  const since = weekStartIn(new Date(), workshop?.timeZone ?? 'UTC')
+  // Approved and beyond, without approvals still in their undo window.
+  const settled = and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, FINISHED_STAGES), sql`not ${approvalPending()}`)
   const [setRows, [queue], [done], [firstPass], [perPiece], weekly] = await Promise.all([
     listSets(db, workshopId),
     db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), eq(pieces.stage, 'review'))),
-    db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, FINISHED_STAGES))),
-    db.select({ n: count() }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, FINISHED_STAGES), eq(pieces.reworkCount, 0))),
-    db.select({ v: avg(pieces.strikeCount) }).from(pieces).where(and(eq(pieces.workshopId, workshopId), inArray(pieces.stage, FINISHED_STAGES))),
+    db.select({ n: count() }).from(pieces).where(settled),
+    db.select({ n: count() }).from(pieces).where(and(settled, eq(pieces.reworkCount, 0))),
+    db.select({ v: avg(pieces.strikeCount) }).from(pieces).where(settled),
     db.select({ userId: users.id, name: users.name, strikes: sql<number>`count(${strikes.id})::int` })
       .from(memberships)
       .innerJoin(users, eq(users.id, memberships.userId))
@@ -31,8 +43,12 @@ export async function dashboardFor(db: Executor, workshopId: string) {
   ])
   const approved = done?.n ?? 0
   return {
-    sets: setRows.filter(s => !s.shippedAt).map(s => ({ id: s.id, name: s.name, serial: s.serial, byStage: s.byStage, pieceCount: s.pieceCount, approvedCount: s.approvedCount, certifiable: s.certifiable })),
+    sets: setRows.filter(s => !s.shippedAt).map(s => ({
+      id: s.id, name: s.name, serial: s.serial, pieceCount: s.pieceCount, certifiable: s.certifiable,
+      pendingApprovalCount: s.pendingApprovalCount, ...settledStages(s.byStage, s.approvedCount, s.pendingApprovalCount),
+    })),
     reviewQueue: queue?.n ?? 0,
+    pendingApprovals: setRows.reduce((n, s) => n + s.pendingApprovalCount, 0),
     approvedPieces: approved,
     firstPassYield: approved > 0 ? (firstPass?.n ?? 0) / approved : null,
     strikesPerApprovedPiece: perPiece?.v != null ? Number(perPiece.v) : null,

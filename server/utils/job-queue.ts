@@ -100,6 +100,7 @@ export abstract class JobQueue {
   private sweepTimer: NodeJS.Timeout | null = null
   private restartTimer: NodeJS.Timeout | null = null
   private sweeping = false
+  private sweepAgain = false
   private stopped = false
 
   constructor(private readonly base: JobQueueOptions, private readonly words: JobQueueWords, private readonly defaultSweepMs: number) {}
@@ -142,15 +143,29 @@ export abstract class JobQueue {
     return true
   }
 
-  /** Turns rows that need a job into jobs; a failure waits for the next sweep. */
+  /**
+   * Turns rows that need a job into jobs; a failure waits for the next sweep. A kick that
+   * arrives while a sweep runs sweeps once more right after it (that sweep may have read
+   * the rows before the new one was written), rather than waiting for the next interval.
+   */
   async sweep() {
-    if (!this.boss || this.sweeping) return
+    if (!this.boss) return
+    if (this.sweeping) {
+      this.sweepAgain = true
+      return
+    }
     this.sweeping = true
     try {
-      await this.schedule(this.boss)
-    }
-    catch (error) {
-      this.log(`Tonewright ${this.words.label}: could not schedule ${this.words.rows} (${(error as Error).message}); will try again.`)
+      do {
+        this.sweepAgain = false
+        if (!this.boss) break
+        try {
+          await this.schedule(this.boss)
+        }
+        catch (error) {
+          this.log(`Tonewright ${this.words.label}: could not schedule ${this.words.rows} (${(error as Error).message}); will try again.`)
+        }
+      } while (this.sweepAgain)
     }
     finally {
       this.sweeping = false

@@ -26,6 +26,7 @@ const STOPPED = 'The re-measurement stopped before it finished; the pieces it fi
  */
 export class ReanalysisQueue extends JobQueue {
   protected readonly queues = [REANALYSIS_QUEUE]
+  private workerId: string | null = null
   constructor(private readonly options: ReanalysisQueueOptions) {
     super(options, { label: 're-measurement queue', rows: 'queued runs', waiting: 'queued re-measurements wait until it does' }, 5000)
   }
@@ -33,7 +34,7 @@ export class ReanalysisQueue extends JobQueue {
   protected async setUp(boss: PgBoss) {
     const o = this.options
     await ensureQueue(boss, { name: REANALYSIS_QUEUE, retryLimit: 1, retryDelay: 10 })
-    await workEach<{ runId: string }>(boss, REANALYSIS_QUEUE, async (job) => {
+    this.workerId = await workEach<{ runId: string }>(boss, REANALYSIS_QUEUE, async (job) => {
       try {
         await executeReanalysis(o.db, o.storage, job.data.runId)
       }
@@ -61,6 +62,8 @@ export class ReanalysisQueue extends JobQueue {
         jobId => o.db.update(reanalysisRuns).set({ jobId }).where(eq(reanalysisRuns.id, id)),
       )
     }
+    // Someone is watching the run's progress: an idle worker of this instance fetches now, not at its next poll.
+    if (queued.length && this.workerId) boss.notifyWorker(this.workerId)
   }
 }
 

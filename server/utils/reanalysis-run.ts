@@ -9,6 +9,7 @@ import { isFinished } from '../../shared/records/stages'
 import type { ReanalysedPiece, ReanalysedStrike, ReanalysisResult } from '../../shared/reanalysis/types'
 import { runAnalysis } from './analysis'
 import { audit } from './audit'
+import { measureWhenFree } from './measure-when-free'
 import type { BlobStorage } from './storage'
 import { worstCents } from './strikes'
 
@@ -133,13 +134,14 @@ export async function executeReanalysis(db: Database, storage: BlobStorage, runI
         continue
       }
       try {
-        const analysis = await measure(bytes, {
+        // A full pool is busy with strikes people wait for: this run waits its turn rather than failing the strike.
+        const analysis = await measureWhenFree(() => measure(bytes, {
           note: piece.note, targetHz: piece.targetHz, referenceHz: set.referenceHz, temperatureC: strike.temperatureC ?? undefined,
           template: {
             partials: template.partials, searchWindowCents: template.searchWindowCents,
             referenceTemperatureC: template.referenceTemperatureC, temperatureCoefficientCentsPerC: template.temperatureCoefficientCentsPerC,
           },
-        })
+        }))
         measured.push({ strike, analysis, error: null })
       }
       catch (error) {

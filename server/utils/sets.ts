@@ -1,5 +1,5 @@
-import { and, asc, count, desc, eq, sql } from 'drizzle-orm'
-import { pieces, ratioTemplates, sets, templateVersions, type TemplateVersion } from '../database/schema'
+import { and, asc, count, desc, eq, isNull, sql } from 'drizzle-orm'
+import { pieces, ratioTemplates, serviceRecords, sets, templateVersions, type TemplateVersion } from '../database/schema'
 import type { Database, Executor, Transactor } from '../database/client'
 import type { CreateSetInput } from '../../shared/schemas/records'
 import { noteToFrequencyHz } from '../../shared/analysis/noteToFrequencyHz'
@@ -57,11 +57,14 @@ export async function createSet(db: Transactor, workshopId: string, actorId: str
   }), duplicate, 'sets_workshop_serial_key')
 }
 
-/** Sets with their pieces counted by stage. */
+/** Sets with their pieces counted by stage, and the open service visit of a set booked back in. */
 export async function listSets(db: Executor, workshopId: string) {
   const rows = await db.select().from(sets).where(eq(sets.workshopId, workshopId)).orderBy(desc(sets.createdAt))
   const counts = await db.select({ setId: pieces.setId, stage: pieces.stage, n: count(), pending: sql<number>`count(*) filter (where ${approvalPending()})::int` }).from(pieces)
     .where(eq(pieces.workshopId, workshopId)).groupBy(pieces.setId, pieces.stage)
+  const visits = await db.select({ setId: serviceRecords.setId, kind: serviceRecords.kind, receivedOn: serviceRecords.receivedOn }).from(serviceRecords)
+    .where(and(eq(serviceRecords.workshopId, workshopId), isNull(serviceRecords.closedAt)))
+  const inService = new Map(visits.map(v => [v.setId, { kind: v.kind, receivedOn: v.receivedOn }]))
   return rows.map((s) => {
     const byStage: Record<string, number> = {}
     let pending = 0
@@ -70,7 +73,7 @@ export async function listSets(db: Executor, workshopId: string) {
       byStage[c.stage] = c.n
       pending += c.pending
     }
-    return { ...s, byStage, ...progress(byStage, pending) }
+    return { ...s, byStage, ...progress(byStage, pending), inService: inService.get(s.id) ?? null }
   })
 }
 

@@ -11,7 +11,7 @@ import { familyOf, hex, type Family, type Tone } from './palette'
  * message families (madder, heather) belong to their group alone, so a verdict never
  * looks like an error, a notice, a piece of advice or a stage.
  */
-export type Shape = 'disc' | 'triangle-up' | 'triangle-down' | 'open-square' | 'ring' | 'crossed-square' | 'check' | 'cross' | 'clock' | 'dot-ring' | 'swatch' | 'warning-sign'
+export type Shape = 'disc' | 'triangle-up' | 'triangle-down' | 'open-square' | 'ring' | 'crossed-square' | 'check' | 'cross' | 'clock' | 'dot-ring' | 'swatch' | 'warning-sign' | 'return-arrow'
 
 export type LookGroup = 'verdict' | 'stage' | 'status' | 'message' | 'advice'
 
@@ -68,6 +68,8 @@ export const MEANINGS = {
   revoked: look('status', { colour: 'mulberry-700', text: 'mulberry-700', tint: 'mulberry-50', edge: 'mulberry-100' }, 'crossed-square', 'revoked'),
   waiting: look('status', { colour: 'ink', text: 'ink-soft', tint: 'paper-deep', edge: 'paper-line' }, 'clock', 'waiting'),
   done: look('status', { colour: 'lagoon-400', text: 'lagoon-700', tint: 'lagoon-50', edge: 'lagoon-100' }, 'check', 'done'),
+  // A shipped set booked back in for retuning or repair (an open service record).
+  inService: look('status', { colour: 'mulberry-600', text: 'mulberry-700', tint: 'mulberry-50', edge: 'mulberry-100' }, 'return-arrow', 'in service'),
   // Messages: something went wrong, or something to know.
   error: look('message', { colour: 'madder-500', text: 'madder-700', tint: 'madder-50', edge: 'madder-100' }, 'cross', 'error'),
   info: look('message', { colour: 'heather-500', text: 'heather-700', tint: 'heather-50', edge: 'heather-100' }, 'dot-ring', 'note'),

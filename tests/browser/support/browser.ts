@@ -50,8 +50,21 @@ export async function screenshot(page: Page, name: string) {
 
 export const DEMO_PASSWORD = 'tonewright-demo'
 
+/**
+ * Waits until Nuxt has hydrated the page: the server draws it first, and on a loaded machine a
+ * click or a typed value that lands before the page runs in the browser is lost.
+ */
+export async function untilHydrated(page: Page, timeout = 60_000) {
+  await page.waitForFunction(() => {
+    type Root = { __vue_app__?: { config: { globalProperties: { $nuxt?: { isHydrating?: boolean } } } } }
+    const app = (document.querySelector('#__nuxt') as Root | null)?.__vue_app__
+    return app?.config.globalProperties.$nuxt?.isHydrating === false
+  }, undefined, { timeout })
+}
+
 export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {
   await page.goto(`${BASE_URL}/signin`)
+  await untilHydrated(page)
   await page.getByLabel('E-mail').fill(email)
   await page.getByLabel('Password').fill(password)
   await page.getByRole('button', { name: 'Sign in' }).click()

@@ -29,6 +29,7 @@ describe('the cut plan on the Bench', () => {
     await page.goto(`${BASE_URL}/bench?piece=${bench.byNote('C4').id}`)
     await page.getByTestId('cut-plan-none').filter({ hasText: 'No plan exists for the latest strike yet.' }).waitFor({ timeout: 20_000 })
     expect(await page.getByTestId('cut-safety').innerText()).toMatch(/eye and hearing protection[\s\S]*dust extraction[\s\S]*local workplace-safety rules/)
+    expect(await page.getByTestId('cut-safety').getAttribute('data-meaning')).toBe('warning')
 
     await page.getByTestId('cut-plan-make').click()
     const drawing = page.getByTestId('cut-plan-drawing')

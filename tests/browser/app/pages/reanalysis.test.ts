@@ -29,15 +29,21 @@ describe('re-measure screens', () => {
   it('the owner re-measures a set from its page and sees what changed, then the piece\'s strikes show the engine', async () => {
     const page = await session.newPage()
     await signInAs(page, owner.email, owner.password)
+    // The server-drawn page offers the button disabled: a click before the page runs in the browser would be lost.
+    const html = await (await page.request.get(`${BASE_URL}/sets/${set.id}`)).text()
+    expect(html).toMatch(/<button[^>]*disabled[^>]*>\s*Re-measure with engine/)
     await page.goto(`${BASE_URL}/sets/${set.id}`)
-    await page.getByRole('button', { name: `Re-measure with engine ${ENGINE_VERSION}` }).click()
+    // Enabled once the page runs in the browser: a slow machine may take a while to get there.
+    await page.getByRole('button', { name: `Re-measure with engine ${ENGINE_VERSION}` }).click({ timeout: 60_000 })
+    // The run measures audio on a machine that may be busy: its progress shows while it waits its turn.
     const row = page.getByTestId('reanalysis-change-row').first()
-    await row.waitFor({ timeout: 30_000 })
+    await row.or(page.getByTestId('reanalysis-progress')).first().waitFor({ timeout: 30_000 })
+    await row.waitFor({ timeout: 90_000 })
     expect(await row.textContent()).toContain(`0.9.0 → ${ENGINE_VERSION}`)
     expect(await page.getByTestId('reanalysis-summary').textContent()).toMatch(/1 verdict changed/)
     await screenshot(page, 'set-reanalysis')
     await page.goto(`${BASE_URL}/pieces/${set.pieces[0]!.id}`)
     expect(await page.getByTestId('strike-engine').first().textContent()).toContain(ENGINE_VERSION)
     await page.close()
-  })
+  }, 180_000)
 })

@@ -24,13 +24,24 @@ describe('service booking', () => {
     await page.getByRole('button', { name: 'Book in for service', exact: true }).click()
     await expectText(page.getByTestId('open-service'), /In for retune since \d{4}-\d{2}-\d{2}/)
     await expectText(page.getByTestId('set-history').locator('[data-kind="serviced"]'), /Top octave drifted sharp/)
+    // The Sets list marks the set as in service, by the status look's shape, colour and word.
+    await page.goto(`${BASE_URL}/sets`)
+    const badge = page.getByTestId('set-list').getByTestId('set-in-service')
+    await expectText(badge, /^\s*In service\s*$/)
+    expect(await badge.getAttribute('data-meaning')).toBe('inService')
+    expect(await badge.locator('svg').getAttribute('data-shape')).toBe('return-arrow')
+    expect(await badge.getAttribute('title')).toMatch(/^In for retune since \d{4}-\d{2}-\d{2}$/)
     const pieces = (await api(`/api/sets/${ctx.set.id}`, { token: ctx.office.token })).body.pieces as { stage: string }[]
     expect(new Set(pieces.map(p => p.stage))).toEqual(new Set(['tuning']))
 
     // The bench and the supervisor do their part through the API; the office signs nothing.
     await approveAll(ctx)
     const second = (await api(`/api/sets/${ctx.set.id}/certificates`, { method: 'POST', token: ctx.supervisor.token })).body
+    // Signing closed the visit: the list no longer says "In service".
     await page.reload()
+    await page.getByTestId('set-list').getByRole('link', { name: ctx.set.name }).waitFor()
+    expect(await page.getByTestId('set-in-service').count()).toBe(0)
+    await page.goto(`${BASE_URL}/sets/${ctx.set.id}`)
     const recertified = page.getByTestId('set-history').locator('[data-kind="recertified"]')
     await expectText(recertified, new RegExp(`Certificate ${second.number} .*superseding ${first.number}`))
     // The first certificate's line carries its standing now, by shape and word as everywhere.

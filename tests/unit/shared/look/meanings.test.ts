@@ -51,6 +51,10 @@ describe('the meaning map', () => {
     expect(MEANINGS.info.colour).not.toBe(MEANINGS.flat.colour)
     expect(MEANINGS.approved.colour).not.toBe(MEANINGS.within.colour)
     expect(MEANINGS.scrapped.colour).not.toBe(MEANINGS.missing.colour)
+    // A set in service is a status, drawn unlike the shipped and rework stages it sits between.
+    expect(MEANINGS.inService.group).toBe('status')
+    expect([MEANINGS.shipped.colour, MEANINGS.rework.colour, MEANINGS.revoked.colour]).not.toContain(MEANINGS.inService.colour)
+    expect(entries.filter(([m, l]) => m !== 'inService' && l.shape === MEANINGS.inService.shape)).toEqual([])
     // Advice (where to remove material) has marks of its own, never the sharp or flat ones.
     expect([MEANINGS.sharp.colour, MEANINGS.flat.colour]).not.toContain(MEANINGS.advice.colour)
   })

@@ -76,6 +76,9 @@ describe('service bookings', () => {
     expect(moves!.n).toBe(3)
     // The certificate it came in with stays valid until a new one supersedes it.
     expect((await api(`/api/verify/${first.code}`)).body.status).toBe('valid')
+    // The Sets list tells the open visit, for every role that may read sets.
+    const listed = (await api('/api/sets', { token: ctx.bench.token })).body.find((s: { id: string }) => s.id === ctx.set.id)
+    expect(listed.inService).toEqual({ kind: 'retune', receivedOn: '2026-11-30' })
     const again = await api(`/api/sets/${ctx.set.id}/service`, { method: 'POST', token: ctx.office.token, body: booking })
     expect(again.status).toBe(409)
     expect(again.body.message).toMatch(/already booked in/i)
@@ -99,6 +102,7 @@ describe('service bookings', () => {
     const history = (await api(`/api/sets/${ctx.set.id}/history`, { token: ctx.bench.token })).body
     expect(history.events.map((e: { kind: string }) => e.kind)).toEqual(['made', 'certified', 'shipped', 'serviced', 'recertified', 'shipped'])
     expect(history.openService).toBeNull()
+    expect((await api('/api/sets', { token: ctx.office.token })).body.find((s: { id: string }) => s.id === ctx.set.id).inService).toBeNull()
     const recert = history.events.find((e: { kind: string }) => e.kind === 'recertified')
     expect(recert.text).toContain(`superseding ${first.number}`)
     expect(recert.reason).toContain(booking.reason)
