@@ -13,6 +13,8 @@ const MAX_SIDEBAND_RATE_HZ = 2 * ENGINE_SETTINGS.modulation.maxRateHz
  * spectrum showed symmetric sidebands (measureModulation) and lying k·f_m away from it (k = 1…`maxOrder`, within `toleranceHz` or
  * 5 % of f_m) is a sideband of that tremolo or vibrato (the modulation theorem), not a
  * mode of the piece. Only rates up to `maxRateHz` are modulations. Strongest carriers first, so a sideband never removes its carrier.
+ * "Weaker" looks at both levels a track has (weakerThan): a sideband read by a short window
+ * whose decay line overshoots to an onset amplitude over its carrier's is still no carrier.
  */
 export function dropSidebands(partials: readonly TrackMeasurement[], maxOrder = 6, toleranceHz = 0.3, maxRateHz = MAX_SIDEBAND_RATE_HZ): TrackMeasurement[] {
   const byLevel = [...partials].sort((a, b) => b.amplitudeDb - a.amplitudeDb)
@@ -21,11 +23,27 @@ export function dropSidebands(partials: readonly TrackMeasurement[], maxOrder = 
     const rate = carrier.modulationHz ?? 0
     if (dropped.has(carrier) || carrier.modulationFrom !== 'sidebands' || !(rate > 0) || rate > maxRateHz) continue
     for (const other of byLevel) {
-      if (other === carrier || dropped.has(other) || other.amplitudeDb > carrier.amplitudeDb) continue
+      if (other === carrier || dropped.has(other) || !weakerThan(other, carrier)) continue
       const order = Math.abs(other.frequencyHz - carrier.frequencyHz) / rate
       const k = Math.round(order)
       if (k >= 1 && k <= maxOrder && Math.abs(order - k) * rate <= Math.max(toleranceHz, 0.05 * rate)) dropped.add(other)
     }
   }
   return partials.filter(p => !dropped.has(p))
+}
+
+/** Levels of a sideband against its carrier's: never seen stronger in a frame (6 dB slack). */
+const SIDEBAND_FRAME_SLACK_DB = 6
+/** A track whose strongest frame lies this far under another's is weaker, whatever its onset amplitude says. */
+const FRAME_GAP_DB = 20
+
+/**
+ * `other` is weaker than `carrier`: its strongest frame (the level actually seen) is not over
+ * the carrier's, and either its onset amplitude is not over the carrier's or its strongest
+ * frame lies 20 dB or more under the carrier's (an onset amplitude drawn back along a poorly
+ * fitted decay from a weak track, as on a clipped recording with tremolo, overshoots).
+ */
+function weakerThan(other: TrackMeasurement, carrier: TrackMeasurement): boolean {
+  if (other.strongestFrameDb > carrier.strongestFrameDb + SIDEBAND_FRAME_SLACK_DB) return false
+  return other.amplitudeDb <= carrier.amplitudeDb || other.strongestFrameDb < carrier.strongestFrameDb - FRAME_GAP_DB
 }

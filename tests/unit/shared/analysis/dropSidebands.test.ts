@@ -18,3 +18,22 @@ describe('dropSidebands', () => {
     expect(dropSidebands([fast, other])).toHaveLength(2)
   })
 })
+
+describe('dropSidebands judges levels by what the frames saw too', () => {
+  // A vibraphone F3 with an 8 Hz tremolo, recorded 6 dB too hot and hard-clipped (the readings
+  // of tests/support/recordingConditions.ts): a short band's track on the lower sideband drew
+  // its onset amplitude back to +0.97 dB from frames no stronger than −41.6 dB.
+  const carrier = trackReading({ frequencyHz: 174.65, amplitudeDb: 0.12, strongestFrameDb: -1.07, modulationHz: 8, modulationFrom: 'sidebands' })
+  const overshoot = trackReading({ frequencyHz: 166.65, amplitudeDb: 0.97, strongestFrameDb: -41.6, modulationHz: 8, modulationFrom: 'sidebands' })
+  const upper = trackReading({ frequencyHz: 182.65, amplitudeDb: -13.2, strongestFrameDb: -14.7 })
+
+  it('keeps the carrier and leaves out both sidebands, whichever order they come in', () => {
+    expect(dropSidebands([overshoot, carrier, upper]).map(p => p.frequencyHz)).toEqual([174.65])
+    expect(dropSidebands([upper, carrier, overshoot]).map(p => p.frequencyHz)).toEqual([174.65])
+  })
+
+  it('never takes a partial seen more than 6 dB stronger in a frame for a sideband', () => {
+    const strongFrames = trackReading({ frequencyHz: 182.65, amplitudeDb: -13.2, strongestFrameDb: 5 })
+    expect(dropSidebands([carrier, strongFrames])).toHaveLength(2)
+  })
+})
