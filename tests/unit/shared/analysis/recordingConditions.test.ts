@@ -7,7 +7,7 @@ import { CONDITION_CASES, type ConditionCase } from '../../../support/recordingC
 // Strikes recorded the way workshops record them (tests/support/recordingConditions.ts): every
 // case is modal synthesis with known truth, so the answer is the synthesis's own partials.
 // Tolerances: found within 5 ¢ (the realistic syntheses' rule, tests/support/fixtureAccuracy.ts);
-// each found partial within 0.5 ¢ of the truth (common practice: a tuner works to 1 ¢, the Bench
+// each found partial within 0.5 ¢ of the truth (1 ¢ in a live room) (common practice: a tuner works to 1 ¢, the Bench
 // reports 0.1 ¢); onset amplitude within 2 dB and decay within 15 % where the file keeps them
 // (from memory: the spread of repeated strikes of one bar is of that order).
 interface Run { c: ConditionCase, bytes: Uint8Array, peakDb: number, without: AnalysisResult, withTarget: AnalysisResult }
@@ -36,11 +36,10 @@ beforeAll(async () => {
 const nearest = (partials: readonly MeasuredPartial[], f: number) =>
   partials.reduce((a, b) => (Math.abs(centsBetween(b.frequencyHz, f)) < Math.abs(centsBetween(a.frequencyHz, f)) ? b : a))
 
-
 describe('recording conditions: every case with and without a target', () => {
   it('covers formats, rates, timing, levels, noise and every family', () => {
     expect(runs).toHaveLength(CONDITION_CASES.length)
-    expect(CONDITION_CASES.length).toBeGreaterThanOrEqual(39)
+    expect(CONDITION_CASES.length).toBeGreaterThanOrEqual(40)
   })
 
   for (const c of CONDITION_CASES) {
@@ -52,7 +51,7 @@ describe('recording conditions: every case with and without a target', () => {
           const partials = run()[mode].partials
           const score = scorePartials(partials, c.truthHz, FOUND_WITHIN_CENTS.synthesis)
           expect(score.found, c.id).toEqual(c.truthHz.map(() => true))
-          for (const cents of score.cents) expect(cents).toBeLessThan(0.5)
+          for (const cents of score.cents) expect(cents).toBeLessThan(c.maxCents)
         })
 
         it(`${label}: amplitudes and decays as synthesised where the file keeps them, none impossible`, () => {
