@@ -121,7 +121,7 @@ function formatCases(): ConditionCase[] {
   const rate = s.options.sampleRate
   const formats: WavFormat[] = ['pcm8', 'pcm16', 'pcm24', 'pcm32', 'float32', 'float64']
   return [
-    ...formats.map(f => makeCase(`format ${f}`, 'marimbaA3', () => wav(render(s), rate, f))),
+    ...formats.map(f => makeCase(`format ${f}`, 'marimbaA3', () => wav(render(s), rate, f), f === 'pcm8' ? /^8-bit audio: partials more than 40 dB under the strongest are not reported/ : undefined)),
     makeCase('format extensible pcm24', 'marimbaA3', () => wav(render(s), rate, 'pcm24', { extensible: true })),
     makeCase('format extensible float32', 'marimbaA3', () => wav(render(s), rate, 'float32', { extensible: true })),
     makeCase('format FLAC 24-bit, 96 kHz', 'marimbaA3', () => flacOf(wav(render(s, { sampleRate: 96000 }), 96000, 'pcm24'))),
