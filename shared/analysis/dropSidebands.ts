@@ -7,12 +7,16 @@ import type { TrackMeasurement } from './measureTrack'
  * inside a short window's lobe (150 Hz apart in a 25 ms band) is no modulation of a partial.
  */
 const MAX_SIDEBAND_RATE_HZ = 2 * ENGINE_SETTINGS.modulation.maxRateHz
+/** Slowest tremolo looked for, Hz. */
+const TREMOLO_MIN_HZ = ENGINE_SETTINGS.modulation.minRateHz
 
 /**
  * Leave out the modulation sidebands of modulated partials: a partial weaker than one whose
  * spectrum showed symmetric sidebands (measureModulation) and lying k·f_m away from it (k = 1…`maxOrder`, within `toleranceHz` or
  * 5 % of f_m) is a sideband of that tremolo or vibrato (the modulation theorem), not a
  * mode of the piece. Only rates up to `maxRateHz` are modulations. Strongest carriers first, so a sideband never removes its carrier.
+ * A symmetric pair around any partial at the rate of a tremolo another partial showed (1.5–12 Hz)
+ * is left out too: the discs modulate every partial, but a weak one's own spectrum may not show it.
  * "Weaker" looks at both levels a track has (weakerThan): a sideband read by a short window
  * whose decay line overshoots to an onset amplitude over its carrier's is still no carrier.
  */
@@ -27,6 +31,23 @@ export function dropSidebands(partials: readonly TrackMeasurement[], maxOrder = 
       const order = Math.abs(other.frequencyHz - carrier.frequencyHz) / rate
       const k = Math.round(order)
       if (k >= 1 && k <= maxOrder && Math.abs(order - k) * rate <= Math.max(toleranceHz, 0.05 * rate)) dropped.add(other)
+    }
+  }
+  // A tremolo modulates every partial of the strike at one rate, but a weak partial's own
+  // spectrum may not show it: a symmetric pair at ± a rate another partial showed is its sidebands too.
+  const strikeRatesHz = [...new Set(byLevel
+    .filter(p => p.modulationFrom === 'sidebands' && p.modulationHz !== null && p.modulationHz >= TREMOLO_MIN_HZ && p.modulationHz <= ENGINE_SETTINGS.modulation.maxRateHz)
+    .map(p => p.modulationHz!))]
+  for (const carrier of byLevel) {
+    if (dropped.has(carrier)) continue
+    for (const rate of strikeRatesHz) {
+      const at = (hz: number) => byLevel.find(o => o !== carrier && !dropped.has(o) && weakerThan(o, carrier) && Math.abs(o.frequencyHz - hz) <= Math.max(toleranceHz, 0.05 * rate))
+      const lower = at(carrier.frequencyHz - rate)
+      const upper = at(carrier.frequencyHz + rate)
+      if (lower && upper) {
+        dropped.add(lower)
+        dropped.add(upper)
+      }
     }
   }
   return partials.filter(p => !dropped.has(p))

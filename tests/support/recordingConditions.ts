@@ -23,6 +23,8 @@ export interface ConditionCase {
   bytes: () => Uint8Array
   /** A warning the result must carry. */
   warning?: RegExp
+  /** The tremolo's rate, Hz, when the strike has one (its sidebands are no partials). */
+  tremoloHz?: number
   /** Largest error of a found partial, cents (0.5 unless the file itself pulls a partial: a room's resonances). */
   maxCents: number
 }
@@ -89,6 +91,7 @@ function makeCase(id: string, name: StrikeName, bytes: () => Uint8Array, warning
   const t = tuned(s)
   return {
     id, family: s.family, targetHz: s.targetHz, ratios: s.ratios, bytes, warning, maxCents,
+    tremoloHz: s.partials[0]!.tremolo?.rateHz,
     truthHz: t.map(p => p.frequencyHz),
     truthDb: kept === 'all' ? t.map(p => p.amplitudeDb) : null,
     truthDecayDbPerS: kept === 'none' ? null : t.map(p => p.decayDbPerS),
@@ -182,8 +185,10 @@ function familyCases(): ConditionCase[] {
   return [
     ...(['marimbaC2', 'xylophoneC8', 'glockenspielC8', 'chimesC5', 'timpaniD3'] as const).map(name =>
       makeCase(`${STRIKES[name].family} ${name.slice(-2)}`, name, () => wav(render(STRIKES[name]), STRIKES[name].options.sampleRate, 'pcm24'))),
-    ...[2, 10].map(rate => makeCase(`vibraphone F3, tremolo ${rate} Hz`, 'vibraphoneF3', () =>
-      wav(render(v, {}, v.partials.map(p => ({ ...p, tremolo: trem(rate) }))), 48000, 'pcm24'))),
+    ...[2, 10].map(rate => ({
+      ...makeCase(`vibraphone F3, tremolo ${rate} Hz`, 'vibraphoneF3', () => wav(render(v, {}, v.partials.map(p => ({ ...p, tremolo: trem(rate) }))), 48000, 'pcm24')),
+      tremoloHz: rate,
+    })),
     makeCase('xylophone C5 hard mallet (T60 0.3 s and 0.1 s overtones)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5), 48000, 'pcm24')),
   ]
 }

@@ -37,3 +37,22 @@ describe('dropSidebands judges levels by what the frames saw too', () => {
     expect(dropSidebands([carrier, strongFrames])).toHaveLength(2)
   })
 })
+
+describe('dropSidebands applies the strike\'s tremolo to every partial', () => {
+  // A vibraphone F3 with a 10 Hz tremolo (tests/support/recordingConditions.ts): the fundamental's
+  // spectrum showed the sidebands, the ×10's did not, and the 0.5 s window read its pair at ±10 Hz.
+  const fundamental = trackReading({ frequencyHz: 174.65, amplitudeDb: -7.8, strongestFrameDb: -9, modulationHz: 10, modulationFrom: 'sidebands' })
+  const tenth = trackReading({ frequencyHz: 1746.9, amplitudeDb: -30.3, strongestFrameDb: -32 })
+  const lower = trackReading({ frequencyHz: 1736.9, amplitudeDb: -42.2, strongestFrameDb: -44 })
+  const upper = trackReading({ frequencyHz: 1756.9, amplitudeDb: -42.2, strongestFrameDb: -44 })
+
+  it('leaves out a symmetric pair at ± that rate around a partial that did not show it', () => {
+    expect(dropSidebands([fundamental, tenth, lower, upper]).map(p => p.frequencyHz)).toEqual([174.65, 1746.9])
+  })
+
+  it('keeps a single neighbour at that distance (a mode, not a sideband pair) and pairs at other rates', () => {
+    expect(dropSidebands([fundamental, tenth, upper])).toHaveLength(3)
+    const at13 = [trackReading({ frequencyHz: 1733.9, amplitudeDb: -42.2, strongestFrameDb: -44 }), trackReading({ frequencyHz: 1759.9, amplitudeDb: -42.2, strongestFrameDb: -44 })]
+    expect(dropSidebands([fundamental, tenth, ...at13])).toHaveLength(4)
+  })
+})

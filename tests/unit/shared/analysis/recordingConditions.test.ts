@@ -70,6 +70,21 @@ describe('recording conditions: every case with and without a target', () => {
         })
       }
 
+      if (c.tremoloHz && c.truthDb) {
+        it(`reports no sideband of its ${c.tremoloHz} Hz tremolo as a partial`, () => {
+          // source: the modulation theorem — a tremolo at f_m puts lines at f ± k·f_m, which are no modes.
+          for (const result of [run().without, run().withTarget]) {
+            for (const f of c.truthHz) {
+              for (let k = 1; k <= 3; k++) {
+                for (const side of [f - k * c.tremoloHz!, f + k * c.tremoloHz!]) {
+                  expect(result.partials.filter(p => Math.abs(p.frequencyHz - side) < 0.3), `${side.toFixed(2)} Hz`).toEqual([])
+                }
+              }
+            }
+          }
+        })
+      }
+
       it('is never worse with a target than without one', () => {
         const { without, withTarget } = run()
         const a = scorePartials(without.partials, c.truthHz, FOUND_WITHIN_CENTS.synthesis)
