@@ -134,6 +134,7 @@ function formatCases(): ConditionCase[] {
       const x = render(STRIKES.xylophoneC5, { durationS: 0.5 })
       return wav(x, 48000, 'pcm16', { declaredDataBytes: 10 * 48000 * 2 })
     }, /header declares 10\.00 s .* holds 0\.50 s/),
+    makeCase('header states no length (data size 0)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5), 48000, 'pcm16', { declaredDataBytes: 0 }), /header states no length/),
   ]
 }
 
