@@ -16,7 +16,8 @@ const TREMOLO_MIN_HZ = ENGINE_SETTINGS.modulation.minRateHz
  * 5 % of f_m) is a sideband of that tremolo or vibrato (the modulation theorem), not a
  * mode of the piece. Only rates up to `maxRateHz` are modulations. Strongest carriers first, so a sideband never removes its carrier.
  * A symmetric pair around any partial at the rate of a tremolo another partial showed (1.5–12 Hz)
- * is left out too: the discs modulate every partial, but a weak one's own spectrum may not show it.
+ * is left out too, when its levels are a tremolo's (sidebandLevels): the discs modulate every
+ * partial, but a weak one's own spectrum may not show it.
  * "Weaker" looks at both levels a track has (weakerThan): a sideband read by a short window
  * whose decay line overshoots to an onset amplitude over its carrier's is still no carrier.
  */
@@ -44,7 +45,7 @@ export function dropSidebands(partials: readonly TrackMeasurement[], maxOrder = 
       const at = (hz: number) => byLevel.find(o => o !== carrier && !dropped.has(o) && weakerThan(o, carrier) && Math.abs(o.frequencyHz - hz) <= Math.max(toleranceHz, 0.05 * rate))
       const lower = at(carrier.frequencyHz - rate)
       const upper = at(carrier.frequencyHz + rate)
-      if (lower && upper) {
+      if (lower && upper && sidebandLevels(carrier, lower, upper)) {
         dropped.add(lower)
         dropped.add(upper)
       }
@@ -67,4 +68,19 @@ const FRAME_GAP_DB = 20
 function weakerThan(other: TrackMeasurement, carrier: TrackMeasurement): boolean {
   if (other.strongestFrameDb > carrier.strongestFrameDb + SIDEBAND_FRAME_SLACK_DB) return false
   return other.amplitudeDb <= carrier.amplitudeDb || other.strongestFrameDb < carrier.strongestFrameDb - FRAME_GAP_DB
+}
+
+/** A tremolo's sidebands each lie at 20·log10(m/2) ≤ −6 dB under the carrier (modulation index m ≤ 1). */
+const MIN_BELOW_CARRIER_DB = 6
+
+/**
+ * Whether two partials around a carrier have a tremolo's sideband levels: each at least 6 dB and
+ * at most `maxBelowCarrierDb` under the carrier, within `maxImbalanceDb` of each other (the
+ * modulation theorem gives equal sidebands; engineSettings' modulation limits). A bell's uneven
+ * neighbours 9.5 dB apart are no sidebands.
+ */
+function sidebandLevels(carrier: TrackMeasurement, lower: TrackMeasurement, upper: TrackMeasurement): boolean {
+  const { maxBelowCarrierDb, maxImbalanceDb } = ENGINE_SETTINGS.modulation
+  const below = [lower, upper].map(p => carrier.amplitudeDb - p.amplitudeDb)
+  return below.every(d => d >= MIN_BELOW_CARRIER_DB && d <= maxBelowCarrierDb) && Math.abs(lower.amplitudeDb - upper.amplitudeDb) <= maxImbalanceDb
 }

@@ -56,3 +56,16 @@ describe('dropSidebands applies the strike\'s tremolo to every partial', () => {
     expect(dropSidebands([fundamental, tenth, ...at13])).toHaveLength(4)
   })
 })
+
+describe('dropSidebands: a pair is only a tremolo\'s sidebands with a tremolo\'s levels', () => {
+  it('keeps uneven neighbours (a bell\'s 2419.9 and 2435.4 Hz, 9.5 dB apart) and pairs too close to the carrier\'s level', () => {
+    const tremolo = trackReading({ frequencyHz: 900, amplitudeDb: -20, strongestFrameDb: -22, modulationHz: 7.75, modulationFrom: 'sidebands' })
+    const carrier = trackReading({ frequencyHz: 2427.67, amplitudeDb: -30, strongestFrameDb: -32 })
+    const uneven = [trackReading({ frequencyHz: 2419.92, amplitudeDb: -41.1, strongestFrameDb: -43 }), trackReading({ frequencyHz: 2435.42, amplitudeDb: -50.6, strongestFrameDb: -52 })]
+    expect(dropSidebands([tremolo, carrier, ...uneven])).toHaveLength(4)
+    const tooStrong = [trackReading({ frequencyHz: 2419.92, amplitudeDb: -33, strongestFrameDb: -35 }), trackReading({ frequencyHz: 2435.42, amplitudeDb: -33, strongestFrameDb: -35 })]
+    expect(dropSidebands([tremolo, carrier, ...tooStrong])).toHaveLength(4)
+    const even = [trackReading({ frequencyHz: 2419.92, amplitudeDb: -42, strongestFrameDb: -44 }), trackReading({ frequencyHz: 2435.42, amplitudeDb: -43, strongestFrameDb: -45 })]
+    expect(dropSidebands([tremolo, carrier, ...even])).toHaveLength(2)
+  })
+})
