@@ -25,7 +25,8 @@ export function analyzeChannels(
   channels: readonly ArrayLike<number>[],
   sampleRate: number,
   options: AnalyzeOptions = {},
-  source: { lossy?: boolean } = {},
+  /** What the container says: a lossy codec, or integer PCM of this many bits (coarse ones show less range). */
+  source: { lossy?: boolean, pcmBits?: number | null } = {},
 ): AnalysisResult {
   const opts = validateAnalyzeOptions(options)
   const prepared = prepareMono(channels, sampleRate)
@@ -36,7 +37,7 @@ export function analyzeChannels(
   const { strike } = located
   const expected = expectedPartials(opts)
   const plan = planAnalysis(mono, sampleRate, strike, expected.expectedHz, opts.windowS)
-  const fft = measureFftPartials(mono, sampleRate, strike, plan, { peakDb, lossy: source.lossy === true })
+  const fft = measureFftPartials(mono, sampleRate, strike, plan, { peakDb, lossy: source.lossy === true, pcmBits: source.pcmBits ?? null })
   const level = { peakDb, peakMarginDb: S.peakMarginDb, minAmplitudeDb: fft.minAmplitudeDb }
   const checked = crossCheckPartials(mono, sampleRate, fft.partials, strike, level)
   const withLong = addLongLookPartials(mono, sampleRate, checked.partials, strike, plan, level)
@@ -50,6 +51,9 @@ export function analyzeChannels(
     ...withLong.warnings,
     ...withShort.warnings,
     ...(source.lossy ? [`lossy audio format: partials more than ${fft.dynamicRangeDb} dB under the strongest are not reported`] : []),
+    ...(!source.lossy && fft.dynamicRangeDb < S.peakThresholdDb
+      ? [`${source.pcmBits}-bit audio: partials more than ${fft.dynamicRangeDb} dB under the strongest are not reported (the format's own quantisation error)`]
+      : []),
     ...(partials.length === 0 ? ['no partials found above the noise floor'] : []),
   ]
   const result = assembleResult(partials, warnings, {

@@ -2,6 +2,7 @@ import { analyzeChannels } from './analyzeChannels'
 import { decodeAudio } from './decodeAudio'
 import { detectContainer, isLossy } from './detectContainer'
 import { validateAnalyzeOptions } from './parseAnalyzeOptions'
+import { readWavHeader } from './readWavHeader'
 import type { AnalysisResult, AnalyzeOptions } from './types'
 
 /**
@@ -14,7 +15,10 @@ export async function analyzeStrike(bytes: Uint8Array, options: AnalyzeOptions =
   // Options first: a typo in a form field should not cost a decode.
   const opts = validateAnalyzeOptions(options)
   const decoded = await decodeAudio(bytes)
-  const result = await analyzeChannels(decoded.channelData, decoded.sampleRate, opts, { lossy: isLossy(detectContainer(bytes)) })
+  // Integer PCM WAV states its bit depth; float (tag 3) holds more than the engine reports.
+  const wav = readWavHeader(bytes)
+  const pcmBits = wav && wav !== 'corrupt' && wav.formatTag !== 3 && wav.bitsPerSample < 32 ? wav.bitsPerSample : null
+  const result = await analyzeChannels(decoded.channelData, decoded.sampleRate, opts, { lossy: isLossy(detectContainer(bytes)), pcmBits })
   // What decoding found about the file itself (e.g. a truncated WAV) comes first.
   if (decoded.warnings.length > 0) result.warnings = [...decoded.warnings, ...result.warnings]
   return result

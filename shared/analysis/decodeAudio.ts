@@ -21,7 +21,7 @@ const NOT_AUDIO = 'The file is not audio in a format Tonewright reads (WAV, FLAC
  * truncated or corrupt (415), and audio outside the limits (422). The container's header
  * is checked before decoding (channels, rate and stated length), and decoding stops as
  * soon as the decoded audio passes 60 s, so a small file that expands to hours costs
- * almost nothing. A WAV whose data chunk is cut short is measured with a warning.
+ * almost nothing. A WAV whose data chunk is cut short, or states no length, is measured with a warning.
  */
 export async function decodeAudio(bytes: Uint8Array): Promise<DecodedFile> {
   if (bytes.length > LIMITS.maxBytes) {
@@ -41,6 +41,9 @@ export async function decodeAudio(bytes: Uint8Array): Promise<DecodedFile> {
     }
     const warning = truncationWarning(wav.dataBytes, wav.dataBytesPresent, wav.blockAlign, wav.sampleRate)
     if (warning) warnings.push(warning)
+    if (wav.dataBytes === 0 && wav.frames > 0) {
+      warnings.push('the WAV header states no length for its audio (the recorder may not have finished the file); it was read to the end of the file')
+    }
   }
   const kind = detectContainer(bytes)
   const declared = readDeclaredAudio(bytes, kind, wav)

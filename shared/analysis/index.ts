@@ -38,6 +38,7 @@ export { decodeAudio, checkLimits, type DecodedAudio } from './decodeAudio'
 export { readWavHeader, type WavHeader } from './readWavHeader'
 export { detectContainer, isLossy, type ContainerKind } from './detectContainer'
 export { encodeWav } from './encodeWav'
+export { channelSigns, type ChannelSign } from './channelSigns'
 export { mixToMono } from './mixToMono'
 export { inspectLevels, CLIP_LEVEL, type LevelReport } from './inspectLevels'
 

@@ -1,3 +1,4 @@
+import { findSecondStrike } from './findSecondStrike'
 import { findStrike, type StrikeSpan } from './findStrike'
 
 /** The strike's span, and what was noticed finding it. */
@@ -9,7 +10,9 @@ export interface LocatedStrike {
 /**
  * The strike's span in a mono recording (findStrike), with two fall-backs: a sound that
  * never falls to a quiet background is analysed from its first loud moment to the end
- * (with a warning), and the span is never shorter than `minSpanS`.
+ * (with a warning), a second blow later in the file ends the span just before it (with a
+ * warning: its sound would add to the first strike's decay), and the span is never shorter
+ * than `minSpanS`.
  */
 export function locateStrike(
   mono: Float64Array,
@@ -28,6 +31,12 @@ export function locateStrike(
     while (onsetIndex < mono.length - 1 && Math.abs(mono[onsetIndex]!) <= loud) onsetIndex++
     startIndex = Math.min(mono.length, onsetIndex + Math.round(settings.attackSkipS * sampleRate))
     endIndex = mono.length
+  }
+  const second = findSecondStrike(mono, sampleRate, { onsetIndex, fromIndex: startIndex, toIndex: endIndex })
+  if (second !== null) {
+    // Two blocks (2 ms) before the rise, so no sample of the new blow is measured.
+    endIndex = Math.max(startIndex, second - 2 * Math.max(16, Math.round(sampleRate * 0.001)))
+    warnings.push(`a second strike at ${(second / sampleRate).toFixed(2)} s: only the first, up to ${(endIndex / sampleRate).toFixed(2)} s, was measured`)
   }
   const minSpan = Math.round(settings.minSpanS * sampleRate)
   if (endIndex - startIndex < minSpan) {

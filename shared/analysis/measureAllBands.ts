@@ -5,7 +5,7 @@ import type { TrackPoint } from './linkTracks'
 import { measureBand, type BandMeasurement, type BandSettings } from './measureBand'
 import type { TrackMeasurement } from './measureTrack'
 import { mergeBands } from './mergeBands'
-import { dropHeldInPairZones, inPairZone } from './pairZones'
+import { dropHeldInPairZones, heldBy, inPairZone } from './pairZones'
 import { bandSource } from './bandSource'
 import type { AnalysisBand } from './planBands'
 import type { ReportFloor } from './reportFloor'
@@ -41,7 +41,12 @@ export function measureAllBands(
     const settled = (points: TrackPoint[]) => {
       const frequencyHz = points[points.length >> 1]!.frequencyHz
       const held = merged.find(m => Math.abs(m.frequencyHz - frequencyHz) < reachHz)
-      if (held && inPairZone(frequencyHz, band.pairZonesHz)) return true
+      if (held && inPairZone(frequencyHz, band.pairZonesHz)) {
+        // Held only by a slower partial of comparable level (heldBy), judged by the track's strongest frame.
+        let strongestDb = -Infinity
+        for (const p of points) strongestDb = Math.max(strongestDb, p.amplitudeDb)
+        if (heldBy(merged, frequencyHz, strongestDb, reachHz)) return true
+      }
       if (!held || points.length < 2) return false
       const decayDbPerS = -fitLine(points.map(p => p.timeS), points.map(p => p.amplitudeDb)).slope
       return decayDbPerS * held.windowS <= settings.maxDropPerWindowDb

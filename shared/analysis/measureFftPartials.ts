@@ -5,6 +5,7 @@ import { ENGINE_SETTINGS as S } from './engineSettings'
 import type { StrikeSpan } from './findStrike'
 import { guardPartials } from './guardPartials'
 import { measureAllBands } from './measureAllBands'
+import { quantisationRangeDb } from './quantisationRangeDb'
 import type { BandMeasurement } from './measureBand'
 import type { AnalysisPlan } from './planAnalysis'
 import { reportFloor } from './reportFloor'
@@ -23,14 +24,14 @@ export interface FftPartials {
 /**
  * Every band measured and merged (measureAllBands), readings outside the physical bounds
  * left out (guardPartials), then the reported range (within `dynamicRangeDb` of the
- * strongest), modulation sidebands, duplicates and spurious tracks left out.
+ * strongest: 80 dB, 35 for a lossy codec, less for coarse PCM by quantisationRangeDb), modulation sidebands, duplicates and spurious tracks left out.
  */
 export function measureFftPartials(
   mono: Float64Array,
   sampleRate: number,
   strike: StrikeSpan,
   plan: AnalysisPlan,
-  level: { peakDb: number, lossy: boolean },
+  level: { peakDb: number, lossy: boolean, pcmBits?: number | null },
 ): FftPartials {
   const bounds = {
     peakDb: level.peakDb,
@@ -40,7 +41,9 @@ export function measureFftPartials(
     maxDecayDbPerS: S.maxDecayDbPerS,
     maxGrowthDbPerS: S.maxGrowthDbPerS,
   }
-  const dynamicRangeDb = level.lossy ? S.lossyRangeDb : S.peakThresholdDb
+  const dynamicRangeDb = level.lossy
+    ? S.lossyRangeDb
+    : Math.round(Math.min(S.peakThresholdDb, level.pcmBits ? quantisationRangeDb(level.pcmBits) : Infinity))
   const { measured, merged } = measureAllBands(mono, sampleRate, strike, plan.bands, S, reportFloor(bounds, dynamicRangeDb))
   const guarded = guardPartials(merged, bounds)
   const strongestDb = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb))

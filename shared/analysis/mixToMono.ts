@@ -1,14 +1,24 @@
-/** Mix channels to mono by averaging them (equal weight: a stereo pair of one mic is not panned). */
-export function mixToMono(channels: readonly ArrayLike<number>[]): Float64Array {
+import type { ChannelSign } from './channelSigns'
+
+/**
+ * Mix channels to mono by averaging them (equal weight: a stereo pair of one mic is not
+ * panned). `signs` (channelSigns) inverts a channel (−1) or leaves it out (0); all +1 by default.
+ */
+export function mixToMono(channels: readonly ArrayLike<number>[], signs?: readonly ChannelSign[]): Float64Array {
   if (channels.length === 0) throw new RangeError('mixToMono needs at least one channel')
+  if (signs && signs.length !== channels.length) throw new RangeError('one sign per channel')
   const length = channels[0]!.length
   const mono = new Float64Array(length)
-  for (const channel of channels) {
+  let used = 0
+  channels.forEach((channel, k) => {
     if (channel.length !== length) throw new RangeError('all channels must have the same length')
-    for (let i = 0; i < length; i++) mono[i]! += channel[i]!
-  }
-  if (channels.length > 1) {
-    const scale = 1 / channels.length
+    const sign = signs ? signs[k]! : 1
+    if (sign === 0) return
+    used++
+    for (let i = 0; i < length; i++) mono[i]! += sign * channel[i]!
+  })
+  if (used > 1) {
+    const scale = 1 / used
     for (let i = 0; i < length; i++) mono[i]! *= scale
   }
   return mono

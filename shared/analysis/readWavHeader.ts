@@ -42,7 +42,9 @@ export function readWavHeader(bytes: Uint8Array): WavHeader | 'corrupt' | null {
     }
     else if (id === 'data') {
       if (!fmt || fmt.blockAlign === 0 || fmt.channels === 0) return 'corrupt'
-      const dataBytesPresent = Math.min(size, bytes.length - body)
+      // 0 (a recorder stopped before it wrote the size) or 0xFFFFFFFF (one that streams): the
+      // data runs to the end of the file.
+      const dataBytesPresent = size === 0 || size === 0xffffffff ? bytes.length - body : Math.min(size, bytes.length - body)
       return { ...fmt, dataBytes: size, dataBytesPresent, frames: Math.floor(dataBytesPresent / fmt.blockAlign) }
     }
     // Chunks are padded to an even size.

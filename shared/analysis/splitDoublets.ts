@@ -1,5 +1,6 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import type { TrackMeasurement } from './measureTrack'
+import { ENGINE_SETTINGS } from './engineSettings'
 import { pencilPartial } from './pencilPartial'
 import { separateDoublet } from './separateDoublet'
 import type { FftPartial, MeasuredPartial } from './types'
@@ -41,6 +42,10 @@ const MIN_BEATS = 1
 const MIN_BOUND_WIDTHS = 8
 /** The energy-dominant component's decay may differ from the FFT track's by this fraction of it. */
 const MAX_DECAY_MISMATCH = 0.6
+/** Tremolo rates looked for (engineSettings: 1.5–12 Hz). */
+const TREMOLO_RATES_HZ = { min: ENGINE_SETTINGS.modulation.minRateHz, max: ENGINE_SETTINGS.modulation.maxRateHz }
+/** A gap within 5 % of another partial's tremolo rate is that tremolo (both rates are read to a fraction of a per cent). */
+const SAME_RATE_SHARE = 0.05
 
 /**
  * Two partials inside one FFT main lobe (a bell's or a steel note's doublet, a bar's twisting
@@ -53,7 +58,8 @@ const MAX_DECAY_MISMATCH = 0.6
  * the gap of the FFT reading, each component holds 20 dB of SNR over a whole beat (so an
  * attack transient beside a partial is no doublet), the component with most of the energy
  * (∝ A²/decay) decays as the FFT track did (within 60 %), and the gap is not the rate of a tremolo whose sidebands the
- * FFT path found (nor a pair it already resolved). The two beat at their difference
+ * FFT path found on this partial or, within 5 %, on any other (a 2 Hz tremolo's upper sideband of a vibraphone's ×4
+ * was split off as a doublet partner at −12 dB), nor a pair it already resolved. The two beat at their difference
  * (`beatHz`, `modulationHz`, depth 20·log10((A₁ + A₂)/|A₁ − A₂|)).
  */
 export function splitDoublets<P extends DoubletCandidate>(
@@ -68,6 +74,11 @@ export function splitDoublets<P extends DoubletCandidate>(
   const single: P[] = []
   const pairs: MeasuredPartial[] = []
   const floorDb = Math.max(-Infinity, ...partials.map(p => p.amplitudeDb)) - MAX_BELOW_STRONGEST_DB
+  // A tremolo (a vibraphone's rotating discs) modulates every partial of the strike at one rate,
+  // but a weak overtone's own spectrum may not show it: the rates any partial's sidebands showed.
+  const tremoloRatesHz = partials
+    .filter(q => q.modulationFrom === 'sidebands' && q.modulationHz !== null && q.modulationHz >= TREMOLO_RATES_HZ.min && q.modulationHz <= TREMOLO_RATES_HZ.max)
+    .map(q => q.modulationHz!)
   for (const p of partials) {
     const split = p.modulationFrom === 'pair' || p.snrDb < MIN_SNR_DB || p.amplitudeDb < floorDb ? null : splitOne(p)
     if (split) pairs.push(...split)
@@ -99,7 +110,8 @@ export function splitDoublets<P extends DoubletCandidate>(
     const levels = [a, b].map(c => 20 * Math.log10(c.amplitude))
     const power = a.amplitude ** 2 + b.amplitude ** 2
     const centroidHz = (a.frequencyHz * a.amplitude ** 2 + b.frequencyHz * b.amplitude ** 2) / power
-    const tremoloRate = p.modulationFrom === 'sidebands' && p.modulationHz !== null && Math.abs(gapHz - p.modulationHz) < 0.2 * p.modulationHz
+    const tremoloRate = (p.modulationFrom === 'sidebands' && p.modulationHz !== null && Math.abs(gapHz - p.modulationHz) < 0.2 * p.modulationHz)
+      || tremoloRatesHz.some(rateHz => Math.abs(gapHz - rateHz) < SAME_RATE_SHARE * rateHz)
     const physical = [a, b].every((c, k) => Number.isFinite(c.frequencyHz) && c.decayDbPerS >= 0 && levels[k]! <= settings.peakDb + settings.peakMarginDb && levels[k]! >= settings.minAmplitudeDb)
     if (!physical || tremoloRate) return null
     if (Math.min(a.snrDb, b.snrDb) < MIN_SNR_DB || Math.abs(levels[0]! - levels[1]!) > MAX_LEVEL_GAP_DB) return null

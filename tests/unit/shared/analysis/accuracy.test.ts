@@ -49,7 +49,7 @@ describe('synthetic strikes with known answers (seeded noise)', () => {
         expect(Math.abs(result.onsetS - 0.05)).toBeLessThan(0.002)
         expect(result.partials.length, `${frequencyHz} Hz: no extra partials`).toBe(1)
       })
-    })
+    }, 60_000) // seven analyses: 4.8 s alone at load 19, over vitest's default 5 s
   }
 
   it('measures three decaying partials, their amplitudes, decays and T60', () => {

@@ -99,12 +99,29 @@ describe('decoding every accepted format', () => {
 
   it('mixes channels to mono by averaging and reports the channel count', async () => {
     const x = strike(48000)
-    const silent = new Float64Array(x.length)
-    const result = await analyzeStrike(writeWav([x, silent], 48000, 'pcm24'))
+    const quieter = x.map(v => v / 2)
+    const result = await analyzeStrike(writeWav([x, quieter], 48000, 'pcm24'))
     expect(result.channels).toBe(2)
-    // The mix halves the amplitude: −6.02 dB.
-    expect(result.partials[0]!.amplitudeDb).toBeCloseTo(-8 - 6.02, 1)
+    // The mix of 1 and ½ is ¾ of the louder channel: 20·log10(0.75) = −2.50 dB.
+    expect(result.partials[0]!.amplitudeDb).toBeCloseTo(-8 - 2.5, 1)
     expect(Array.from(mixToMono([[1, 3], [3, 5]]))).toEqual([2, 4])
+  })
+
+  it('leaves a silent channel out of the mix and says so', async () => {
+    const x = strike(48000)
+    const result = await analyzeStrike(writeWav([new Float64Array(x.length), x], 48000, 'pcm24'))
+    expect(result.channels).toBe(2)
+    // The live channel's own level, not halved by the dead one.
+    expect(result.partials[0]!.amplitudeDb).toBeCloseTo(-8, 1)
+    expect(result.warnings).toContain('channel 1 is silent or nearly so (40 dB or more under the loudest); it was left out of the mix')
+  })
+
+  it('inverts a channel in opposite polarity instead of cancelling the strike', async () => {
+    const x = strike(48000)
+    const result = await analyzeStrike(writeWav([x, x.map(v => -v)], 48000, 'pcm24'))
+    expect(result.partials.map(p => Math.round(p.frequencyHz))).toEqual([440, 1213])
+    expect(result.partials[0]!.amplitudeDb).toBeCloseTo(-8, 1)
+    expect(result.warnings).toContain('channel 2 is in opposite polarity to the loudest channel; it was inverted before mixing')
   })
 
   it('keeps the native sample rate at 8 kHz and 192 kHz', async () => {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { analyzeStrike } from '../../../../shared/analysis/analyzeStrike'
 import { decodeAudio, truncationWarning } from '../../../../shared/analysis/decodeAudio'
+import { readWavHeader } from '../../../../shared/analysis/readWavHeader'
 import { flacBomb, opusBomb } from '../../../support/audioBombs'
 import { synthStrike } from '../../../support/synthStrike'
 import { writeWav } from '../../../support/writeWav'
@@ -47,6 +48,19 @@ describe('decodeAudio: a WAV cut short', () => {
     const result = await analyzeStrike(cut)
     expect(result.warnings[0]).toMatch(/^truncated WAV file/)
     expect((await decodeAudio(whole)).warnings).toEqual([])
+  })
+
+  it('reads a WAV whose data size is 0 (a recorder stopped before writing it) to the end, and says so', async () => {
+    const x = Float64Array.from({ length: 48000 }, (_, i) => 0.5 * Math.exp(-i / 24000) * Math.sin((2 * Math.PI * 440 * i) / 48000))
+    const bytes = writeWav([x], 48000, 'pcm16', { declaredDataBytes: 0 })
+    expect(readWavHeader(bytes)).toMatchObject({ dataBytes: 0, dataBytesPresent: 96000, frames: 48000 })
+    const decoded = await decodeAudio(bytes)
+    expect(decoded.channelData[0]!.length).toBe(48000)
+    expect(decoded.warnings).toEqual(['the WAV header states no length for its audio (the recorder may not have finished the file); it was read to the end of the file'])
+    const result = await analyzeStrike(bytes)
+    expect(result.partials.map(p => Math.round(p.frequencyHz))).toEqual([440])
+    // A streaming recorder's 0xFFFFFFFF is read to the end without a word, as before.
+    expect((await decodeAudio(writeWav([x], 48000, 'pcm16', { declaredDataBytes: 0xffffffff }))).warnings).toEqual([])
   })
 
   it('takes 0 and 0xFFFFFFFF data sizes for a streaming recorder, not a truncation', () => {

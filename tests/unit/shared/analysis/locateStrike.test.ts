@@ -40,3 +40,42 @@ describe('locateStrike', () => {
     expect(strike.endIndex - strike.startIndex).toBeGreaterThanOrEqual(Math.round(0.3 * sampleRate))
   }, 60_000)
 })
+
+describe('a second strike in the same file', () => {
+  const bar = [
+    { frequencyHz: 220.1, amplitudeDb: -6, decayDbPerS: 10, phaseRad: 0 },
+    { frequencyHz: 874.2, amplitudeDb: -18, decayDbPerS: 35, phaseRad: 1 },
+  ]
+  const twice = (secondAtS: number, secondGain: number) => {
+    const first = synthStrike(bar, { sampleRate, durationS: 3, onsetS: 0.1, noiseDb: -85, seed: 6 })
+    const second = synthStrike(bar, { sampleRate, durationS: 3, onsetS: secondAtS })
+    return first.map((v, i) => v + secondGain * second[i]!)
+  }
+
+  for (const [atS, gain] of [[1.6, 0.5], [2.5, 0.2]] as const) {
+    it(`ends the span before a blow at ${atS} s (${gain} of the first) and says so`, () => {
+      const { strike, warnings } = locateStrike(twice(atS, gain), sampleRate, settings)
+      // source: the synthesised second onset; the span ends 2 ms before it (1 ms blocks).
+      expect(strike.endIndex / sampleRate).toBeGreaterThan(atS - 0.0045)
+      expect(strike.endIndex / sampleRate).toBeLessThanOrEqual(atS)
+      expect(warnings).toEqual([`a second strike at ${atS.toFixed(2)} s: only the first, up to ${(strike.endIndex / sampleRate).toFixed(2)} s, was measured`])
+    }, 60_000)
+  }
+
+  it('measures a blow louder than what is left of the first from its own onset, with no cut', () => {
+    const { strike, warnings } = locateStrike(twice(1.1, 1), sampleRate, settings)
+    // source: the synthesised second onset at 1.1 s (the first has fallen 10 dB by then).
+    expect(strike.onsetIndex / sampleRate).toBeCloseTo(1.1, 3)
+    expect(warnings).toEqual([])
+  }, 60_000)
+
+  it('takes a deep 10 Hz tremolo or a 3 Hz beating pair for one strike', async () => {
+    const { synthRealisticStrike } = await import('../../../../shared/synthesis/synthRealisticStrike')
+    const tremolo = synthRealisticStrike([{ frequencyHz: 174.6, amplitudeDb: -8, decayDbPerS: 3, tremolo: { rateHz: 10, index: 0.9 } }], { sampleRate, durationS: 3, onsetS: 0.1, noiseDb: -85 })
+    const beating = synthStrike([{ frequencyHz: 523, amplitudeDb: -8, decayDbPerS: 4 }, { frequencyHz: 526, amplitudeDb: -8.5, decayDbPerS: 4 }], { sampleRate, durationS: 3, onsetS: 0.1, noiseDb: -85, seed: 3 })
+    for (const x of [tremolo, beating]) {
+      const { warnings } = locateStrike(x, sampleRate, settings)
+      expect(warnings.filter(w => w.includes('second strike'))).toEqual([])
+    }
+  }, 60_000)
+})

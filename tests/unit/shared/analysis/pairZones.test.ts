@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { chooseWindow, MAIN_LOBE_BINS } from '../../../../shared/analysis/index'
-import { dropHeldInPairZones, inPairZone } from '../../../../shared/analysis/pairZones'
+import { dropHeldInPairZones, heldBy, inPairZone, PAIR_HELD_WITHIN_DB } from '../../../../shared/analysis/pairZones'
 import { planBands } from '../../../../shared/analysis/planBands'
 
 describe('pair zones of the fast bands', () => {
@@ -28,11 +28,25 @@ describe('pair zones of the fast bands', () => {
 
   it('lets a fast band add a partial no slower band holds, never re-read a held one inside a zone', () => {
     const zones: [number, number][] = [[5600, 5800]]
-    const fast = [{ frequencyHz: 5683 }, { frequencyHz: 5750 }, { frequencyHz: 3000 }]
-    const held = [{ frequencyHz: 5751 }, { frequencyHz: 3000.5 }]
+    const fast = [{ frequencyHz: 5683, amplitudeDb: -30 }, { frequencyHz: 5750, amplitudeDb: -30 }, { frequencyHz: 3000, amplitudeDb: -30 }]
+    const held = [{ frequencyHz: 5751, amplitudeDb: -32 }, { frequencyHz: 3000.5, amplitudeDb: -30 }]
     // 5683: in a zone, nothing held near → added; 5750: in a zone, held → left to the slow band;
     // 3000: outside every zone → merged as before (mergeBands decides).
     expect(dropHeldInPairZones(fast, held, zones, 8).map(p => p.frequencyHz)).toEqual([5683, 3000])
     expect(dropHeldInPairZones(fast, held, [], 8)).toHaveLength(3)
+  })
+
+  it('a slower partial far weaker than the fast reading does not hold it (a room\'s comb resonances beside a xylophone\'s ×3)', () => {
+    // Readings of tests/support/recordingConditions.ts' xylophone C5 in a 1 s room, tail −15 dB:
+    // the 0.5 s window read two comb resonances at 1563 and 1579 Hz, −46 and −39 dB; the 8 ms
+    // window read the bar's ×3 at 1571.6 Hz, −14 dB.
+    const zones: [number, number][] = [[1540, 1600]]
+    const resonances = [{ frequencyHz: 1563.16, amplitudeDb: -46.1 }, { frequencyHz: 1578.84, amplitudeDb: -39.4 }]
+    const third = { frequencyHz: 1571.58, amplitudeDb: -14.3 }
+    expect(heldBy(resonances, third.frequencyHz, third.amplitudeDb, 64)).toBe(false)
+    expect(dropHeldInPairZones([third], resonances, zones, 64)).toEqual([third])
+    // Within PAIR_HELD_WITHIN_DB (an unresolved pair reads at most 6 dB over its stronger member) it is held.
+    expect(heldBy(resonances, third.frequencyHz, -39.4 + PAIR_HELD_WITHIN_DB, 64)).toBe(true)
+    expect(heldBy(resonances, third.frequencyHz, -39.4 + PAIR_HELD_WITHIN_DB + 0.1, 64)).toBe(false)
   })
 })

@@ -1,0 +1,197 @@
+// Strikes recorded the way workshops record them: every file format, rate and level a
+// recorder writes, silence or noise before the strike, a second blow, hum, a room, a hard
+// mallet, very low and very high notes. Each case is modal synthesis with known truth
+// (shared/synthesis), written to WAV bytes by a writer independent of the engine.
+import { execFileSync } from 'node:child_process'
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { synthRealisticStrike, type RealisticOptions, type RealisticPartial } from '../../shared/synthesis/synthRealisticStrike'
+import { writeWav, type WavFormat, type WavOptions } from './writeWav'
+
+export interface ConditionCase {
+  id: string
+  family: string
+  targetHz: number
+  ratios: number[]
+  /** The tuned partials the engine must report, Hz (the synthesis's own frequencies). */
+  truthHz: number[]
+  /** Their onset amplitudes, dB FS, as synthesised; null where the file changes them (scaled, clipped, a loud room). */
+  truthDb: number[] | null
+  /** Their decays, dB/s, as synthesised; null where the file changes them (clipped, a loud room's tail). */
+  truthDecayDbPerS: number[] | null
+  bytes: () => Uint8Array
+  /** A warning the result must carry. */
+  warning?: RegExp
+  /** The tremolo's rate, Hz, when the strike has one (its sidebands are no partials). */
+  tremoloHz?: number
+  /** Largest error of a found partial, cents (0.5 unless the file itself pulls a partial: a room's resonances). */
+  maxCents: number
+}
+
+interface Strike { family: string, targetHz: number, ratios: number[], partials: RealisticPartial[], options: RealisticOptions }
+
+const room = { t60S: 0.6, wetDb: -28 }
+// Tuning ratios: marimba and vibraphone 1 : 4 : 10, xylophone 1 : 3 (: 6) (source: Rossing, Science of
+// Percussion Instruments, 2000, ch. 3); glockenspiel as a free–free beam 1 : 2.76 : 5.40 (source:
+// Euler–Bernoulli beam, βL = 4.730, 7.853); chimes, free–free tube modes ∝ (2n + 1)², the strike note
+// an octave under mode 4, so modes 4, 5, 6 sit near 2 : 3 : 4 of it (source: Rossing 2000, ch. 7); timpani
+// (1,1) (2,1) (3,1) near 1 : 1.5 : 2 (source: Rossing 2000, ch. 6); tremolo 2–10 Hz (common practice).
+const trem = (rateHz: number) => ({ rateHz, index: 0.5 })
+export const STRIKES = {
+  marimbaA3: { family: 'marimba', targetHz: 220, ratios: [1, 4, 10], partials: [
+    { frequencyHz: 220.1, amplitudeDb: -6, decayDbPerS: 10 }, { frequencyHz: 874.2, amplitudeDb: -18, decayDbPerS: 35 }, { frequencyHz: 2183, amplitudeDb: -28, decayDbPerS: 90 },
+  ], options: { sampleRate: 48000, durationS: 2.5, onsetS: 0.1, seed: 41, mallet: { levelDb: -18, durationS: 0.005 }, room, noiseDb: -80 } },
+  marimbaC2: { family: 'marimba', targetHz: 65.41, ratios: [1, 4, 10], partials: [
+    { frequencyHz: 65.43, amplitudeDb: -6, decayDbPerS: 6 }, { frequencyHz: 261.2, amplitudeDb: -16, decayDbPerS: 20 }, { frequencyHz: 652.9, amplitudeDb: -26, decayDbPerS: 45 },
+  ], options: { sampleRate: 48000, durationS: 3, onsetS: 0.1, seed: 42, mallet: { levelDb: -22, durationS: 0.008 }, room, noiseDb: -80 } },
+  vibraphoneF3: { family: 'vibraphone', targetHz: 174.61, ratios: [1, 4, 10], partials: [
+    { frequencyHz: 174.65, amplitudeDb: -8, decayDbPerS: 3, tremolo: trem(8) }, { frequencyHz: 698.9, amplitudeDb: -20, decayDbPerS: 12, tremolo: trem(8) }, { frequencyHz: 1746.9, amplitudeDb: -30, decayDbPerS: 40, tremolo: trem(8) },
+  ], options: { sampleRate: 48000, durationS: 3, onsetS: 0.1, seed: 43, mallet: { levelDb: -20, durationS: 0.004 }, room, noiseDb: -80 } },
+  xylophoneC5: { family: 'xylophone', targetHz: 523.25, ratios: [1, 3, 6], partials: [
+    { frequencyHz: 523.4, amplitudeDb: -10, decayDbPerS: 40 }, { frequencyHz: 1572.1, amplitudeDb: -14, decayDbPerS: 200 }, { frequencyHz: 3180.5, amplitudeDb: -22, decayDbPerS: 600 },
+  ], options: { sampleRate: 48000, durationS: 1.5, onsetS: 0.1, seed: 44, mallet: { levelDb: -12, durationS: 0.002 }, noiseDb: -80 } },
+  xylophoneC8: { family: 'xylophone', targetHz: 4186.01, ratios: [1, 3], partials: [
+    { frequencyHz: 4186.9, amplitudeDb: -10, decayDbPerS: 80 }, { frequencyHz: 12571, amplitudeDb: -18, decayDbPerS: 300 },
+  ], options: { sampleRate: 44100, durationS: 1, onsetS: 0.1, seed: 45, mallet: { levelDb: -14, durationS: 0.001 }, noiseDb: -80 } },
+  glockenspielC8: { family: 'glockenspiel', targetHz: 4186.01, ratios: [1, 2.76], partials: [
+    { frequencyHz: 4187.2, amplitudeDb: -10, decayDbPerS: 15 }, { frequencyHz: 11548, amplitudeDb: -22, decayDbPerS: 90 },
+  ], options: { sampleRate: 44100, durationS: 2, onsetS: 0.1, seed: 46, mallet: { levelDb: -16, durationS: 0.001 }, noiseDb: -82 } },
+  chimesC5: { family: 'chimes', targetHz: 523.25, ratios: [2, 3, 4], partials: [
+    { frequencyHz: 323.1, amplitudeDb: -30, decayDbPerS: 3 }, { frequencyHz: 633.2, amplitudeDb: -22, decayDbPerS: 4 },
+    { frequencyHz: 1046.7, amplitudeDb: -10, decayDbPerS: 5 }, { frequencyHz: 1563.6, amplitudeDb: -12, decayDbPerS: 7 }, { frequencyHz: 2184.0, amplitudeDb: -16, decayDbPerS: 9 },
+  ], options: { sampleRate: 48000, durationS: 4, onsetS: 0.1, seed: 47, mallet: { levelDb: -14, durationS: 0.001 }, room: { t60S: 1.2, wetDb: -24 }, noiseDb: -80 } },
+  timpaniD3: { family: 'timpani', targetHz: 146.83, ratios: [1, 1.5, 2], partials: [
+    { frequencyHz: 146.9, amplitudeDb: -8, decayDbPerS: 10 }, { frequencyHz: 220.6, amplitudeDb: -12, decayDbPerS: 12 }, { frequencyHz: 293.2, amplitudeDb: -16, decayDbPerS: 14 }, { frequencyHz: 366.0, amplitudeDb: -24, decayDbPerS: 18 },
+  ], options: { sampleRate: 48000, durationS: 3, onsetS: 0.1, seed: 48, mallet: { levelDb: -16, durationS: 0.01 }, room, noiseDb: -78 } },
+} satisfies Record<string, Strike>
+
+type StrikeName = keyof typeof STRIKES
+
+/** The tuned partials: those the template's ratios name (nearest mode to each ratio × target). */
+function tuned(s: Strike): RealisticPartial[] {
+  return s.ratios.map(r => s.partials.reduce((a, b) => (Math.abs(Math.log(b.frequencyHz / (r * s.targetHz))) < Math.abs(Math.log(a.frequencyHz / (r * s.targetHz))) ? b : a)))
+}
+
+const render = (s: Strike, options: Partial<RealisticOptions> = {}, partials = s.partials) =>
+  synthRealisticStrike(partials, { ...s.options, ...options })
+
+function scaledToPeakDb(x: Float64Array, peakDb: number): Float64Array {
+  let peak = 0
+  for (const v of x) peak = Math.max(peak, Math.abs(v))
+  const g = 10 ** (peakDb / 20) / peak
+  return x.map(v => v * g)
+}
+
+/** What of the synthesised truth the file keeps: all of it, the decays only (a scaled file), or neither. */
+type Kept = 'all' | 'decay' | 'none'
+
+function makeCase(id: string, name: StrikeName, bytes: () => Uint8Array, warning?: RegExp, kept: Kept = 'all', maxCents = 0.5): ConditionCase {
+  const s: Strike = STRIKES[name]
+  const t = tuned(s)
+  return {
+    id, family: s.family, targetHz: s.targetHz, ratios: s.ratios, bytes, warning, maxCents,
+    tremoloHz: s.partials[0]!.tremolo?.rateHz,
+    truthHz: t.map(p => p.frequencyHz),
+    truthDb: kept === 'all' ? t.map(p => p.amplitudeDb) : null,
+    truthDecayDbPerS: kept === 'none' ? null : t.map(p => p.decayDbPerS),
+  }
+}
+
+const wav = (x: Float64Array, rate: number, format: WavFormat = 'pcm16', options: WavOptions = {}) => writeWav([x], rate, format, options)
+
+/** The same audio as FLAC, encoded by sox (installed by scripts/test.sh with the real fixtures' tools). */
+function flacOf(wavBytes: Uint8Array): Uint8Array {
+  const dir = mkdtempSync(join(tmpdir(), 'tw-flac-'))
+  try {
+    writeFileSync(join(dir, 'in.wav'), wavBytes)
+    execFileSync('sox', [join(dir, 'in.wav'), join(dir, 'out.flac')], { stdio: 'ignore' })
+    return new Uint8Array(readFileSync(join(dir, 'out.flac')))
+  }
+  finally {
+    rmSync(dir, { recursive: true, force: true })
+  }
+}
+
+/** A stereo pair: the strike on one channel, `other(strike)` on the other (the first when it is silent). */
+function stereo(x: Float64Array, other: (x: Float64Array) => Float64Array): Uint8Array {
+  const y = other(x)
+  return writeWav(y.some(v => v !== 0) ? [x, y] : [y, x], 48000, 'pcm24')
+}
+
+function formatCases(): ConditionCase[] {
+  const s = STRIKES.marimbaA3
+  const rate = s.options.sampleRate
+  const formats: WavFormat[] = ['pcm8', 'pcm16', 'pcm24', 'pcm32', 'float32', 'float64']
+  return [
+    ...formats.map(f => makeCase(`format ${f}`, 'marimbaA3', () => wav(render(s), rate, f), f === 'pcm8' ? /^8-bit audio: partials more than 40 dB under the strongest are not reported/ : undefined)),
+    makeCase('format extensible pcm24', 'marimbaA3', () => wav(render(s), rate, 'pcm24', { extensible: true })),
+    makeCase('format extensible float32', 'marimbaA3', () => wav(render(s), rate, 'float32', { extensible: true })),
+    makeCase('format FLAC 24-bit, 96 kHz', 'marimbaA3', () => flacOf(wav(render(s, { sampleRate: 96000 }), 96000, 'pcm24'))),
+    makeCase('stereo channels out of phase', 'marimbaA3', () => stereo(render(s), x => x.map(v => -v))),
+    makeCase('stereo one channel silent', 'marimbaA3', () => stereo(render(s), x => new Float64Array(x.length))),
+    makeCase('header declares 10 s, holds 0.5 s', 'xylophoneC5', () => {
+      const x = render(STRIKES.xylophoneC5, { durationS: 0.5 })
+      return wav(x, 48000, 'pcm16', { declaredDataBytes: 10 * 48000 * 2 })
+    }, /header declares 10\.00 s .* holds 0\.50 s/),
+    makeCase('header states no length (data size 0)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5), 48000, 'pcm16', { declaredDataBytes: 0 }), /header states no length/),
+  ]
+}
+
+function rateCases(): ConditionCase[] {
+  return [22050, 44100, 48000, 96000, 192000].map(rate => makeCase(`rate ${rate / 1000} kHz`, 'xylophoneC5', () => {
+    const s = STRIKES.xylophoneC5
+    return wav(render(s, { sampleRate: rate }), rate, 'pcm24')
+  }))
+}
+
+function timingCases(): ConditionCase[] {
+  const s = STRIKES.vibraphoneF3
+  const r = s.options.sampleRate
+  return [
+    makeCase('4 s of silence before the strike', 'vibraphoneF3', () => wav(render(s, { onsetS: 4, durationS: 7, noiseDb: undefined }), r)),
+    makeCase('2 s of noise before the strike', 'vibraphoneF3', () => wav(render(s, { onsetS: 2, durationS: 5, noiseDb: -60 }), r)),
+    makeCase('a second strike 1.5 s later', 'marimbaA3', () => {
+      const m = STRIKES.marimbaA3
+      const first = render(m, { durationS: 3 })
+      const second = render(m, { durationS: 3, onsetS: 1.6, seed: 9, noiseDb: undefined })
+      return wav(first.map((v, i) => v + 0.5 * second[i]!), m.options.sampleRate)
+    }),
+    makeCase('a very short file (0.3 s)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5, { durationS: 0.3, onsetS: 0.02 }), 48000)),
+  ]
+}
+
+function levelCases(): ConditionCase[] {
+  const v = STRIKES.vibraphoneF3
+  const m = STRIKES.marimbaA3
+  const r = 48000
+  return [
+    makeCase('very quiet (−50 dBFS peak, 16-bit)', 'vibraphoneF3', () => wav(scaledToPeakDb(render(v, { noiseDb: undefined }), -50), r), undefined, 'decay'),
+    makeCase('very quiet (−50 dBFS peak, 24-bit)', 'marimbaA3', () => wav(scaledToPeakDb(render(m, { noiseDb: undefined }), -50), r, 'pcm24'), undefined, 'decay'),
+    makeCase('hard-clipped at 0 dBFS (+6 dB over)', 'marimbaA3', () => wav(scaledToPeakDb(render(m), 6), r), /clipped samples/, 'none'),
+    makeCase('hard-clipped at 0 dBFS (+6 dB over)', 'vibraphoneF3', () => wav(scaledToPeakDb(render(v), 6), r), /clipped samples/, 'none'),
+    makeCase('DC offset of 0.2 full scale', 'marimbaA3', () => wav(render(m).map(x => x + 0.2), r), /DC offset/),
+    makeCase('mains hum 50 Hz + harmonics at −40 dBFS', 'marimbaC2', () => wav(render(STRIKES.marimbaC2, { hum: { frequencyHz: 50, levelDb: -40 } }), r)),
+    makeCase('mains hum 60 Hz + harmonics at −40 dBFS', 'vibraphoneF3', () => wav(render(v, { hum: { frequencyHz: 60, levelDb: -40 } }), r)),
+    makeCase('a live room (T60 1.5 s, tail −12 dB)', 'marimbaA3', () => wav(render(m, { room: { t60S: 1.5, wetDb: -12 } }), r), undefined, 'none'),
+    // A room's comb resonances beside a short-lived ×3 pull its reading by up to 1 ¢ (measured: 0.57 ¢).
+    makeCase('xylophone C5 in a live room (T60 1 s, tail −15 dB)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5, { room: { t60S: 1, wetDb: -15 }, durationS: 2.5 }), r), undefined, 'none', 1),
+    makeCase('a loud mallet burst (−6 dBFS, 15 ms)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5, { mallet: { levelDb: -6, durationS: 0.015 } }), r)),
+    makeCase('background noise at −50 dBFS RMS', 'chimesC5', () => wav(render(STRIKES.chimesC5, { noiseDb: -50 }), r)),
+  ]
+}
+
+function familyCases(): ConditionCase[] {
+  const v = STRIKES.vibraphoneF3
+  return [
+    ...(['marimbaC2', 'xylophoneC8', 'glockenspielC8', 'chimesC5', 'timpaniD3'] as const).map(name =>
+      makeCase(`${STRIKES[name].family} ${name.slice(-2)}`, name, () => wav(render(STRIKES[name]), STRIKES[name].options.sampleRate, 'pcm24'))),
+    ...[2, 10].map(rate => ({
+      ...makeCase(`vibraphone F3, tremolo ${rate} Hz`, 'vibraphoneF3', () => wav(render(v, {}, v.partials.map(p => ({ ...p, tremolo: trem(rate) }))), 48000, 'pcm24')),
+      tremoloHz: rate,
+    })),
+    makeCase('xylophone C5 hard mallet (T60 0.3 s and 0.1 s overtones)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5), 48000, 'pcm24')),
+  ]
+}
+
+export const CONDITION_CASES: ConditionCase[] = [...formatCases(), ...rateCases(), ...timingCases(), ...levelCases(), ...familyCases()]
