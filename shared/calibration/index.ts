@@ -2,3 +2,5 @@ export { measureClockOffset, MIN_REFERENCE_TONE_S, type ClockOffset, type ClockO
 export { correctFrequencyHz } from './correctFrequencyHz'
 export { calibrateRecording } from './calibrateRecording'
 export { correctPartialsHz } from './correctPartialsHz'
+export { calibrationExpiry, type CalibrationExpiry } from './calibrationExpiry'
+export { calibrationStatusWords } from './calibrationStatusWords'
