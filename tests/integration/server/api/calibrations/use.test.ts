@@ -66,7 +66,7 @@ describe('calibration-id on POST /api/analyze', () => {
     expect(foreign.body.message).toBe('No such calibration in this workshop.')
     // Checked before the engine: the same refusal for bytes that are not audio at all.
     expect((await api('/api/analyze', { method: 'POST', token: theirs.token, body: form(new TextEncoder().encode('no sound'), { 'calibration-id': id }) })).status).toBe(404)
-    for (const bad of ['12', 'not-a-uuid', `${id}x`, "'; drop table calibrations; --"]) {
+    for (const bad of ['12', 'not-a-uuid', `${id}x`, '\'; drop table calibrations; --']) {
       const reply = await api('/api/analyze', { method: 'POST', token: mine.token, body: form(strikeRead(440, 0), { ...A4, 'calibration-id': bad }) })
       expect(reply.status, bad).toBe(400)
       expect(reply.body.message).toMatch(/That is not a valid calibration id\.$/)
