@@ -137,4 +137,25 @@ describe('calibration-id on POST /api/pieces/:id/strikes', () => {
     expect(reply.body.calibrationExpired).toBe(true)
     expect(Math.abs(centsBetween(reply.body.fundamentalHz, 440))).toBeLessThan(0.05)
   })
+
+  it('re-measures a calibrated strike under the same calibration', async () => {
+    const owner = await newWorkshop('Re-measured calibration')
+    const set = await createSet(owner.token, { fromNote: 'A4', toNote: 'A4' })
+    const piece = set.pieces[0] as { id: string }
+    const id = await storedCalibration(owner.workshopId, 300)
+    const strike = await postStrike(owner.token, piece.id, strikeRead(440, 300), { 'calibration-id': id })
+    expect(strike.status).toBe(201)
+    const run = await api(`/api/pieces/${piece.id}/reanalyze`, { method: 'POST', token: owner.token, body: {} })
+    expect(run.status).toBe(202)
+    let status = run.body.status as string
+    for (let i = 0; i < 180 && status !== 'done' && status !== 'failed'; i++) {
+      await new Promise(r => setTimeout(r, 500))
+      status = (await api(run.body.statusUrl, { token: owner.token })).body.status
+    }
+    expect(status).toBe('done')
+    const rows = await sql`select reason, analysis -> 'parameters' ->> 'clockOffsetPpm' as offset, (analysis ->> 'fundamentalHz')::float8 as hz from strike_analyses where strike_id = ${strike.body.id} order by created_at`
+    expect(rows.map(r => r.reason)).toEqual(['recorded', 'reanalyze'])
+    expect(rows.map(r => Number(r.offset))).toEqual([300, 300])
+    expect(Math.abs(centsBetween(rows[1]!.hz, 440))).toBeLessThan(0.05)
+  })
 })
