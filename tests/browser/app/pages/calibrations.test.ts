@@ -2,7 +2,7 @@ import postgres from 'postgres'
 import { afterAll, describe, expect, it } from 'vitest'
 import { encodeWav } from '../../../../shared/analysis/encodeWav'
 import { synthStrike } from '../../../../shared/synthesis/synthStrike'
-import { api, newWorkshop } from '../../../integration/support/http'
+import { api, memberWithRole, newWorkshop } from '../../../integration/support/http'
 import { createSet, strikeWav } from '../../../integration/support/records'
 import { BASE_URL, screenshot, signInAs, useBrowser } from '../../support/browser'
 
@@ -47,12 +47,14 @@ describe('input calibrations', () => {
 
   it('the Bench shows the chosen input\'s calibration, warns when it has none or it has expired, and sends its id', async () => {
     const owner = await newWorkshop('Lowmarsh Bars')
+    // A benchmaker: the calibrations screen under Settings is theirs too.
+    const bench = await memberWithRole(owner.token, 'benchmaker')
     await sql`insert into calibrations (workshop_id, device, reference_hz, reference_uncertainty_ppm, measured_hz, offset_ppm, uncertainty_ppm, created_at)
       values (${owner.workshopId}, 'Desk interface', 1000, 0.4, 1000.0413, 41.3, 0.42, now() - interval '2 days'),
              (${owner.workshopId}, 'Old recorder', 1000, 0.4, 999.9826, -17.4, 0.41, now() - interval '93 days')`
     const set = await createSet(owner.token, { fromNote: 'A4', toNote: 'A4' })
     const page = await newPage()
-    await signInAs(page, owner.email, owner.password)
+    await signInAs(page, bench.email, bench.password)
     await page.goto(`${BASE_URL}/bench?piece=${set.pieces[0].id}`)
     const line = page.getByTestId('bench-calibration-line')
     await expect.poll(() => line.innerText()).toMatch(/^No calibration for this input/)
@@ -69,7 +71,9 @@ describe('input calibrations', () => {
     await page.reload()
     await expect.poll(() => page.getByTestId('bench-calibration-line').innerText()).toMatch(/\+41\.3 ± 0\.4 ppm/)
     await page.getByTestId('bench-calibration-device').selectOption('Old recorder')
-    await expect.poll(() => page.getByTestId('bench-calibration-line').innerText()).toBe('Calibration expired 3 days ago — record a reference tone. Calibrations')
+    await expect.poll(() => page.getByTestId('bench-calibration-line').innerText()).toBe('Calibration expired 3 days ago — record a reference tone.')
     expect(await page.getByTestId('bench-calibration-line').getAttribute('data-meaning')).toBe('warning')
+    await page.getByTestId('bench-calibrations-link').click()
+    await page.getByRole('heading', { level: 1, name: 'Input calibrations' }).waitFor()
   })
 })
