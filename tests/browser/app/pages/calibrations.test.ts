@@ -76,4 +76,17 @@ describe('input calibrations', () => {
     await page.getByTestId('bench-calibrations-link').click()
     await page.getByRole('heading', { level: 1, name: 'Input calibrations' }).waitFor()
   })
+
+  it('the demo workshop\'s inputs show their drift, and the expired one says so', async () => {
+    const page = await newPage()
+    await signInAs(page, 'bench@tonewright.test')
+    await page.goto(`${BASE_URL}/settings/calibrations`)
+    const bench = page.getByTestId('calibration-device').filter({ hasText: 'Bench 1 audio interface, input 1' })
+    // The seed made the tones at +42.2, +41.9, +41.6 and +41.3 ppm over 175 days (demo-calibrations.ts).
+    await expect.poll(() => bench.getByTestId('calibration-drift').locator('figcaption').innerText()).toMatch(/From \+42\.2 to \+41\.3 ppm over 175 days/)
+    const field = page.getByTestId('calibration-device').filter({ hasText: 'Field recorder for site visits' })
+    expect(await field.getByTestId('calibration-status').innerText()).toMatch(/expired 14 days ago/)
+    expect(await field.getByTestId('calibration-status').getAttribute('data-meaning')).toBe('warning')
+    await screenshot(page, 'calibrations-demo')
+  })
 })
