@@ -1,6 +1,6 @@
 // Command line: measure one strike.
 //   npm run analyze -- FILE [--note C4] [--target-hz 261.63] [--reference-hz 442]
-//     [--ratios 1,4,10] [--tolerances 2,5,8] [--temperature-c 24] [--json]
+//     [--ratios 1,4,10] [--tolerances 2,5,8] [--temperature-c 24] [--calibration-ppm 41.3] [--json]
 // Prints a table (units on every number) or, with --json, the analysis JSON.
 // Bad input: one plain sentence on stderr and a non-zero exit.
 import { readFile, stat } from 'node:fs/promises'
@@ -21,11 +21,12 @@ const FLAGS: Record<string, string> = {
   '--temperature-coefficient': 'temperatureCoefficientCentsPerC',
   '--attack-skip-s': 'attackSkipS',
   '--window-s': 'windowS',
+  '--calibration-ppm': 'clockOffsetPpm',
 }
 
 const USAGE
   = 'Usage: npm run analyze -- FILE [--note C4] [--target-hz 261.63] [--reference-hz 442] '
-    + '[--ratios 1,4,10] [--tolerances 2,5,8] [--temperature-c 24] [--json]'
+    + '[--ratios 1,4,10] [--tolerances 2,5,8] [--temperature-c 24] [--calibration-ppm 41.3] [--json]'
 
 class UsageError extends Error {}
 

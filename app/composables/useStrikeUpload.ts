@@ -1,4 +1,5 @@
 import type { AnalysisResult } from '#shared/analysis/types'
+import { useInputCalibrationStore } from '~/stores/inputCalibration'
 
 /** The stored strike as `POST /api/pieces/:id/strikes` answers it. */
 export interface RecordedStrike {
@@ -24,6 +25,7 @@ export class UploadError extends Error {
  */
 export function useStrikeUpload() {
   const { token } = useAuth()
+  const calibration = useInputCalibrationStore()
   return function uploadStrike(
     pieceId: string,
     file: Blob,
@@ -35,6 +37,8 @@ export function useStrikeUpload() {
     form.append('file', file, fileName)
     if (conditions.temperatureC !== null) form.append('temperatureC', String(conditions.temperatureC))
     if (conditions.humidityPct !== null) form.append('humidityPct', String(conditions.humidityPct))
+    // The chosen input's calibration: the server corrects the frequencies and keeps its id with the strike.
+    if (calibration.calibrationId) form.append('calibration-id', calibration.calibrationId)
     return new Promise((resolve, reject) => {
       const xhr = new XMLHttpRequest()
       xhr.open('POST', `/api/pieces/${encodeURIComponent(pieceId)}/strikes`)

@@ -1,6 +1,6 @@
-/** POST /api/analyze: measure one uploaded strike (multipart `file` plus the CLI's options as fields); members who may record strikes. */
+/** POST /api/analyze: measure one uploaded strike (multipart `file`, the CLI's options as fields, optional `calibration-id`); members who may record strikes. */
 export default defineEventHandler(async (event) => {
-  await requireMember(event, 'bench:strike')
+  const member = await requireMember(event, 'bench:strike')
   const { file, fields } = await readUpload(event)
-  return sendJsonText(event, await analyzeUpload(file.bytes, fields))
+  return sendJsonText(event, await analyzeUpload(useDatabase(), member.workshopId, file.bytes, fields))
 })

@@ -3,6 +3,8 @@ import { AnalysisError } from '../../shared/analysis/AnalysisError'
 import { parseAnalyzeOptions } from '../../shared/analysis/parseAnalyzeOptions'
 import type { AnalysisResult, AnalyzeOptions } from '../../shared/analysis/types'
 import { AnalysisBusyError, useAnalysisPool, type MeasuredStrike } from './analysis-pool'
+import type { Executor } from '../database/client'
+import { appliedCalibration, calibrationInUse } from './calibration-views'
 import { fail } from './http-errors'
 
 /**
@@ -33,11 +35,17 @@ export function throwPoolError(error: unknown): never {
   throw error
 }
 
-/** The analyze route: options arrive as form fields; answers the result's JSON text. */
-export async function analyzeUpload(bytes: Uint8Array, fields: Record<string, string>): Promise<string> {
+/**
+ * The analyze route: options arrive as form fields, and `calibration-id` names the input
+ * calibration to correct the frequencies with (checked against the workshop before any
+ * measuring). Answers the result's JSON text, with `calibration` and `calibrationExpired`
+ * in front when one was applied.
+ */
+export async function analyzeUpload(db: Executor, workshopId: string, bytes: Uint8Array, fields: Record<string, string>): Promise<string> {
   let options: AnalyzeOptions
   // The CLI's spelling (target-hz) and the JSON spelling (targetHz) both work.
   const camel = Object.fromEntries(Object.entries(fields).map(([k, v]) => [k.replace(/-([a-z])/g, (_, c: string) => c.toUpperCase()), v]))
+  if (camel.clockOffsetPpm !== undefined) fail(400, 'The clock offset comes from a stored calibration: send calibration-id instead.')
   try {
     options = parseAnalyzeOptions(camel)
   }
@@ -45,5 +53,9 @@ export async function analyzeUpload(bytes: Uint8Array, fields: Record<string, st
     if (error instanceof AnalysisError) fail(error.status, error.message)
     throw error
   }
-  return (await measureStrike(bytes, options)).json
+  const calibration = await calibrationInUse(db, workshopId, fields)
+  if (!calibration) return (await measureStrike(bytes, options)).json
+  const { json } = await measureStrike(bytes, { ...options, clockOffsetPpm: calibration.offsetPpm })
+  // The worker's text is one JSON object: the two fields go in front without parsing it again.
+  return `{"calibration":${JSON.stringify(appliedCalibration(calibration))},"calibrationExpired":${calibration.expired},${json.slice(1)}`
 }

@@ -1,6 +1,6 @@
 import { setImmediate as nextTurn } from 'node:timers/promises'
 import { and, asc, eq, inArray, ne, sql } from 'drizzle-orm'
-import { pieces, reanalysisRuns, sets, strikeAnalyses, strikes, templateVersions, type ReanalysisRun } from '../database/schema'
+import { calibrations, pieces, reanalysisRuns, sets, strikeAnalyses, strikes, templateVersions, type ReanalysisRun } from '../database/schema'
 import type { Database, Executor } from '../database/client'
 import type { AnalysisResult } from '../../shared/analysis/types'
 import { ENGINE_VERSION } from '../../shared/analysis/version'
@@ -120,14 +120,16 @@ export async function executeReanalysis(db: Database, storage: BlobStorage, runI
     .where(eq(reanalysisRuns.id, runId))
   for (const pieceId of pieceIds) {
     if (done.has(pieceId)) continue
-    const pieceRows = await db.select({ strike: strikes, piece: pieces, set: sets, template: templateVersions }).from(strikes)
+    const pieceRows = await db.select({ strike: strikes, piece: pieces, set: sets, template: templateVersions, clockOffsetPpm: calibrations.offsetPpm }).from(strikes)
       .innerJoin(pieces, eq(pieces.id, strikes.pieceId))
       .innerJoin(sets, eq(sets.id, pieces.setId))
       .innerJoin(templateVersions, eq(templateVersions.id, sql`coalesce(${strikes.templateVersionId}, ${pieces.templateVersionId})`))
+      // A strike measured under an input calibration is re-measured under the same one.
+      .leftJoin(calibrations, eq(calibrations.id, strikes.calibrationId))
       .where(and(eq(strikes.workshopId, run.workshopId), eq(strikes.pieceId, pieceId)))
       .orderBy(asc(strikes.createdAt))
     const measured: Measured[] = []
-    for (const { strike, piece, set, template } of pieceRows) {
+    for (const { strike, piece, set, template, clockOffsetPpm } of pieceRows) {
       const bytes = await storage.get(strike.audioKey)
       if (!bytes) {
         measured.push({ strike, analysis: null, error: 'The recording of this strike is missing from storage.' })
@@ -137,6 +139,7 @@ export async function executeReanalysis(db: Database, storage: BlobStorage, runI
         // A full pool is busy with strikes people wait for: this run waits its turn rather than failing the strike.
         const analysis = await measureWhenFree(() => measure(bytes, {
           note: piece.note, targetHz: piece.targetHz, referenceHz: set.referenceHz, temperatureC: strike.temperatureC ?? undefined,
+          clockOffsetPpm: clockOffsetPpm ?? undefined,
           template: {
             partials: template.partials, searchWindowCents: template.searchWindowCents,
             referenceTemperatureC: template.referenceTemperatureC, temperatureCoefficientCentsPerC: template.temperatureCoefficientCentsPerC,

@@ -7,6 +7,7 @@ import { assigneeAfter, assigneeProblem, isStrikeable, STAGE_LABELS, stageAfterS
 import type { Member } from './auth'
 import { measureStrike } from './analysis'
 import { audit } from './audit'
+import { appliedCalibration, calibrationInUse } from './calibration-views'
 import { fail } from './http-errors'
 import type { UploadedFile } from './multipart'
 import type { BlobStorage } from './storage'
@@ -49,7 +50,9 @@ const BUSY_CODES = new Set(['55P03', '40001'])
  * aborted transaction leaves at most a pending object, which the sweep
  * (strike-uploads.ts) removes. Under the piece's lock the row is read again and only
  * the columns a strike owns are written: a change made while the engine ran (stage,
- * assignee) is kept, never overwritten from the first read.
+ * assignee) is kept, never overwritten from the first read. A `calibration-id` field names
+ * the input calibration the frequencies are corrected with (404 unless the workshop's,
+ * before the engine runs); the strike keeps its id.
  */
 export async function recordStrike(
   db: Database,
@@ -58,6 +61,7 @@ export async function recordStrike(
   pieceId: string,
   file: UploadedFile,
   conditions: { temperatureC?: number, humidityPct?: number },
+  fields: Record<string, string> = {},
 ) {
   const [row] = await db.select({ piece: pieces, set: sets, template: templateVersions }).from(pieces)
     .innerJoin(sets, eq(sets.id, pieces.setId))
@@ -68,12 +72,14 @@ export async function recordStrike(
   const { piece, set, template } = row
   checkStrikeable(piece.stage)
   checkAssignee(member, piece.assigneeId)
+  const calibration = await calibrationInUse(db, member.workshopId, fields)
 
   const { result: analysis, json: analysisJson } = await measureStrike(file.bytes, {
     note: piece.note,
     targetHz: piece.targetHz,
     referenceHz: set.referenceHz,
     temperatureC: conditions.temperatureC,
+    clockOffsetPpm: calibration?.offsetPpm,
     template: {
       partials: template.partials,
       searchWindowCents: template.searchWindowCents,
@@ -107,7 +113,7 @@ export async function recordStrike(
         temperatureC: conditions.temperatureC ?? null, humidityPct: conditions.humidityPct ?? null,
         audioKey, audioBytes: file.bytes.byteLength, audioType: file.type || 'application/octet-stream', audioName: file.filename.slice(0, 200),
         engineVersion: analysis.engineVersion, analysis: stored, templateVersionId: template.id,
-        fundamentalHz: analysis.fundamentalHz, worstCents: worst, verdict,
+        fundamentalHz: analysis.fundamentalHz, worstCents: worst, verdict, calibrationId: calibration?.id ?? null,
       }).returning(STRIKE_COLUMNS).prepare('strike_insert').execute()
       // The first entry of the strike's result history.
       await tx.insert(strikeAnalyses).values({
@@ -124,7 +130,7 @@ export async function recordStrike(
       if (stage !== current.stage) {
         await audit(tx, { workshopId: member.workshopId, actorId: member.userId, action: 'piece.stage', subjectType: 'piece', subjectId: pieceId, fromState: current.stage, toState: stage, reason: 'struck' })
       }
-      return { ...strike!, analysis }
+      return { ...strike!, analysis, calibration: calibration && appliedCalibration(calibration), calibrationExpired: calibration?.expired ?? false }
     })
   }
   catch (error) {

@@ -2,6 +2,7 @@ import { addLongLookPartials } from './addLongLookPartials'
 import { addShortPartials } from './addShortPartials'
 import { applyTemplate } from './applyTemplate'
 import { assembleResult } from './assembleResult'
+import { correctPartialsHz } from '../calibration/correctPartialsHz'
 import { crossCheckPartials } from './crossCheckPartials'
 import { ENGINE_SETTINGS as S } from './engineSettings'
 import { expectedPartials } from './expectedPartials'
@@ -42,7 +43,8 @@ export function analyzeChannels(
   const checked = crossCheckPartials(mono, sampleRate, fft.partials, strike, level)
   const withLong = addLongLookPartials(mono, sampleRate, checked.partials, strike, plan, level)
   const withShort = addShortPartials(mono, sampleRate, withLong.partials, expected, strike, level)
-  const partials = withShort.partials
+  // The clock correction comes before matching, so cents and verdicts are on the reference's scale.
+  const partials = opts.clockOffsetPpm === undefined ? withShort.partials : correctPartialsHz(withShort.partials, opts.clockOffsetPpm)
   const warnings = [
     ...prepared.warnings,
     ...located.warnings,
@@ -56,9 +58,10 @@ export function analyzeChannels(
       : []),
     ...(partials.length === 0 ? ['no partials found above the noise floor'] : []),
   ]
-  const result = assembleResult(partials, warnings, {
+  const assembled = assembleResult(partials, warnings, {
     sampleRate, channels: channels.length, samples: mono.length, strike, plan, measured: fft.measured, attackSkipS, dynamicRangeDb: fft.dynamicRangeDb,
   })
+  const result = opts.clockOffsetPpm === undefined ? assembled : { ...assembled, parameters: { ...assembled.parameters, clockOffsetPpm: opts.clockOffsetPpm } }
   const { target, template } = expected
   return roundResult(target && template
     ? applyTemplate(result, partials, target, template, opts.temperatureC ?? null)

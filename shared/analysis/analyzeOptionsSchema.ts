@@ -40,6 +40,7 @@ export const AnalyzeOptionsObjectSchema = z.object({
   template: RatioTemplateSchema.optional(),
   attackSkipS: finite('The attack skip').min(0, 'The attack skip must be between 0 and 0.5 s.').max(0.5, 'The attack skip must be between 0 and 0.5 s.').optional(),
   windowS: finite('The window length').min(0.01, 'The window length must be between 0.01 and 2 s.').max(2, 'The window length must be between 0.01 and 2 s.').optional(),
+  clockOffsetPpm: finite('The clock offset').min(-10000, 'The clock offset must be between −10 000 and 10 000 ppm.').max(10000, 'The clock offset must be between −10 000 and 10 000 ppm.').optional(),
 })
 
 /** Options of one analysis, validated; every message is one plain sentence. */

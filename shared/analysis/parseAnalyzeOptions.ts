@@ -12,6 +12,7 @@ const NUMBER_FIELDS = [
   'temperatureC',
   'attackSkipS',
   'windowS',
+  'clockOffsetPpm',
 ] as const
 
 const FIELD_NAMES: Record<string, string> = {
@@ -23,6 +24,7 @@ const FIELD_NAMES: Record<string, string> = {
   temperatureC: 'The bench temperature',
   attackSkipS: 'The attack skip',
   windowS: 'The window length',
+  clockOffsetPpm: 'The clock offset',
   ratios: 'Every ratio',
   tolerances: 'Every tolerance',
 }

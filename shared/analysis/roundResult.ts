@@ -26,6 +26,7 @@ export function roundResult(result: AnalysisResult): AnalysisResult {
     partials: result.partials.map(p => ({
       ...p,
       frequencyHz: r(p.frequencyHz, 4),
+      ...(p.rawFrequencyHz === undefined ? {} : { rawFrequencyHz: r(p.rawFrequencyHz, 4) }),
       amplitudeDb: r(p.amplitudeDb, 2),
       decayDbPerS: r(p.decayDbPerS, 3),
       t60S: r(p.t60S, 3),

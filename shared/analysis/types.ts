@@ -48,6 +48,8 @@ export interface AnalyzeOptions {
   attackSkipS?: number
   /** Force the analysis window length in s instead of deriving it. */
   windowS?: number
+  /** Clock offset of the input that recorded the strike, ppm (positive: reads high); frequencies are corrected for it. */
+  clockOffsetPpm?: number
 }
 
 /** One measured partial (a sinusoidal component of the strike); fields documented in its schema. */

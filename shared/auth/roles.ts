@@ -85,8 +85,13 @@ export function navItemsFor(role: Role | null | undefined, options: { dev?: bool
   return NAV_ITEMS.filter(item => can(role, item.permission) && (!item.devOnly || options.dev === true))
 }
 
+/** Pages under a navigation item that a different permission opens: whoever strikes calibrates the inputs they strike with. */
+const PAGE_PERMISSIONS: Readonly<Record<string, Permission>> = { '/settings/calibrations': 'bench:strike' }
+
 /** The permission a page path needs, from the navigation table (undefined for open pages). */
 export function permissionForPath(path: string): Permission | undefined {
+  const own = PAGE_PERMISSIONS[path.replace(/\/+$/, '')]
+  if (own) return own
   const item = NAV_ITEMS.find(i => path === i.to || path.startsWith(`${i.to}/`))
   return item?.permission
 }

@@ -1,3 +1,6 @@
 export { measureClockOffset, MIN_REFERENCE_TONE_S, type ClockOffset, type ClockOffsetOptions } from './measureClockOffset'
 export { correctFrequencyHz } from './correctFrequencyHz'
 export { calibrateRecording } from './calibrateRecording'
+export { correctPartialsHz } from './correctPartialsHz'
+export { calibrationExpiry, type CalibrationExpiry } from './calibrationExpiry'
+export { calibrationStatusWords } from './calibrationStatusWords'

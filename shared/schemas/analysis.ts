@@ -12,7 +12,10 @@ import { PARTIAL_DIRECTIONS, PIECE_VERDICTS } from '../records/lists'
 const laterNumber = () => z.number().nullable().default(null)
 
 export const MeasuredPartialSchema = z.object({
+  /** On the reference's scale: corrected for the input's clock offset when a calibration was applied. */
   frequencyHz: z.number(),
+  /** The frequency as the input read it, before the clock correction; absent when none was applied. */
+  rawFrequencyHz: z.number().optional(),
   /** Peak amplitude of the sinusoid at the onset, dB re full scale (a full-scale sine is 0 dB). */
   amplitudeDb: z.number(),
   /** Decay rate of the envelope in dB/s (positive: decaying). */
@@ -97,6 +100,8 @@ export const AnalysisParametersSchema = z.object({
   windowFrom: z.enum(['template', 'rough-pass', 'option', 'default']),
   /** The resolutions of the multi-resolution analysis, slowest first (the first is `windowS`); empty in engine 1 results. */
   bands: z.array(AnalysisBandParametersSchema).default([]),
+  /** The input's clock offset the frequencies were corrected for, ppm (positive: the input reads high); absent when none. */
+  clockOffsetPpm: z.number().optional(),
 })
 
 export const TemplatePartialResultSchema = z.object({ label: z.string(), ratio: z.number(), toleranceCents: z.number(), required: z.boolean() })

@@ -21,3 +21,39 @@ export interface CalibrationAnswer {
   offsetPpm: number
   uncertaintyPpm: number
 }
+
+/** The multipart field that picks the input calibration a strike is measured under (kept exactly: `calibration-id`). */
+export const CalibrationChoiceSchema = z.object({
+  'calibration-id': z.preprocess(
+    v => (typeof v === 'string' && v.trim() === '' ? undefined : typeof v === 'string' ? v.trim() : v),
+    z.string().uuid('That is not a valid calibration id.').optional(),
+  ),
+})
+
+/** A calibration as strikes and screens show it. */
+export interface CalibrationView {
+  id: string
+  device: string
+  referenceHz: number
+  referenceUncertaintyPpm: number
+  measuredHz: number
+  offsetPpm: number
+  uncertaintyPpm: number
+  /** ISO time the reference tone was measured. */
+  measuredAt: string
+  operatorName: string | null
+  /** ISO time it stops being valid under the workshop's interval. */
+  expiresAt: string
+  expired: boolean
+  /** Whole days until expiry; negative: days since (calibrationExpiry). */
+  daysLeft: number
+}
+
+/** What a strike or an analysis answer says about the calibration applied. */
+export type AppliedCalibration = Pick<CalibrationView, 'id' | 'offsetPpm' | 'uncertaintyPpm' | 'device' | 'measuredAt' | 'expiresAt'>
+
+/** `GET /api/calibrations`: each device's calibrations, newest first (the first is its current one). */
+export interface CalibrationList {
+  validDays: number
+  devices: { device: string, current: CalibrationView, history: CalibrationView[] }[]
+}

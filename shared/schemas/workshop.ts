@@ -8,6 +8,10 @@ export const WORKSHOP_REFERENCE_HZ = { min: 415, max: 466 } as const
 const PITCH_RANGE = `The default reference pitch must be between ${WORKSHOP_REFERENCE_HZ.min} and ${WORKSHOP_REFERENCE_HZ.max} Hz`
 
 /** A workshop's settings as the owner sets them and every member reads them. */
+/** How long an input calibration stays valid, days: a day to ten years. */
+export const CALIBRATION_VALID_DAYS = { min: 1, max: 3650 } as const
+const CALIBRATION_RANGE = `The calibration interval must be between ${CALIBRATION_VALID_DAYS.min} and ${CALIBRATION_VALID_DAYS.max} days`
+
 export const WorkshopSettingsSchema = z.object({
   timeZone: z.string({ invalid_type_error: 'Choose a time zone' }).trim()
     .refine(isTimeZone, 'That is not a time zone name; choose one such as Europe/Berlin or America/Chicago'),
@@ -15,6 +19,8 @@ export const WorkshopSettingsSchema = z.object({
     .refine(isLocale, 'That is not a language tag for dates; write one such as en-GB or de-DE'),
   temperatureUnit: z.enum(TEMPERATURE_UNITS, { errorMap: () => ({ message: 'The temperature unit is °C or °F (C or F)' }) }),
   referenceHz: finite('the default reference pitch').min(WORKSHOP_REFERENCE_HZ.min, PITCH_RANGE).max(WORKSHOP_REFERENCE_HZ.max, PITCH_RANGE),
+  calibrationValidDays: z.number({ invalid_type_error: 'The calibration interval must be a number of days' }).int('The calibration interval is a whole number of days')
+    .min(CALIBRATION_VALID_DAYS.min, CALIBRATION_RANGE).max(CALIBRATION_VALID_DAYS.max, CALIBRATION_RANGE),
 })
 export type WorkshopSettings = z.infer<typeof WorkshopSettingsSchema>
 

@@ -6,6 +6,7 @@ import { sendCertificate, signCertificate } from '../../utils/certificates'
 import { createSet } from '../../utils/sets'
 import type { BlobStorage } from '../../utils/storage'
 import type { Role } from '../../../shared/auth/roles'
+import { benchInputCalibration } from './demo-calibrations'
 import { seedSetStrikes, type People } from './demo-records'
 
 /** The demo's finished instrument (invented school and buyer): signed, e-mailed, verifiable. */
@@ -35,7 +36,7 @@ export async function seedCertifiedSet(db: Transaction, storage: BlobStorage, wo
     referenceHz: workshop!.referenceHz, temperament: 'equal', noteOffsetsCents: {}, chromatic: false,
     templateId: glock.id, registers: [], dueOn: '2026-11-20',
   })
-  await seedSetStrikes(db, storage, workshopId, set.id, people, () => 'approved', 53, 0.5)
+  await seedSetStrikes(db, storage, workshopId, set.id, people, () => 'approved', 53, 0.5, await benchInputCalibration(db, workshopId))
   const signed = await signCertificate(db, await seedMember(db, workshopId, people.supervisor, 'supervisor'), set.id, siteUrl)
   await sendCertificate(db, await seedMember(db, workshopId, people.office, 'office'), signed.id, undefined)
   return { setId: set.id, certificate: signed }

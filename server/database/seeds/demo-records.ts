@@ -9,6 +9,7 @@ import { synthStrike, type SynthPartial } from '../../../shared/synthesis/synthS
 import type { PieceStage } from '../../../shared/records/stages'
 import { createSet } from '../../utils/sets'
 import { worstCents } from '../../utils/strikes'
+import { benchInputCalibration, seedDemoCalibrations } from './demo-calibrations'
 import type { BlobStorage } from '../../utils/storage'
 
 const SAMPLE_RATE = 44100
@@ -61,7 +62,10 @@ function strikeCountFor(stage: PieceStage, random: ReturnType<typeof seededRando
 export async function seedSetStrikes(
   db: Transaction, storage: BlobStorage, workshopId: string, setId: string, people: People,
   stageOf: (i: number, n: number) => PieceStage, seed: number, decayScale: number,
+  calibration?: { id: string, offsetPpm: number },
 ) {
+  // An input reading `offsetPpm` high hears every partial that much higher; the engine corrects it back.
+  const readHigh = 1 + (calibration?.offsetPpm ?? 0) * 1e-6
   const random = seededRandom(seed)
   const rows = await db.select({ piece: pieces, template: templateVersions }).from(pieces)
     .innerJoin(templateVersions, eq(templateVersions.id, pieces.templateVersionId))
@@ -80,13 +84,13 @@ export async function seedSetStrikes(
         // The deviations are meant at the template's reference temperature; a warmer bar reads flatter.
         const drift = template.temperatureCoefficientCentsPerC * (temperatureC - template.referenceTemperatureC)
         const partials: SynthPartial[] = template.partials.map((p, j) => ({
-          frequencyHz: piece.targetHz * p.ratio * 2 ** ((devs[k]![j]! + drift) / 1200),
+          frequencyHz: piece.targetHz * p.ratio * 2 ** ((devs[k]![j]! + drift) / 1200) * readHigh,
           amplitudeDb: -8 - 7 * j,
           decayDbPerS: decayScale * (8 + piece.targetHz * p.ratio / 90),
         }))
         const samples = synthStrike(partials, { sampleRate: SAMPLE_RATE, durationS: DURATION_S, onsetS: 0.05, noiseDb: -70, seed: seed * 1000 + i * 10 + k })
         const result = analyzeSamples(samples, SAMPLE_RATE, {
-          note: piece.note, targetHz: piece.targetHz, temperatureC,
+          note: piece.note, targetHz: piece.targetHz, temperatureC, clockOffsetPpm: calibration?.offsetPpm,
           template: {
             partials: template.partials, searchWindowCents: template.searchWindowCents,
             referenceTemperatureC: template.referenceTemperatureC, temperatureCoefficientCentsPerC: template.temperatureCoefficientCentsPerC,
@@ -100,7 +104,7 @@ export async function seedSetStrikes(
           id, workshopId, pieceId: piece.id, userId: k % 3 === 2 ? people.supervisor : people.bench, stage: k === 0 ? 'roughed' : 'tuning',
           temperatureC, humidityPct: 38 + random.uniform() * 12, audioKey, audioBytes: 44 + samples.length * 2, audioType: 'audio/wav',
           audioName: `${piece.note}-${k + 1}.wav`, engineVersion: result.engineVersion, analysis: result, templateVersionId: template.id,
-          fundamentalHz: result.fundamentalHz, worstCents: worstCents(result), verdict: result.verdict, createdAt: at,
+          fundamentalHz: result.fundamentalHz, worstCents: worstCents(result), verdict: result.verdict, createdAt: at, calibrationId: calibration?.id ?? null,
         })
         await tx.insert(strikeAnalyses).values({
           workshopId, strikeId: id, engineVersion: result.engineVersion, analysis: result, verdict: result.verdict, worstCents: worstCents(result),
@@ -168,7 +172,8 @@ export async function seedDemoRecords(db: Transaction, storage: BlobStorage, wor
   await db.update(pieces).set({ lotId: rosewood!.code === 'RW-2611' ? rosewood!.id : steel!.id }).where(eq(pieces.setId, marimba.id))
   await db.update(pieces).set({ lotId: steel!.code === 'ST-0409' ? steel!.id : rosewood!.id }).where(eq(pieces.setId, glockSet.id))
   // Rosewood rings for a shorter time than steel.
-  await seedSetStrikes(db, storage, workshopId, marimba.id, people, marimbaStage, 43, 1.6)
+  await seedDemoCalibrations(db, workshopId, people.bench)
+  await seedSetStrikes(db, storage, workshopId, marimba.id, people, marimbaStage, 43, 1.6, await benchInputCalibration(db, workshopId))
   await seedSetStrikes(db, storage, workshopId, glockSet.id, people, glockStage, 37, 0.5)
   return people
 }

@@ -55,6 +55,9 @@ describe('navigation', () => {
   it('finds the permission of nested screen paths', () => {
     expect(permissionForPath('/review')).toBe('review:decide')
     expect(permissionForPath('/sets/123')).toBe('sets:read')
+    // Benchmakers record their inputs' reference tones under Settings, which only the owner opens otherwise.
+    expect(permissionForPath('/settings/calibrations')).toBe('bench:strike')
+    expect(permissionForPath('/settings')).toBe('workshop:manage')
     expect(permissionForPath('/')).toBeUndefined()
     expect(permissionForPath('/benchmark')).toBeUndefined()
   })

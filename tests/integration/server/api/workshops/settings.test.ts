@@ -8,10 +8,10 @@ describe('workshop settings', () => {
     const owner = await newWorkshop('Settings check works')
     const first = await api(URL, { token: owner.token })
     expect(first.status).toBe(200)
-    expect(first.body).toEqual({ timeZone: 'UTC', locale: 'en-GB', temperatureUnit: 'C', referenceHz: 440 })
-    const changed = await api(URL, { method: 'PATCH', token: owner.token, body: { timeZone: 'Europe/Berlin', locale: 'de-DE', temperatureUnit: 'F', referenceHz: 442 } })
+    expect(first.body).toEqual({ timeZone: 'UTC', locale: 'en-GB', temperatureUnit: 'C', referenceHz: 440, calibrationValidDays: 90 })
+    const changed = await api(URL, { method: 'PATCH', token: owner.token, body: { timeZone: 'Europe/Berlin', locale: 'de-DE', temperatureUnit: 'F', referenceHz: 442, calibrationValidDays: 30 } })
     expect(changed.status).toBe(200)
-    expect(changed.body).toEqual({ timeZone: 'Europe/Berlin', locale: 'de-DE', temperatureUnit: 'F', referenceHz: 442 })
+    expect(changed.body).toEqual({ timeZone: 'Europe/Berlin', locale: 'de-DE', temperatureUnit: 'F', referenceHz: 442, calibrationValidDays: 30 })
     // A partial change keeps the rest.
     const pitch = await api(URL, { method: 'PATCH', token: owner.token, body: { referenceHz: 443 } })
     expect(pitch.body).toMatchObject({ timeZone: 'Europe/Berlin', referenceHz: 443 })
@@ -44,13 +44,17 @@ describe('workshop settings', () => {
       [{ referenceHz: 'high' }, /number/i],
       [{}, /nothing to change/i],
       [{ timeZone: 'UTC', colour: 'red' }, /colour/],
+      [{ calibrationValidDays: 0 }, /1 and 3650 days/],
+      [{ timeZone: 'Europe/Berlin', calibrationValidDays: 3651 }, /1 and 3650 days/],
+      [{ calibrationValidDays: 7.5 }, /whole number/],
+      [{ calibrationValidDays: '30' }, /number of days/],
     ]
     for (const [body, message] of bad) {
       const reply = await api(URL, { method: 'PATCH', token: owner.token, body })
       expect(reply.status, JSON.stringify(body)).toBe(400)
       expect(JSON.stringify(reply.body), JSON.stringify(body)).toMatch(message)
     }
-    expect((await api(URL, { token: owner.token })).body).toEqual({ timeZone: 'UTC', locale: 'en-GB', temperatureUnit: 'C', referenceHz: 440 })
+    expect((await api(URL, { token: owner.token })).body).toEqual({ timeZone: 'UTC', locale: 'en-GB', temperatureUnit: 'C', referenceHz: 440, calibrationValidDays: 90 })
   })
 
   it('refuses an oversized body before reading it', async () => {

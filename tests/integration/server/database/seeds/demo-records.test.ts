@@ -1,8 +1,12 @@
-import { describe, expect, it } from 'vitest'
+import postgres from 'postgres'
+import { afterAll, describe, expect, it } from 'vitest'
+import { DEMO_INPUTS } from '../../../../../server/database/seeds/demo-calibrations'
 import { DEMO_CERTIFIED_SET } from '../../../../../server/database/seeds/demo-certified'
 import { api, signIn } from '../../../support/http'
 
 const DEMO_PASSWORD = 'tonewright-demo'
+const sql = postgres(process.env.NUXT_DATABASE_URL!, { max: 1, onnotice: () => {} })
+afterAll(() => sql.end())
 
 interface Listed { id: string, setId: string, code: string, number: string, status: string, setSerial: string, pdfStatus: string, mails: { status: string, to: string }[] }
 
@@ -42,5 +46,26 @@ describe('the demo workshop as seeded', () => {
     }
     expect(cert.pdfStatus).toBe('ready')
     expect(cert.mails[0]?.status).toBe('sent')
+  })
+
+  it('has two inputs with calibrations over past months, one expired, and strikes recorded under the bench input\'s', async () => {
+    const bench = await signIn('bench@tonewright.test', DEMO_PASSWORD)
+    const list = await api('/api/calibrations', { token: bench })
+    expect(list.status).toBe(200)
+    const byName = Object.fromEntries(list.body.devices.map((d: { device: string }) => [d.device, d]))
+    const desk = byName[DEMO_INPUTS.bench]
+    const field = byName[DEMO_INPUTS.field]
+    expect(desk.history).toHaveLength(4)
+    expect(field.history).toHaveLength(3)
+    expect(desk.current.expired).toBe(false)
+    expect(field.current.expired).toBe(true)
+    // The seed's tones were made at +42.2 … +41.3 ppm; each reading within 3u of what was made (JCGM 100:2008 §6.2, k = 3).
+    expect(desk.history.map((c: { offsetPpm: number }) => Math.round(c.offsetPpm * 10) / 10)).toEqual([41.3, 41.6, 41.9, 42.2])
+    const office = await signIn('office@tonewright.test', DEMO_PASSWORD)
+    const cert = await demoCertificate(office)
+    const set = await api(`/api/sets/${cert.setId}`, { token: office })
+    const pieceIds = set.body.pieces.map((p: { id: string }) => p.id)
+    const used = await sql`select distinct calibration_id from strikes where piece_id in ${sql(pieceIds)}`
+    expect(used.map(r => r.calibration_id)).toEqual([desk.current.id])
   })
 })
