@@ -24,7 +24,9 @@ describe('blanks', () => {
   it('grades a blank from its figures, shows its grade, the chart of its species and the notes it can make, and turns it into a piece', async () => {
     const owner = await newWorkshop('Hollowmere Bars')
     // An earlier, less stiff rosewood blank (E 18 GPa), so the chart has the new one to stand against.
-    expect((await api('/api/blanks', { method: 'POST', token: owner.token, body: { ...BLANK, species: 'rosewood', f1Hz: f1For(18) } })).status).toBe(201)
+    const lot = await api('/api/lots', { method: 'POST', token: owner.token, body: { code: 'HV-RW-1', material: 'wood', species: 'rosewood', permitNumber: 'HV-EX-26-0001' } })
+    expect(lot.status).toBe(201)
+    expect((await api('/api/blanks', { method: 'POST', token: owner.token, body: { ...BLANK, species: 'rosewood', f1Hz: f1For(18), lotId: lot.body.id } })).status).toBe(201)
     const set = await createSet(owner.token, { fromNote: 'A4', toNote: 'B4' })
     const page = await newPage()
     await signInAs(page, owner.email, owner.password)
@@ -75,6 +77,12 @@ describe('blanks', () => {
     await row.getByLabel('Piece (at the blank stage)').selectOption((set.pieces[0] as { id: string }).id)
     await row.getByRole('button', { name: 'Make it this piece' }).click()
     await row.getByRole('link', { name: 'the piece' }).waitFor()
+    // The lot's page lists the blank graded against it, and offers to grade another from it.
+    await openHydrated(page, `/lots/${lot.body.id}`)
+    const lotBlanks = page.getByTestId('lot-blanks')
+    await expectText(lotBlanks.getByTestId('blank-row'), /Rosewood.*usable/s)
+    expect(await lotBlanks.getByTestId('blank-row').count()).toBe(1)
+    await lotBlanks.getByRole('link', { name: 'Grade a blank from this lot' }).waitFor()
     await page.close()
   })
 
