@@ -88,4 +88,17 @@ describe('blank thresholds per species', () => {
     const graded = await api('/api/blanks/grade', { method: 'POST', token: bench.token, body: { ...BLANK, f1Hz: f1For(20) } })
     expect(graded.body.grade.source).toBe('starting')
   })
+
+  it('takes racing saves one after the other (one of them wins whole) and refuses an oversized body with 413', async () => {
+    const owner = await newWorkshop('Threshold races')
+    const LOOSE = { specificModulus: { select: 20, usable: 15 }, lossFactor: { select: 0.01, usable: 0.02 } }
+    const replies = await Promise.all([STRICT, LOOSE, STRICT, LOOSE].map(rosewood => api(URL, { method: 'PUT', token: owner.token, body: { thresholds: { rosewood } } })))
+    expect(replies.map(r => r.status)).toEqual([200, 200, 200, 200])
+    const stored = (await api(URL, { token: owner.token })).body.thresholds.rosewood
+    expect([STRICT, LOOSE]).toContainEqual(stored)
+    // The JSON body limit is 1 MB (server/utils/request-limits.ts).
+    const huge = await api(URL, { method: 'PUT', token: owner.token, body: { thresholds: { rosewood: STRICT }, padding: 'x'.repeat(1_100_000) } })
+    expect(huge.status).toBe(413)
+    expect((await api(URL, { token: owner.token })).body.thresholds.rosewood).toEqual(stored)
+  })
 })
