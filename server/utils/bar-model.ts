@@ -3,6 +3,7 @@ import type { BlankFigures } from '../../shared/barModel/gradeBlank'
 import { gradeFromThresholds, type BlankGrade } from '../../shared/barModel/gradeFromThresholds'
 import type { BarModelTask } from '../../shared/barModel/runBarModelTask'
 import type { BlankGradeInput } from '../../shared/schemas/blankGrade'
+import type { BlankThresholds } from '../../shared/schemas/blankThresholds'
 import type { CutPlan, CutPlanInput } from '../../shared/schemas/cutPlan'
 import { BarModelBusyError, useBarModelPool } from './bar-model-pool'
 import { fail } from './http-errors'
@@ -30,8 +31,11 @@ export async function planCutsOffThread(input: CutPlanInput, handFactor?: number
   return await offThread({ kind: 'plan', input, handFactor }) as CutPlan
 }
 
-/** POST /api/blanks/grade's work: what a blank's strike says about its material, graded when its species is given. */
-export async function gradeBlankOffThread(input: BlankGradeInput): Promise<BlankFigures & { grade: BlankGrade | null }> {
+/**
+ * POST /api/blanks/grade's work: what a blank's strike says about its material, graded when its
+ * species is given (by the workshop's own thresholds for that species when it stored some).
+ */
+export async function gradeBlankOffThread(input: BlankGradeInput, workshopThresholds: BlankThresholds = {}): Promise<BlankFigures & { grade: BlankGrade | null }> {
   const figures = await offThread({ kind: 'grade', input }) as BlankFigures
-  return { ...figures, grade: input.species ? gradeFromThresholds(figures, input.species) : null }
+  return { ...figures, grade: input.species ? gradeFromThresholds(figures, input.species, workshopThresholds) : null }
 }

@@ -1,4 +1,5 @@
 import { BLANK_GRADE_LIMITS, BlankStrikeFieldsSchema } from '../../shared/schemas/blankGrade'
+import type { BlankThresholds } from '../../shared/schemas/blankThresholds'
 import { measureStrike } from './analysis'
 import { gradeBlankOffThread } from './bar-model'
 import { fail, validateInput } from './http-errors'
@@ -8,7 +9,7 @@ import { fail, validateInput } from './http-errors'
  * the engine measures the strike in the analysis pool (decode and limits as for any strike),
  * and its fundamental and that partial's decay go to the bar model.
  */
-export async function gradeBlankStrike(bytes: Uint8Array, fields: Record<string, string>) {
+export async function gradeBlankStrike(bytes: Uint8Array, fields: Record<string, string>, workshopThresholds: BlankThresholds = {}) {
   const blank = validateInput(BlankStrikeFieldsSchema, fields)
   const { result } = await measureStrike(bytes, {})
   const f1Hz = result.fundamentalHz
@@ -19,5 +20,5 @@ export async function gradeBlankStrike(bytes: Uint8Array, fields: Record<string,
   const partial = result.partials.find(p => p.frequencyHz === f1Hz)
   const decay = partial?.decayDbPerS
   const decayDbPerS = decay !== undefined && decay > 0 && decay <= BLANK_GRADE_LIMITS.decayDbPerS[1] ? decay : undefined
-  return { ...(await gradeBlankOffThread({ ...blank, f1Hz, decayDbPerS })), f1Hz, decayDbPerS: decayDbPerS ?? null }
+  return { ...(await gradeBlankOffThread({ ...blank, f1Hz, decayDbPerS }, workshopThresholds)), f1Hz, decayDbPerS: decayDbPerS ?? null }
 }

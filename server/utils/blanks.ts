@@ -3,10 +3,11 @@ import { blanks, lots, pieces, templateVersions } from '../database/schema'
 import type { Database, Executor } from '../database/client'
 import { defaultBarGeometry, isModelledFamily } from '../../shared/barModel/defaultBarGeometry'
 import type { BarMaterial } from '../../shared/records/barMaterials'
-import type { BlankRecordInput } from '../../shared/schemas/blankRecord'
+import type { BlankListQuery, BlankRecordInput } from '../../shared/schemas/blankRecord'
 import type { Member } from './auth'
 import { audit } from './audit'
 import { gradeBlankOffThread } from './bar-model'
+import { workshopBlankThresholds } from './blank-thresholds'
 import { conflictOnDuplicate, fail } from './http-errors'
 
 /** Blanks listed at once (the chart of a species reads these). */
@@ -29,7 +30,7 @@ export async function recordBlank(db: Database, member: Member, input: BlankReco
     const [lot] = await db.select({ id: lots.id }).from(lots).where(and(eq(lots.id, input.lotId), eq(lots.workshopId, member.workshopId)))
     if (!lot) fail(404, 'No such lot in this workshop.')
   }
-  const graded = await gradeBlankOffThread(input)
+  const graded = await gradeBlankOffThread(input, await workshopBlankThresholds(db, member.workshopId))
   const grade = graded.grade!
   const [row] = await db.insert(blanks).values({
     workshopId: member.workshopId, lotId: input.lotId ?? null, species: input.species,
@@ -41,9 +42,13 @@ export async function recordBlank(db: Database, member: Member, input: BlankReco
   return { ...row!, standing: await standingOf(db, member.workshopId, input.species, row!.id, graded.specificModulus) }
 }
 
-/** The workshop's blanks, newest first, of one species when given. */
-export function listBlanks(db: Executor, workshopId: string, species?: BarMaterial) {
-  const where = species ? and(eq(blanks.workshopId, workshopId), eq(blanks.species, species)) : eq(blanks.workshopId, workshopId)
+/** The workshop's blanks, newest first, of one species and one lot when given. */
+export function listBlanks(db: Executor, workshopId: string, filter: BlankListQuery = {}) {
+  const where = and(
+    eq(blanks.workshopId, workshopId),
+    filter.species ? eq(blanks.species, filter.species) : undefined,
+    filter.lotId ? eq(blanks.lotId, filter.lotId) : undefined,
+  )
   return db.select().from(blanks).where(where).orderBy(desc(blanks.createdAt)).limit(LISTED_BLANKS)
 }
 

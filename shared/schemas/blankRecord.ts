@@ -11,8 +11,12 @@ export const BlankRecordInputSchema = z.object({
 }).strict().superRefine(checkDensity)
 export type BlankRecordInput = z.infer<typeof BlankRecordInputSchema>
 
-/** GET /api/blanks: the workshop's blanks, of one species when given. */
-export const BlankListQuerySchema = z.object({ species: BarMaterialSchema.optional() }).strict()
+/** GET /api/blanks: the workshop's blanks, of one species and one lot when given. */
+export const BlankListQuerySchema = z.object({
+  species: BarMaterialSchema.optional(),
+  lotId: z.string().uuid('That is not a valid lot id').optional(),
+}).strict()
+export type BlankListQuery = z.infer<typeof BlankListQuerySchema>
 
 /** POST /api/blanks/{id}/piece: the piece a blank becomes. */
 export const BlankToPieceSchema = z.object({ pieceId: z.string({ required_error: 'Give the piece\'s id' }).uuid('That is not a valid piece id') }).strict()

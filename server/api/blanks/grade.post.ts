@@ -6,11 +6,12 @@ import { parseWith } from '#shared/validation'
  * mode (JSON `f1Hz`, or a multipart `file` of its strike with the figures as fields); members who may strike.
  */
 export default defineEventHandler(async (event) => {
-  await requireMember(event, 'bench:strike')
+  const member = await requireMember(event, 'bench:strike')
+  const thresholds = await workshopBlankThresholds(useDatabase(), member.workshopId)
   if (mediaType(getHeader(event, 'content-type')) === 'multipart/form-data') {
     const { file, fields } = await readUpload(event)
-    return gradeBlankStrike(file.bytes, fields)
+    return gradeBlankStrike(file.bytes, fields, thresholds)
   }
   const body = await readValidatedBody(event, parseWith(BlankGradeInputSchema))
-  return gradeBlankOffThread(body)
+  return gradeBlankOffThread(body, thresholds)
 })

@@ -90,3 +90,19 @@ describe('POST /api/blanks/:id/piece', () => {
     expect(list.filter(x => x.pieceId === piece.id)).toHaveLength(1)
   })
 })
+
+describe('GET /api/blanks?lotId=', () => {
+  it('lists one lot\'s blanks, nothing for another workshop\'s lot, and 400 for a malformed id', async () => {
+    const other = await api('/api/lots', { method: 'POST', token: office, body: { code: `PD-${Date.now()}`, material: 'wood', species: 'padauk' } })
+    const inLot = await record({ ...BLANK, f1Hz: f1For(19), lotId: other.body.id })
+    expect(inLot.status).toBe(201)
+    const listed = await api(`/api/blanks?lotId=${other.body.id}`, { token: office })
+    expect(listed.status).toBe(200)
+    expect(listed.body.map((b: { id: string }) => b.id)).toEqual([inLot.body.id])
+    const elsewhere = await newWorkshop('Lot filter elsewhere')
+    expect((await api(`/api/blanks?lotId=${other.body.id}`, { token: elsewhere.token })).body).toEqual([])
+    const bad = await api('/api/blanks?lotId=RW-7', { token: office })
+    expect(bad.status).toBe(400)
+    expect(bad.body.message).toMatch(/lot id/)
+  })
+})
