@@ -15,6 +15,8 @@ export const WorkshopSettingsSchema = z.object({
     .refine(isLocale, 'That is not a language tag for dates; write one such as en-GB or de-DE'),
   temperatureUnit: z.enum(TEMPERATURE_UNITS, { errorMap: () => ({ message: 'The temperature unit is °C or °F (C or F)' }) }),
   referenceHz: finite('the default reference pitch').min(WORKSHOP_REFERENCE_HZ.min, PITCH_RANGE).max(WORKSHOP_REFERENCE_HZ.max, PITCH_RANGE),
+  /** Ask for three strikes of a piece in its final form before it may go to review (the budget's repeatability). */
+  repeatStrikesBeforeReview: z.boolean({ invalid_type_error: 'Asking for three strikes before review is on or off (true or false)' }),
 })
 export type WorkshopSettings = z.infer<typeof WorkshopSettingsSchema>
 
