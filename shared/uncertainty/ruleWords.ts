@@ -8,3 +8,10 @@ export const DECISION_RULE_WORDS: Record<DecisionRule, { name: string, rule: str
 
 /** How a verdict under a decision rule is written. */
 export const DECISION_VERDICT_WORDS: Record<DecisionVerdict, string> = { pass: 'pass', conditional: 'conditional', fail: 'fail' }
+
+const TIMES = ['', 'once', 'twice', 'three times']
+
+/** "strike twice more before review": what the Bench and a refused review say. */
+export function strikeMoreText(missing: number) {
+  return `strike ${TIMES[missing] ?? `${missing} times`} more before review`
+}
