@@ -46,6 +46,7 @@ export function frozenCalibrations(budgets: PieceBudget[]): { calibrations: Froz
     if (seen) {
       seen.pieceCount++
       seen.expired ||= c.expired
+      seen.driftAssessed &&= c.driftPpm !== null
       continue
     }
     byKey.set(key, { device: c.device, calibratedAt: c.calibratedAt, offsetPpm: sig(c.offsetPpm), uncertaintyPpm: sig(c.uncertaintyPpm), expired: c.expired, driftAssessed: c.driftPpm !== null, pieceCount: 1 })
