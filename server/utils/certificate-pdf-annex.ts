@@ -4,7 +4,6 @@ import { roundUpCents } from '../../shared/certificates/uncertaintyText'
 import { decisionMeaning, lookHex } from '../../shared/look/meanings'
 import { markSvg } from '../../shared/look/markSvg'
 import { hex } from '../../shared/look/palette'
-import { DECISION_RULE_WORDS } from '../../shared/uncertainty/ruleWords'
 
 type Piece = CertificateContent['pieces'][number]
 const SOFT = hex('ink-soft')
@@ -28,7 +27,7 @@ export function decisionCell(p: Piece): Content[] {
   const other = d.rule === 'simple' ? 'guarded' : 'simple'
   return [
     { columns: [{ svg: markSvg(meaning, 7), width: 9, margin: [0, 2, 0, 0] }, { text: d.verdict ? VERDICT_TEXT[d.verdict] : 'Incomplete', bold: true, color: lookHex(meaning).text }] },
-    ...(d.dependsOnRule ? [{ text: `depends on the rule: ${d.otherVerdict ?? 'none'} under ${DECISION_RULE_WORDS[other].name}`, fontSize: 7, color: SOFT } as Content] : []),
+    ...(d.dependsOnRule ? [{ text: `depends on the rule (${other}: ${d.otherVerdict ?? 'none'})`, fontSize: 7, color: SOFT } as Content] : []),
   ]
 }
 
@@ -57,7 +56,7 @@ function budgetTable(p: Piece): Content {
   for (const b of p.budget) {
     b.lines.forEach((l, i) => body.push([
       i === 0 ? { text: b.label, bold: true } : '', l.name, { text: `${fixed(l.value)} ${l.unit}`, alignment: 'right' },
-      `${l.distribution} (÷${fixed(l.divisor, 3)})`, { text: `${fixed(l.sensitivity, l.unit === '¢' ? 0 : 4)} ¢/${l.unit}`, alignment: 'right' },
+      `${l.distribution} (÷${fixed(l.divisor, 3)})`, { text: `${fixed(l.sensitivity, l.unit === '¢' ? 0 : 5)} ¢/${l.unit}`, alignment: 'right' },
       { text: `${fixed(l.contribution)} ¢`, alignment: 'right' },
     ]))
     body.push(['', { text: `u = ${fixed(b.combinedStandardUncertaintyCents)} ¢, U = k·u = ${fixed(b.expandedUncertaintyCents)} ¢ (k = ${b.coverageFactor})`, bold: true, colSpan: 5 }, '', '', '', ''])
@@ -78,7 +77,7 @@ export function budgetAnnex(content: CertificateContent): Content[] {
   if (!pieces.length) return []
   return [
     { text: 'Annex: uncertainty budgets', style: 'h1', pageBreak: 'before' },
-    { text: 'For each partial: each component\'s stated value, its distribution and divisor, its sensitivity coefficient and its contribution cᵢuᵢ to the deviation in cents; u = √Σ(cᵢuᵢ)², U = k·u with k = 2 (JCGM 100:2008 §5.1.2, §6.2.1).', style: 'small', margin: [0, 0, 0, 6] },
+    { text: 'For each partial: each component\'s stated value, its distribution and divisor, its sensitivity coefficient c and its contribution |c|·u to the deviation in cents; u = √Σ(c·u)² over the components, U = k·u with k = 2 (JCGM 100:2008 §5.1.2, §6.2.1).', style: 'small', margin: [0, 0, 0, 6] },
     ...pieces.flatMap(p => [
       { text: `${p.note} (#${p.position}) · ${p.template}`, style: 'h2', margin: [0, 8, 0, 2] } as Content,
       ...(p.clock ? [{ text: `Input clock: ${p.clock}`, style: 'small', margin: [0, 0, 0, 3] } as Content] : []),

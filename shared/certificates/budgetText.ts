@@ -22,6 +22,12 @@ function usualLargest(budgets: FrozenBudget[]): string | null {
   return [...count.entries()].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0]))[0]?.[0] ?? null
 }
 
+function rangeSentence(sorted: number[]): string {
+  const [low, high] = [roundUpCents(sorted[0]!), roundUpCents(sorted[sorted.length - 1]!)]
+  const over = `Over the ${plural(sorted.length, 'partial', 'partials')} with a budget`
+  return low === high ? `${over}, U is ±${high} ¢.` : `${over}, U is between ±${low} ¢ and ±${high} ¢ (typically ±${roundUpCents(median(sorted))} ¢).`
+}
+
 export const NOT_ACCREDITED = 'Tonewright is not an accredited calibration laboratory: this statement follows the method of the GUM but is the workshop\'s own, not an accredited calibration certificate.'
 
 /**
@@ -36,7 +42,7 @@ export function budgetUncertaintyText(pieces: { budget: FrozenBudget[] }[]): str
   const parts = [
     'Each deviation in the results carries its expanded uncertainty U (written ± beside it), computed for each partial from an uncertainty budget in the manner of the GUM (JCGM 100:2008).',
     `The budget combines the repeatability over the strikes of the piece's final form (Type A), the measurement engine's own estimate for the partial, the sound input's clock calibration and its drift since then, the bench temperature (±${ASSUMED_TEMPERATURE_HALF_WIDTH_K} °C assumed, times the template's temperature coefficient) and the ${STORED_RESOLUTION_CENTS} ¢ resolution of the stated result (Type B), as the root sum of squares u; U = 2u covers about 95 %.`,
-    `Over the ${plural(budgets.length, 'partial', 'partials')} with a budget, U is between ±${roundUpCents(expanded[0]!)} ¢ and ±${roundUpCents(expanded[expanded.length - 1]!)} ¢ (typically ±${roundUpCents(median(expanded))} ¢).`,
+    rangeSentence(expanded),
   ]
   const largest = usualLargest(budgets)
   if (largest) parts.push(`The largest component is most often the ${largest}.`)

@@ -41,7 +41,7 @@ function gaps(readings: number, m: BudgetMatch, clock: ClockEvidence, temperatur
   if (readings < 2) out.push({ name: 'repeatability', reason: `only ${readings} reading${readings === 1 ? '' : 's'} at the final state; two or more are needed` })
   if (m.uncertaintyCents === null) out.push({ name: 'estimator', reason: 'the engine that measured this strike gave no per-partial uncertainty' })
   if (clock.state === 'none') out.push({ name: 'clock calibration', reason: 'the strike was not measured under an input calibration' })
-  else if (clock.driftPpm === null) out.push({ name: 'clock drift since calibration', reason: `not assessed: ${clock.device} has only one calibration, so no drift history` })
+  else if (clock.driftPpm === null) out.push({ name: 'clock drift since calibration', reason: `${clock.device} has only one calibration before the strike, so no drift history` })
   if (!temperatureRecorded) out.push({ name: 'bench temperature', reason: 'no bench temperature was recorded with the strike' })
   return out
 }
