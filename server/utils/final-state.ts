@@ -1,4 +1,4 @@
-import { and, desc, eq, gt, inArray, lte, sql } from 'drizzle-orm'
+import { and, desc, eq, gt, inArray, lte, max, sql } from 'drizzle-orm'
 import { cutPlans, reviews, strikes } from '../database/schema'
 import type { Executor } from '../database/client'
 import { FINAL_STATE_STRIKES_MAX } from '../../shared/uncertainty/evidence'
@@ -10,14 +10,15 @@ import { FINAL_STATE_STRIKES_MAX } from '../../shared/uncertainty/evidence'
  * Those strikes, newest first and at most FINAL_STATE_STRIKES_MAX, are what the repeatability
  * of its budget reads and what "three strikes before review" counts.
  */
-export async function finalStateStrikes(db: Executor, workshopId: string, pieceId: string, referenceAt: Date) {
-  const [row] = await db.select({
-    at: sql<Date | null>`greatest(
-      (select max(${cutPlans.createdAt}) from ${cutPlans} where ${cutPlans.pieceId} = ${pieceId} and ${cutPlans.createdAt} <= ${referenceAt}),
-      (select max(${reviews.createdAt}) from ${reviews} where ${reviews.pieceId} = ${pieceId} and ${inArray(reviews.decision, ['return', 'reopen'])} and ${reviews.createdAt} <= ${referenceAt})
-    )`.mapWith(v => (v === null ? null : new Date(v))),
-  }).from(sql`(select 1) as one`)
-  const since = row?.at ?? null
+export async function finalStateStrikes(db: Executor, workshopId: string, pieceId: string, referenceStrikeId: string) {
+  // The reference's own instant, read in SQL: a JavaScript Date would drop its microseconds.
+  const referenceAt = sql`(select ${strikes.createdAt} from ${strikes} where ${strikes.id} = ${referenceStrikeId})`
+  const [cut] = await db.select({ at: max(cutPlans.createdAt) }).from(cutPlans)
+    .where(and(eq(cutPlans.pieceId, pieceId), lte(cutPlans.createdAt, referenceAt)))
+  const [back] = await db.select({ at: max(reviews.createdAt) }).from(reviews)
+    .where(and(eq(reviews.pieceId, pieceId), inArray(reviews.decision, ['return', 'reopen']), lte(reviews.createdAt, referenceAt)))
+  const times = [cut?.at, back?.at].flatMap(t => (t ? [new Date(t).getTime()] : []))
+  const since = times.length ? new Date(Math.max(...times)) : null
   return db.select().from(strikes)
     .where(and(
       eq(strikes.pieceId, pieceId), eq(strikes.workshopId, workshopId), lte(strikes.createdAt, referenceAt),

@@ -31,7 +31,7 @@ export async function clockEvidence(db: Executor, workshopId: string, strike: Pi
 
 /** The budget of a piece at its reference strike, read inside the caller's transaction or on its own. */
 export async function budgetAtStrike(db: Executor, workshopId: string, pieceId: string, reference: Strike, template: TemplateVersion, validDays: number): Promise<PieceBudget> {
-  const finalState = await finalStateStrikes(db, workshopId, pieceId, reference.createdAt)
+  const finalState = await finalStateStrikes(db, workshopId, pieceId, reference.id)
   const analysis = parseStoredAnalysis(reference.analysis)
   const matches = (analysis.matches ?? []).map(m => ({
     label: m.label, cents: m.cents, toleranceCents: m.toleranceCents, required: m.required, missing: m.missing,

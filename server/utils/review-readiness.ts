@@ -10,9 +10,9 @@ import { fail } from './http-errors'
 export async function reviewReadiness(db: Executor, workshopId: string, pieceId: string) {
   const [workshop] = await db.select({ on: workshops.repeatStrikesBeforeReview }).from(workshops).where(eq(workshops.id, workshopId))
   const needed = workshop?.on ? STRIKES_BEFORE_REVIEW : 0
-  const [latest] = await db.select({ createdAt: strikes.createdAt }).from(strikes)
+  const [latest] = await db.select({ id: strikes.id }).from(strikes)
     .where(and(eq(strikes.pieceId, pieceId), eq(strikes.workshopId, workshopId))).orderBy(desc(strikes.createdAt)).limit(1)
-  const atFinalState = latest ? (await finalStateStrikes(db, workshopId, pieceId, latest.createdAt)).length : 0
+  const atFinalState = latest ? (await finalStateStrikes(db, workshopId, pieceId, latest.id)).length : 0
   const missing = Math.max(0, needed - atFinalState)
   return { needed, atFinalState, missing, advice: missing ? strikeMoreText(missing) : null }
 }

@@ -16,20 +16,20 @@ export const FINAL_STATE_STRIKES_MAX = 5
 export const STRIKES_BEFORE_REVIEW = 3
 
 /** The input calibration a strike was measured under, as the budget needs it. */
-export type ClockEvidence =
-  | { state: 'none' }
-  | {
-    state: 'calibrated'
-    device: string
-    calibratedAt: string
-    offsetPpm: number
-    /** Standard uncertainty (k = 1) of the offset, ppm; the reference's own is part of it. */
-    uncertaintyPpm: number
-    referenceUncertaintyPpm: number
-    expired: boolean
-    /** Drift since the calibration from the device's history; null: fewer than two calibrations. */
-    driftPpm: number | null
-  }
+export type ClockEvidence
+  = | { state: 'none' }
+    | {
+      state: 'calibrated'
+      device: string
+      calibratedAt: string
+      offsetPpm: number
+      /** Standard uncertainty (k = 1) of the offset, ppm; the reference's own is part of it. */
+      uncertaintyPpm: number
+      referenceUncertaintyPpm: number
+      expired: boolean
+      /** Drift since the calibration from the device's history; null: fewer than two calibrations. */
+      driftPpm: number | null
+    }
 
 /** A component the budget could not assess, and why (shown, never guessed). */
 export interface NotAssessed {
