@@ -1,6 +1,7 @@
 import type { Content, TableCell } from 'pdfmake/interfaces'
 import type { CertificateContent } from '../../shared/certificates/content'
 import { roundUpCents } from '../../shared/certificates/uncertaintyText'
+import { formatNumber } from '../../shared/format/numbers'
 import { decisionMeaning, lookHex } from '../../shared/look/meanings'
 import { markSvg } from '../../shared/look/markSvg'
 import { hex } from '../../shared/look/palette'
@@ -11,7 +12,6 @@ const LINE = hex('paper-line')
 const INK = hex('ink')
 const MADDER = lookHex('error').text
 
-const fixed = (v: number, digits = 4) => (v < 0 ? `−${Math.abs(v).toFixed(digits)}` : v.toFixed(digits))
 const signedPpm = (v: number) => `${v < 0 ? '−' : v > 0 ? '+' : ''}${Math.abs(v).toFixed(2)} ppm`
 
 /** "± 0.25 ¢" beside a deviation, rounded up to two significant digits (JCGM 100:2008 §7.2.6). */
@@ -55,11 +55,11 @@ function budgetTable(p: Piece): Content {
   const body: TableCell[][] = [[th('Partial'), th('Component'), th('Value', 'right'), th('Distribution'), th('Sensitivity', 'right'), th('Contribution', 'right')]]
   for (const b of p.budget) {
     b.lines.forEach((l, i) => body.push([
-      i === 0 ? { text: b.label, bold: true } : '', l.name, { text: `${fixed(l.value)} ${l.unit}`, alignment: 'right' },
-      `${l.distribution} (÷${fixed(l.divisor, 3)})`, { text: `${fixed(l.sensitivity, l.unit === '¢' ? 0 : 5)} ¢/${l.unit}`, alignment: 'right' },
-      { text: `${fixed(l.contribution)} ¢`, alignment: 'right' },
+      i === 0 ? { text: b.label, bold: true } : '', l.name, { text: formatNumber(l.value, l.unit, 4), alignment: 'right' },
+      `${l.distribution} (÷${l.divisor.toFixed(3)})`, { text: formatNumber(l.sensitivity, `¢/${l.unit}`, l.unit === 'ppm' ? 5 : l.unit === '¢' ? 0 : 2), alignment: 'right' },
+      { text: formatNumber(l.contribution, '¢', 4), alignment: 'right' },
     ]))
-    body.push(['', { text: `u = ${fixed(b.combinedStandardUncertaintyCents)} ¢, U = k·u = ${fixed(b.expandedUncertaintyCents)} ¢ (k = ${b.coverageFactor})`, bold: true, colSpan: 5 }, '', '', '', ''])
+    body.push(['', { text: `u = ${formatNumber(b.combinedStandardUncertaintyCents, '¢', 4)}, U = k·u = ${formatNumber(b.expandedUncertaintyCents, '¢', 4)} (k = ${b.coverageFactor})`, bold: true, colSpan: 5 }, '', '', '', ''])
     if (b.notAssessed.length) {
       body.push(['', { text: `Not assessed: ${b.notAssessed.map(g => `${g.name} (${g.reason})`).join('; ')}.`, colSpan: 5, color: SOFT }, '', '', '', ''])
     }

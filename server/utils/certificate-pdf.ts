@@ -48,13 +48,12 @@ function pieceRow(p: CertificateContent['pieces'][number]): TableCell[] {
     lines(q => ({ text: q.required ? q.label : `${q.label} (reported)`, noWrap: false })),
     lines(q => ({ text: hz(q.targetHz), font: 'PlexMono', alignment: 'right', color: SOFT })),
     lines(q => ({ text: hz(q.measuredHz), font: 'PlexMono', alignment: 'right' })),
+    // ± U on the deviation's own line, so each partial stays on one line across the columns.
     lines(q => ({
-      stack: [{
-        columns: [
-          { svg: markSvg(markOf(q), 7), width: 9, margin: [0, 2, 0, 0] },
-          { text: formatCents(q.cents), font: 'PlexMono', color: lookHex(markOf(q)).colour, alignment: 'right' },
-        ],
-      }, ...(q.expandedUncertaintyCents !== null ? [{ text: plusMinusText(q.expandedUncertaintyCents), font: 'PlexMono', fontSize: 7, color: SOFT, alignment: 'right' } as Content] : [])],
+      columns: [
+        { svg: markSvg(markOf(q), 7), width: 9, margin: [0, 2, 0, 0] },
+        { text: [{ text: formatCents(q.cents), color: lookHex(markOf(q)).colour }, { text: q.expandedUncertaintyCents !== null ? ` ${plusMinusText(q.expandedUncertaintyCents)}` : '', color: SOFT, fontSize: 7.5 }], font: 'PlexMono', alignment: 'right' },
+      ],
     })),
     lines(q => ({ text: `±${q.toleranceCents} ¢`, font: 'PlexMono', alignment: 'right' })),
     {
@@ -159,7 +158,7 @@ export async function certificateDocument(content: CertificateContent, status: s
         table: {
           headerRows: 1,
           dontBreakRows: true,
-          widths: [28, 58, '*', 58, 58, 50, 42, 40],
+          widths: [28, 52, '*', 54, 54, 84, 38, 52],
           body: [
             [
               { text: 'Note', style: 'th' },
