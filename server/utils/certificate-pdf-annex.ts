@@ -5,6 +5,7 @@ import { formatNumber } from '../../shared/format/numbers'
 import { decisionMeaning, lookHex } from '../../shared/look/meanings'
 import { markSvg } from '../../shared/look/markSvg'
 import { hex } from '../../shared/look/palette'
+import { statesExpandedUncertainty } from '../../shared/uncertainty/evidence'
 
 type Piece = CertificateContent['pieces'][number]
 const SOFT = hex('ink-soft')
@@ -59,7 +60,10 @@ function budgetTable(p: Piece): Content {
       `${l.distribution} (÷${l.divisor.toFixed(3)})`, { text: formatNumber(l.sensitivity, `¢/${l.unit}`, l.unit === 'ppm' ? 5 : l.unit === '¢' ? 0 : 2), alignment: 'right' },
       { text: formatNumber(l.contribution, '¢', 4), alignment: 'right' },
     ]))
-    body.push(['', { text: `u = ${formatNumber(b.combinedStandardUncertaintyCents, '¢', 4)}, U = k·u = ${formatNumber(b.expandedUncertaintyCents, '¢', 4)} (k = ${b.coverageFactor})`, bold: true, colSpan: 5 }, '', '', '', ''])
+    const total = statesExpandedUncertainty(b.notAssessed)
+      ? `u = ${formatNumber(b.combinedStandardUncertaintyCents, '¢', 4)}, U = k·u = ${formatNumber(b.expandedUncertaintyCents, '¢', 4)} (k = ${b.coverageFactor})`
+      : 'u and U not stated: the engine that measured this strike gave no estimate of its own'
+    body.push(['', { text: total, bold: true, colSpan: 5 }, '', '', '', ''])
     if (b.notAssessed.length) {
       body.push(['', { text: `Not assessed: ${b.notAssessed.map(g => `${g.name} (${g.reason})`).join('; ')}.`, colSpan: 5, color: SOFT }, '', '', '', ''])
     }

@@ -1,6 +1,6 @@
 import type { z } from 'zod'
 import type { CertificateBudgetSchema } from '../schemas/certificateContent'
-import { ASSUMED_TEMPERATURE_HALF_WIDTH_K, STORED_RESOLUTION_CENTS } from '../uncertainty/evidence'
+import { ASSUMED_TEMPERATURE_HALF_WIDTH_K, statesExpandedUncertainty, STORED_RESOLUTION_CENTS } from '../uncertainty/evidence'
 import { roundUpCents } from './uncertaintyText'
 
 type FrozenBudget = z.output<typeof CertificateBudgetSchema>
@@ -36,7 +36,8 @@ export const NOT_ACCREDITED = 'Tonewright is not an accredited calibration labor
  * component, what could not be assessed, and that Tonewright is not an accredited laboratory.
  */
 export function budgetUncertaintyText(pieces: { budget: FrozenBudget[] }[]): string {
-  const budgets = pieces.flatMap(p => p.budget)
+  const all = pieces.flatMap(p => p.budget)
+  const budgets = all.filter(b => statesExpandedUncertainty(b.notAssessed))
   if (!budgets.length) return `No partial was measured with a budget, so no measurement uncertainty is stated. ${NOT_ACCREDITED}`
   const expanded = budgets.map(b => b.expandedUncertaintyCents).sort((a, b) => a - b)
   const parts = [
@@ -52,6 +53,8 @@ export function budgetUncertaintyText(pieces: { budget: FrozenBudget[] }[]): str
     const list = [...gaps.entries()].sort((a, b) => a[0].localeCompare(b[0])).map(([name, n]) => `the ${name} for ${plural(n, 'partial', 'partials')}`).join(', ')
     parts.push(`Not assessed for want of evidence, and so left out of U rather than guessed: ${list}; there U understates the doubt.`)
   }
+  const unstated = all.length - budgets.length
+  if (unstated) parts.push(`For ${plural(unstated, 'partial', 'partials')} measured by an engine that gave no estimate of its own, no U is stated; the annex shows the rest of their budgets.`)
   parts.push('The annex lists every budget.', NOT_ACCREDITED)
   return parts.join(' ')
 }

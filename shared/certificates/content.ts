@@ -1,7 +1,7 @@
 import type { z } from 'zod'
 import type { PartialMatch, Verdict } from '../analysis/types'
 import type { CertificateContentSchema, CertificatePartialSchema, CertificatePieceSchema, RangeSchema } from '../schemas/certificateContent'
-import type { PieceBudget } from '../uncertainty/evidence'
+import { statesExpandedUncertainty, type PieceBudget } from '../uncertainty/evidence'
 import type { DecisionRule } from '../uncertainty/types'
 import { decisionRuleText, frozenBudgets, frozenCalibrations, frozenClock, frozenDecision } from './budgetContent'
 import { budgetUncertaintyText } from './budgetText'
@@ -70,6 +70,9 @@ function rangeOf(values: (number | null)[]): Range | null {
   return { min: round(Math.min(...present), 1), max: round(Math.max(...present), 1) }
 }
 
+const statedU = (b: { expandedUncertaintyCents: number, notAssessed: { name: string, reason: string }[] } | undefined) =>
+  b && statesExpandedUncertainty(b.notAssessed) ? b.expandedUncertaintyCents : null
+
 const signed = (n: number) => (n < 0 ? `−${Math.abs(n)}` : `+${n}`)
 
 /** The method in two sentences: what is measured and how. */
@@ -106,6 +109,8 @@ export function buildCertificateContent(input: ContentInput): CertificateContent
       : 'The templates set no temperature coefficient: deviations are as measured.'
   const engineVersions = [...new Set(input.pieces.map(p => p.strike.engineVersion))].sort()
   const withBudget = input.pieces.some(p => p.budget)
+  // The budget's paragraph needs at least one partial whose U can be stated; else the older paragraph says why none is.
+  const stated = input.pieces.some(p => p.budget?.partials.some(q => q.budget && statesExpandedUncertainty(q.notAssessed)))
   const rules = new Map(input.pieces.map(p => [`${p.template.name} (v${p.template.version})`, p.template.decisionRule ?? 'simple'] as const))
   const frozen = new Map(input.pieces.map(p => [p, p.budget ? frozenBudgets(p.budget) : []]))
   const clocks = frozenCalibrations(input.pieces.flatMap(p => (p.budget ? [p.budget] : [])))
@@ -128,7 +133,7 @@ export function buildCertificateContent(input: ContentInput): CertificateContent
     conditions: { temperatureC, humidityPct, strikeCount: input.pieces.length, normalisation, statement },
     method: methodText(engineVersions),
     decisionRule: withBudget ? decisionRuleText(rules) : DECISION_RULE,
-    uncertainty: withBudget
+    uncertainty: stated
       ? budgetUncertaintyText([...frozen.values()].map(budget => ({ budget })))
       : uncertaintyText(input.pieces.map(p => ({ engineVersion: p.strike.engineVersion, matches: p.strike.matches, partials: p.strike.partials ?? [] }))),
     engineVersions,
@@ -151,7 +156,7 @@ export function buildCertificateContent(input: ContentInput): CertificateContent
         required: m.required,
         within: m.within,
         missing: m.missing,
-        expandedUncertaintyCents: frozen.get(p)!.find(b => b.label === m.label)?.expandedUncertaintyCents ?? null,
+        expandedUncertaintyCents: statedU(frozen.get(p)!.find(b => b.label === m.label)),
       })),
       verdict: p.strike.verdict ?? 'incomplete',
       overrideReason: p.overrideReason,

@@ -64,3 +64,11 @@ export interface PieceBudget {
   verdictUnderOtherRule: DecisionVerdict | null
   dependsOnRule: boolean
 }
+
+/**
+ * Whether a partial's U may be stated: the engine's own estimate is the core of the budget, so a
+ * partial measured by an engine that gave none has its other lines shown but no U claimed.
+ */
+export function statesExpandedUncertainty(notAssessed: readonly NotAssessed[]): boolean {
+  return !notAssessed.some(g => g.name === 'estimator')
+}

@@ -66,4 +66,15 @@ describe('a certificate with budgets', () => {
     expect(c.uncertainty).toMatch(/not an accredited calibration laboratory/)
     expect(c.uncertainty).toMatch(/repeatability for 1 partial/)
   })
+
+  it('claims no U for a partial whose engine gave no estimate of its own, and falls back to the older paragraph when none has one', () => {
+    const base = input('simple')
+    const noEstimate = (p: ContentInput['pieces'][number]) => ({ ...p, budget: pieceBudget(budgetInput('simple', { matches: [{ label: 'fundamental', cents: 1, toleranceCents: 5, required: true, missing: false, uncertaintyCents: null }] })) })
+    const c = buildCertificateContent({ ...base, pieces: base.pieces.map(noEstimate) })
+    expect(c.pieces[0]!.partials[0]!.expandedUncertaintyCents).toBeNull()
+    expect(c.pieces[0]!.budget[0]!.notAssessed.map(g => g.name)).toContain('estimator')
+    expect(c.uncertainty).not.toMatch(/±/)
+    const mixed = buildCertificateContent({ ...base, pieces: [base.pieces[0]!, noEstimate(base.pieces[1]!)] })
+    expect(mixed.uncertainty).toMatch(/For 1 partial measured by an engine that gave no estimate of its own, no U is stated/)
+  })
 })
