@@ -129,6 +129,8 @@ describe('a piece\'s uncertainty budget, three strikes before review and the cer
     await sql`update workshops set calibration_valid_days = 365 where id = ${ctx.owner.workshopId}`
     const verified = await api(`/api/verify/${signed.body.code}`)
     expect(verified.body.hashMatches).toBe(true)
+    // The public check shows ± U beside each deviation, as the PDF does.
+    expect(verified.body.pieces[0].partials[0].expandedUncertaintyCents).toBeGreaterThan(0)
     const [row] = await sql`select content from certificates where id = ${signed.body.id}`
     expect(row!.content.calibrations[0]).toMatchObject({ device: 'Bench interface A', expired: true })
     expect(row!.content.pieces[0].budget[0].lines.length).toBeGreaterThanOrEqual(5)
