@@ -39,7 +39,16 @@ export function useBenchNextStep({ pieceId, piece, set, refreshPiece, refreshSet
   const busy = ref(false)
 
   const { role } = useMember()
-  const canReview = computed(() => canSendToReview(piece.value, role.value))
+  // The workshop may ask for three strikes of the piece's final form before review: say how many are left.
+  const readiness = ref<{ missing: number, advice: string | null } | null>(null)
+  watch(() => [piece.value?.id, piece.value?.strikeCount] as const, async ([id]) => {
+    readiness.value = id ? await api<{ missing: number, advice: string | null }>(`/api/pieces/${id}/review-readiness`).catch(() => null) : null
+  }, { immediate: true })
+  const strikesAdvice = computed(() => {
+    const advice = readiness.value?.advice
+    return advice && canSendToReview(piece.value, role.value) ? `${advice.charAt(0).toUpperCase()}${advice.slice(1)}.` : null
+  })
+  const canReview = computed(() => canSendToReview(piece.value, role.value) && !readiness.value?.missing)
   const nextPiece = computed(() => nextPieceAfter(set.value?.pieces ?? [], pieceId.value))
 
   function goTo(id: string) {
@@ -66,5 +75,5 @@ export function useBenchNextStep({ pieceId, piece, set, refreshPiece, refreshSet
     }
   }
 
-  return { message, problem, busy, canReview, nextPiece, goTo, sendToReview }
+  return { message, problem, busy, canReview, strikesAdvice, nextPiece, goTo, sendToReview }
 }

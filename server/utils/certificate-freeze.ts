@@ -12,6 +12,7 @@ import { parseStoredAnalysis } from '../../shared/schemas/analysis'
 import type { Member } from './auth'
 import { approvalPending } from './approval-window'
 import { fail } from './http-errors'
+import { budgetAtStrike } from './piece-budget'
 
 /** A re-issue names the valid certificate it replaces and says why. */
 export interface Reissue { id: string, reason: string }
@@ -139,6 +140,12 @@ export async function freezeCertificate(tx: Executor, member: Member, setId: str
   const signedAt = new Date()
   const number = await nextNumber(tx, member.workshopId, signedAt.getUTCFullYear())
   const code = newVerificationCode()
+  // Each piece's budget is frozen with the certificate, so verification and re-renders never change it.
+  const budgets = new Map<string, Awaited<ReturnType<typeof budgetAtStrike>>>()
+  for (const { piece, template } of live) {
+    const strike = strikeById.get(piece.approvedStrikeId!)
+    if (strike) budgets.set(piece.id, await budgetAtStrike(tx, member.workshopId, piece.id, strike, template, workshop.calibrationValidDays))
+  }
   const content = buildCertificateContent({
     number, verificationUrl: verificationUrl(siteUrl, code), supersedes: previous?.number ?? null, signedAt,
     signer: { name: member.name, role: ROLE_LABELS[member.role] },
@@ -152,6 +159,7 @@ export async function freezeCertificate(tx: Executor, member: Member, setId: str
         position: piece.position, note: piece.note, targetHz: piece.targetHz, lotId: piece.lotId, template,
         strike: { temperatureC: strike.temperatureC, humidityPct: strike.humidityPct, verdict: strike.verdict, engineVersion: strike.engineVersion, matches: analysis.matches ?? [], partials: analysis.partials },
         overrideReason: overrideByStrike.get(strike.id) ?? null,
+        budget: budgets.get(piece.id),
       }
     }),
   })

@@ -8,6 +8,7 @@ import { CERTIFICATE_MEANING, lookHex, PARTIAL_MEANING, verdictMeaning, type Mea
 import { markSvg } from '../../shared/look/markSvg'
 import { hex, WHITE } from '../../shared/look/palette'
 import { CERTIFICATE_STATUSES, isOneOf } from '../../shared/records/lists'
+import { budgetAnnex, calibrationBlock, decisionCell, plusMinusText } from './certificate-pdf-annex'
 import { configurePdfFonts } from './certificate-pdf-fonts'
 
 export type Paper = 'A4' | 'LETTER'
@@ -47,16 +48,17 @@ function pieceRow(p: CertificateContent['pieces'][number]): TableCell[] {
     lines(q => ({ text: q.required ? q.label : `${q.label} (reported)`, noWrap: false })),
     lines(q => ({ text: hz(q.targetHz), font: 'PlexMono', alignment: 'right', color: SOFT })),
     lines(q => ({ text: hz(q.measuredHz), font: 'PlexMono', alignment: 'right' })),
+    // ± U on the deviation's own line, so each partial stays on one line across the columns.
     lines(q => ({
       columns: [
         { svg: markSvg(markOf(q), 7), width: 9, margin: [0, 2, 0, 0] },
-        { text: formatCents(q.cents), font: 'PlexMono', color: lookHex(markOf(q)).colour, alignment: 'right' },
+        { text: [{ text: formatCents(q.cents), color: lookHex(markOf(q)).colour }, { text: q.expandedUncertaintyCents !== null ? ` ${plusMinusText(q.expandedUncertaintyCents)}` : '', color: SOFT, fontSize: 7.5 }], font: 'PlexMono', alignment: 'right' },
       ],
     })),
     lines(q => ({ text: `±${q.toleranceCents} ¢`, font: 'PlexMono', alignment: 'right' })),
     {
       stack: [
-        { text: verdictText, bold: true, color: verdictColour(p) },
+        ...(p.decision ? decisionCell(p) : [{ text: verdictText, bold: true, color: verdictColour(p) }]),
         ...(p.overrideReason ? [{ text: `approved with override: ${p.overrideReason}`, fontSize: 7, color: SOFT }] : []),
       ],
     },
@@ -156,7 +158,7 @@ export async function certificateDocument(content: CertificateContent, status: s
         table: {
           headerRows: 1,
           dontBreakRows: true,
-          widths: [28, 58, '*', 58, 58, 50, 42, 40],
+          widths: [28, 52, '*', 54, 54, 84, 38, 52],
           body: [
             [
               { text: 'Note', style: 'th' },
@@ -179,12 +181,13 @@ export async function certificateDocument(content: CertificateContent, status: s
           paddingBottom: () => 3,
         },
       },
-      { text: 'Deviation Δ = 1200 · log2(measured ÷ target), in cents (¢). Marks: filled circle within the tolerance, up triangle sharp and down triangle flat outside it, hollow square not found.', style: 'small', margin: [0, 4, 0, 0] },
+      { text: 'Deviation Δ = 1200 · log2(measured ÷ target), in cents (¢), with its expanded uncertainty ± U (k = 2) below it where a budget was made. Marks: filled circle within the tolerance, up triangle sharp and down triangle flat outside it, hollow square not found, half-filled circle conditional (the tolerance lies within ± U).', style: 'small', margin: [0, 4, 0, 0] },
       {
         unbreakable: true,
         stack: [
           heading('Decision rule'),
           { text: content.decisionRule },
+          ...calibrationBlock(content),
           heading('Measurement uncertainty'),
           { text: content.uncertainty },
           heading('Signature'),
@@ -199,6 +202,7 @@ export async function certificateDocument(content: CertificateContent, status: s
           { text: content.scope, margin: [0, 14, 0, 0], bold: true },
         ],
       },
+      ...budgetAnnex(content),
     ],
   }
 }

@@ -47,7 +47,7 @@ export async function verifyCertificate(db: Executor, code: string) {
     pieces: (content?.pieces ?? []).map(p => ({
       position: p.position, note: p.note, targetHz: p.targetHz, verdict: p.verdict,
       worstCents: p.partials.reduce<number | null>((w, q) => (q.cents !== null && (w === null || Math.abs(q.cents) > Math.abs(w)) ? q.cents : w), null),
-      partials: p.partials.map(q => ({ label: q.label, cents: q.cents, toleranceCents: q.toleranceCents, within: q.within, missing: q.missing, required: q.required })),
+      partials: p.partials.map(q => ({ label: q.label, cents: q.cents, expandedUncertaintyCents: q.expandedUncertaintyCents, toleranceCents: q.toleranceCents, within: q.within, missing: q.missing, required: q.required })),
     })),
     hash: cert.contentHash,
     hashMatches: parsed.success && hashMatches(cert.contentHash, recomputed),

@@ -7,6 +7,7 @@ import { arrivalProblem, assigneeAfter, assigneeProblem, stagePath, type PieceSt
 import type { Member } from './auth'
 import { audit } from './audit'
 import { fail } from './http-errors'
+import { reviewStrikesProblem } from './review-readiness'
 
 const SORTS: Record<string, SQL[]> = {
   'position': [asc(sets.createdAt), asc(pieces.position)],
@@ -116,6 +117,8 @@ async function movePiece(tx: Executor, member: Member, pieceId: string, to: Piec
   if (notYours) fail(403, `${label} ${notYours}`)
   const notYet = arrivalProblem(to, piece.strikeCount)
   if (notYet) fail(409, `${label} ${notYet}`)
+  const fewStrikes = to === 'review' ? await reviewStrikesProblem(tx, member.workshopId, pieceId) : null
+  if (fewStrikes) fail(409, `${label}: ${fewStrikes}`)
   const assigneeId = assigneeAfter(member.role, member.userId, piece.assigneeId)
   const [updated] = await tx.update(pieces).set({ stage: to, assigneeId, updatedAt: new Date() }).where(eq(pieces.id, pieceId)).returning()
   // Each step of a composite move is audited as the plain move it stands for.

@@ -10,7 +10,7 @@ async function insertVersion(tx: Executor, workshopId: string, templateId: strin
   const [row] = await tx.insert(templateVersions).values({
     workshopId, templateId, version, name: input.name, family: input.family, partials: input.partials,
     searchWindowCents: input.searchWindowCents, referenceTemperatureC: input.referenceTemperatureC,
-    temperatureCoefficientCentsPerC: input.temperatureCoefficientCentsPerC, notes: input.notes, source: input.source,
+    temperatureCoefficientCentsPerC: input.temperatureCoefficientCentsPerC, decisionRule: input.decisionRule, notes: input.notes, source: input.source,
     createdBy: actorId,
   }).returning()
   return row!
@@ -71,5 +71,5 @@ export async function currentVersionOf(db: Executor, workshopId: string, templat
 
 /** What every new workshop starts with: the starter ratio-template library, added in the transaction that creates it. */
 export async function addStarterTemplates(tx: Executor, workshopId: string, actorId: string | null) {
-  for (const t of STARTER_TEMPLATES) await createTemplateIn(tx, workshopId, actorId, t)
+  for (const t of STARTER_TEMPLATES) await createTemplateIn(tx, workshopId, actorId, { ...t, decisionRule: 'simple' })
 }

@@ -9,6 +9,7 @@ import { fail } from './http-errors'
 const SETTINGS_COLUMNS = {
   timeZone: workshops.timeZone, locale: workshops.locale, temperatureUnit: workshops.temperatureUnit, referenceHz: workshops.referenceHz,
   calibrationValidDays: workshops.calibrationValidDays,
+  repeatStrikesBeforeReview: workshops.repeatStrikesBeforeReview,
 }
 
 /** A workshop's time zone, date locale, temperature unit and default reference pitch. */

@@ -1,6 +1,10 @@
 import type { z } from 'zod'
 import type { PartialMatch, Verdict } from '../analysis/types'
 import type { CertificateContentSchema, CertificatePartialSchema, CertificatePieceSchema, RangeSchema } from '../schemas/certificateContent'
+import { statesExpandedUncertainty, type PieceBudget } from '../uncertainty/evidence'
+import type { DecisionRule } from '../uncertainty/types'
+import { decisionRuleText, frozenBudgets, frozenCalibrations, frozenClock, frozenDecision } from './budgetContent'
+import { budgetUncertaintyText } from './budgetText'
 import { uncertaintyText, type StoredPartial } from './uncertaintyText'
 
 /** One tuned partial of one piece as frozen on a certificate. */
@@ -40,7 +44,7 @@ export interface ContentInput {
     note: string
     targetHz: number
     lotId: string | null
-    template: { name: string, version: number, referenceTemperatureC: number, temperatureCoefficientCentsPerC: number }
+    template: { name: string, version: number, referenceTemperatureC: number, temperatureCoefficientCentsPerC: number, decisionRule?: DecisionRule }
     strike: {
       temperatureC: number | null
       humidityPct: number | null
@@ -51,6 +55,8 @@ export interface ContentInput {
       partials?: StoredPartial[]
     }
     overrideReason: string | null
+    /** The piece's budget at its approved strike (absent: a certificate without budgets, the simple rule). */
+    budget?: PieceBudget
   }[]
 }
 
@@ -63,6 +69,9 @@ function rangeOf(values: (number | null)[]): Range | null {
   if (!present.length) return null
   return { min: round(Math.min(...present), 1), max: round(Math.max(...present), 1) }
 }
+
+const statedU = (b: { expandedUncertaintyCents: number, notAssessed: { name: string, reason: string }[] } | undefined) =>
+  b && statesExpandedUncertainty(b.notAssessed) ? b.expandedUncertaintyCents : null
 
 const signed = (n: number) => (n < 0 ? `−${Math.abs(n)}` : `+${n}`)
 
@@ -99,6 +108,12 @@ export function buildCertificateContent(input: ContentInput): CertificateContent
       ? `Deviations are normalised to the template's reference temperature: ${withCoefficient.map(n => `${n.referenceTemperatureC} °C at ${signed(n.coefficientCentsPerC)} ¢/°C for ${n.template}`).join('; ')}.`
       : 'The templates set no temperature coefficient: deviations are as measured.'
   const engineVersions = [...new Set(input.pieces.map(p => p.strike.engineVersion))].sort()
+  const withBudget = input.pieces.some(p => p.budget)
+  // The budget's paragraph needs at least one partial whose U can be stated; else the older paragraph says why none is.
+  const stated = input.pieces.some(p => p.budget?.partials.some(q => q.budget && statesExpandedUncertainty(q.notAssessed)))
+  const rules = new Map(input.pieces.map(p => [`${p.template.name} (v${p.template.version})`, p.template.decisionRule ?? 'simple'] as const))
+  const frozen = new Map(input.pieces.map(p => [p, p.budget ? frozenBudgets(p.budget) : []]))
+  const clocks = frozenCalibrations(input.pieces.flatMap(p => (p.budget ? [p.budget] : [])))
   const range = input.set.fromNote === input.set.toNote
     ? input.set.fromNote
     : `${input.set.fromNote}–${input.set.toNote}${input.set.chromatic ? ', chromatic' : ', naturals'}`
@@ -117,9 +132,13 @@ export function buildCertificateContent(input: ContentInput): CertificateContent
     temperament: input.set.temperament === 'equal' ? 'equal temperament' : input.set.temperament,
     conditions: { temperatureC, humidityPct, strikeCount: input.pieces.length, normalisation, statement },
     method: methodText(engineVersions),
-    decisionRule: DECISION_RULE,
-    uncertainty: uncertaintyText(input.pieces.map(p => ({ engineVersion: p.strike.engineVersion, matches: p.strike.matches, partials: p.strike.partials ?? [] }))),
+    decisionRule: withBudget ? decisionRuleText(rules) : DECISION_RULE,
+    uncertainty: stated
+      ? budgetUncertaintyText([...frozen.values()].map(budget => ({ budget })))
+      : uncertaintyText(input.pieces.map(p => ({ engineVersion: p.strike.engineVersion, matches: p.strike.matches, partials: p.strike.partials ?? [] }))),
     engineVersions,
+    calibrations: clocks.calibrations,
+    uncalibratedPieceCount: withBudget ? clocks.uncalibratedPieceCount : null,
     pieces: [...input.pieces].sort((a, b) => a.position - b.position).map(p => ({
       position: p.position,
       note: p.note,
@@ -137,9 +156,13 @@ export function buildCertificateContent(input: ContentInput): CertificateContent
         required: m.required,
         within: m.within,
         missing: m.missing,
+        expandedUncertaintyCents: statedU(frozen.get(p)!.find(b => b.label === m.label)),
       })),
       verdict: p.strike.verdict ?? 'incomplete',
       overrideReason: p.overrideReason,
+      decision: p.budget ? frozenDecision(p.budget) : null,
+      budget: frozen.get(p)!,
+      clock: p.budget ? frozenClock(p.budget) : null,
     })),
     signer: input.signer,
     signedAt: input.signedAt.toISOString(),

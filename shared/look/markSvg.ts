@@ -13,6 +13,7 @@ const SHAPES: Record<Shape, (colour: string, edge: string) => string> = {
   'cross': c => `<path d="M3 3l8 8M11 3l-8 8" stroke="${c}" stroke-width="2.4"/>`,
   'clock': c => `<g fill="none" stroke="${c}" stroke-width="1.6"><circle cx="7" cy="7" r="5.5"/><path d="M7 3.8V7l2.2 1.6"/></g>`,
   'return-arrow': c => `<g fill="none" stroke="${c}" stroke-width="1.8" stroke-linecap="round" stroke-linejoin="round"><path d="M3.2 5.2A4.6 4.6 0 1 1 2.6 8.4"/><path d="M2.6 2.2v3.2h3.2"/></g>`,
+  'half-disc': c => `<circle cx="7" cy="7" r="5.5" fill="none" stroke="${c}" stroke-width="1.6"/><path d="M7 1.5a5.5 5.5 0 0 0 0 11z" fill="${c}"/>`,
   'swatch': c => `<rect x="1" y="1" width="12" height="12" rx="2" fill="${c}"/>`,
   'warning-sign': (c, edge) => `<polygon points="7,1.2 13,12.6 1,12.6" fill="${c}" stroke="${edge}" stroke-width="1.4" stroke-linejoin="round"/><path d="M7 5v3.6M7 10.2v.9" stroke="${edge}" stroke-width="1.6"/>`,
 }

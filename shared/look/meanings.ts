@@ -11,7 +11,7 @@ import { familyOf, hex, type Family, type Tone } from './palette'
  * message families (madder, heather) belong to their group alone, so a verdict never
  * looks like an error, a notice, a piece of advice or a stage.
  */
-export type Shape = 'disc' | 'triangle-up' | 'triangle-down' | 'open-square' | 'ring' | 'crossed-square' | 'check' | 'cross' | 'clock' | 'dot-ring' | 'swatch' | 'warning-sign' | 'return-arrow'
+export type Shape = 'disc' | 'triangle-up' | 'triangle-down' | 'open-square' | 'ring' | 'crossed-square' | 'check' | 'cross' | 'clock' | 'dot-ring' | 'swatch' | 'warning-sign' | 'return-arrow' | 'half-disc'
 
 export type LookGroup = 'verdict' | 'stage' | 'status' | 'message' | 'advice'
 
@@ -50,6 +50,8 @@ export const MEANINGS = {
   within: look('verdict', { colour: 'spruce-500', text: 'spruce-700', tint: 'spruce-50', edge: 'spruce-100', marker: 'spruce-600' }, 'disc', 'within'),
   sharp: look('verdict', { colour: 'kiln-500', text: 'kiln-700', tint: 'kiln-50', edge: 'kiln-100' }, 'triangle-up', 'sharp'),
   flat: look('verdict', { colour: 'slate-500', text: 'slate-700', tint: 'slate-50', edge: 'slate-100' }, 'triangle-down', 'flat'),
+  // Under guarded acceptance: the tolerance lies within the deviation ± U, so neither pass nor fail can be claimed.
+  conditional: look('verdict', { colour: 'lichen-500', text: 'lichen-700', tint: 'lichen-50', edge: 'lichen-100' }, 'half-disc', 'conditional'),
   missing: look('verdict', { colour: 'ink-faint', text: 'ink-soft', tint: 'paper-deep', edge: 'paper-line' }, 'open-square', 'missing'),
   // Piece stages: paper before tuning, brass while tuned, lagoon once signed off,
   // mulberry when sent back, greyed ink when out of the flow.
@@ -103,6 +105,14 @@ export function verdictMeaning(verdict: PieceVerdict, worstCents: number | null 
   if (verdict === 'within') return 'within'
   if (verdict === 'incomplete' || worstCents === null || worstCents === undefined) return 'missing'
   return worstCents > 0 ? 'sharp' : 'flat'
+}
+
+/** A verdict under a decision rule: pass looks within, fail sharp or flat by the deviation's sign, conditional its own; none is missing. */
+export function decisionMeaning(verdict: 'pass' | 'conditional' | 'fail' | null, cents: number | null): Meaning {
+  if (verdict === null || cents === null) return 'missing'
+  if (verdict === 'pass') return 'within'
+  if (verdict === 'conditional') return 'conditional'
+  return cents > 0 ? 'sharp' : 'flat'
 }
 
 /** A look's colours as hex, for canvas charts, e-mails and the PDF. */

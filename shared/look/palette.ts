@@ -6,7 +6,7 @@
  * common colour-vision deficiencies, and shape and text carry the verdict as well);
  * brass is the accent and the mark of advice (where to remove material); madder is for errors, heather for notices,
  * signal (safety yellow, drawn with an ink edge as warning signs are) for warnings and cautions, lagoon for what is
- * finished well, mulberry for what was sent back or withdrawn (a piece returned for rework, a revoked certificate, a set
+ * finished well, lichen for a conditional verdict (the tolerance lies within the measurement's ± U), mulberry for what was sent back or withdrawn (a piece returned for rework, a revoked certificate, a set
  * booked back in for service). The chart series (walnut, olive, rose, steel) stand for no
  * meaning: they only tell one curve from another.
  */
@@ -22,6 +22,7 @@ export const PALETTE = {
   signal: { 50: '#fdf6d3', 100: '#f5e08c', 400: '#f0c20c', 800: '#5a4700' },
   lagoon: { 50: '#e5f2f3', 100: '#c2e0e3', 400: '#3e97a0', 500: '#1f7580', 600: '#1a636b', 700: '#134a50' },
   mulberry: { 50: '#f6e9f1', 100: '#e9c9dd', 500: '#8f3a72', 600: '#7a2f61', 700: '#64264f' },
+  lichen: { 50: '#f2f4e0', 100: '#dde4b0', 500: '#6f7d12', 700: '#4a540b' },
   series: { walnut: '#7a4e2d', olive: '#66761f', rose: '#b0607a', steel: '#4f6e7a' },
 } as const
 

@@ -4,6 +4,7 @@ import { COMPOSITE_MOVES, isCompositeMove, PIECE_STAGES } from '../records/stage
 import { PIECE_VERDICTS, TEMPLATE_FAMILIES } from '../records/lists'
 import { wordsOr } from '../format/words'
 import { permitProblem } from '../records/listedTimber'
+import { DECISION_RULES } from '../uncertainty/types'
 
 export const finite = (what: string) => z.number({ required_error: `Enter ${what}`, invalid_type_error: `${what} must be a number` }).finite(`${what} must be a number`)
 
@@ -22,6 +23,7 @@ export const TemplateInputSchema = z.object({
   searchWindowCents: finite('the search window').min(5, 'The search window must be at least 5 ¢').max(600, 'The search window must be at most 600 ¢').default(80),
   referenceTemperatureC: finite('the reference temperature').min(-10, 'The reference temperature must be between −10 and 50 °C').max(50, 'The reference temperature must be between −10 and 50 °C').default(20),
   temperatureCoefficientCentsPerC: finite('the temperature coefficient').min(-10, 'The temperature coefficient must be between −10 and 10 ¢/°C').max(10, 'The temperature coefficient must be between −10 and 10 ¢/°C').default(0),
+  decisionRule: z.enum(DECISION_RULES, { errorMap: () => ({ message: `Choose a decision rule: ${wordsOr(DECISION_RULES)}` }) }).default('simple'),
   notes: z.string().max(2000, 'Notes are at most 2000 characters').default(''),
   source: z.string().max(2000, 'The source is at most 2000 characters').default(''),
 })

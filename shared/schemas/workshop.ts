@@ -21,6 +21,8 @@ export const WorkshopSettingsSchema = z.object({
   referenceHz: finite('the default reference pitch').min(WORKSHOP_REFERENCE_HZ.min, PITCH_RANGE).max(WORKSHOP_REFERENCE_HZ.max, PITCH_RANGE),
   calibrationValidDays: z.number({ invalid_type_error: 'The calibration interval must be a number of days' }).int('The calibration interval is a whole number of days')
     .min(CALIBRATION_VALID_DAYS.min, CALIBRATION_RANGE).max(CALIBRATION_VALID_DAYS.max, CALIBRATION_RANGE),
+  /** Ask for three strikes of a piece in its final form before it may go to review (the budget's repeatability). */
+  repeatStrikesBeforeReview: z.boolean({ invalid_type_error: 'Asking for three strikes before review is on or off (true or false)' }),
 })
 export type WorkshopSettings = z.infer<typeof WorkshopSettingsSchema>
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import {
   CERTIFICATE_MEANING, CERTIFICATE_PDF_MEANING, lookClassNames, lookHex, lookTones, MAIL_MEANING, MEANINGS,
-  MESSAGE_MEANING, MESSAGE_TONES, NEUTRAL_FAMILIES, PARTIAL_MEANING, REANALYSIS_MEANING, STAGE_MEANING, verdictMeaning, type Look, type Meaning,
+  decisionMeaning, MESSAGE_MEANING, MESSAGE_TONES, NEUTRAL_FAMILIES, PARTIAL_MEANING, REANALYSIS_MEANING, STAGE_MEANING, verdictMeaning, type Look, type Meaning,
 } from '../../../../shared/look/meanings'
 import { familyOf, hex, PALETTE, SERIES_TONES } from '../../../../shared/look/palette'
 import {
@@ -98,6 +98,16 @@ describe('the meaning map', () => {
     }
     // Each stage has a meaning of its own.
     expect(new Set(PIECE_STAGES.map(s => STAGE_MEANING[s])).size).toBe(PIECE_STAGES.length)
+  })
+
+  it('gives a conditional verdict a look of its own: colour, shape and word', () => {
+    const others = entries.filter(([m]) => m !== 'conditional')
+    expect(MEANINGS.conditional.group).toBe('verdict')
+    expect(others.map(([, l]) => l.shape)).not.toContain(MEANINGS.conditional.shape)
+    expect(others.map(([, l]) => hex(l.colour))).not.toContain(hex(MEANINGS.conditional.colour))
+    expect(MEANINGS.conditional.word).toBe('conditional')
+    expect([decisionMeaning('pass', 4), decisionMeaning('conditional', 4.6), decisionMeaning('fail', 6), decisionMeaning('fail', -6), decisionMeaning(null, null)])
+      .toEqual(['within', 'conditional', 'sharp', 'flat', 'missing'])
   })
 
   it('writes text that reads on paper and on each stage colour', () => {

@@ -8,10 +8,10 @@ describe('workshop settings', () => {
     const owner = await newWorkshop('Settings check works')
     const first = await api(URL, { token: owner.token })
     expect(first.status).toBe(200)
-    expect(first.body).toEqual({ timeZone: 'UTC', locale: 'en-GB', temperatureUnit: 'C', referenceHz: 440, calibrationValidDays: 90 })
-    const changed = await api(URL, { method: 'PATCH', token: owner.token, body: { timeZone: 'Europe/Berlin', locale: 'de-DE', temperatureUnit: 'F', referenceHz: 442, calibrationValidDays: 30 } })
+    expect(first.body).toEqual({ timeZone: 'UTC', locale: 'en-GB', temperatureUnit: 'C', referenceHz: 440, calibrationValidDays: 90, repeatStrikesBeforeReview: false })
+    const changed = await api(URL, { method: 'PATCH', token: owner.token, body: { timeZone: 'Europe/Berlin', locale: 'de-DE', temperatureUnit: 'F', referenceHz: 442, calibrationValidDays: 30, repeatStrikesBeforeReview: true } })
     expect(changed.status).toBe(200)
-    expect(changed.body).toEqual({ timeZone: 'Europe/Berlin', locale: 'de-DE', temperatureUnit: 'F', referenceHz: 442, calibrationValidDays: 30 })
+    expect(changed.body).toEqual({ timeZone: 'Europe/Berlin', locale: 'de-DE', temperatureUnit: 'F', referenceHz: 442, calibrationValidDays: 30, repeatStrikesBeforeReview: true })
     // A partial change keeps the rest.
     const pitch = await api(URL, { method: 'PATCH', token: owner.token, body: { referenceHz: 443 } })
     expect(pitch.body).toMatchObject({ timeZone: 'Europe/Berlin', referenceHz: 443 })
@@ -42,6 +42,7 @@ describe('workshop settings', () => {
       [{ timeZone: 'Europe/Berlin', referenceHz: 414.9 }, /415.*466/],
       [{ referenceHz: 500 }, /415.*466/],
       [{ referenceHz: 'high' }, /number/i],
+      [{ repeatStrikesBeforeReview: 'yes' }, /three strikes/i],
       [{}, /nothing to change/i],
       [{ timeZone: 'UTC', colour: 'red' }, /colour/],
       [{ calibrationValidDays: 0 }, /1 and 3650 days/],
@@ -54,7 +55,7 @@ describe('workshop settings', () => {
       expect(reply.status, JSON.stringify(body)).toBe(400)
       expect(JSON.stringify(reply.body), JSON.stringify(body)).toMatch(message)
     }
-    expect((await api(URL, { token: owner.token })).body).toEqual({ timeZone: 'UTC', locale: 'en-GB', temperatureUnit: 'C', referenceHz: 440, calibrationValidDays: 90 })
+    expect((await api(URL, { token: owner.token })).body).toEqual({ timeZone: 'UTC', locale: 'en-GB', temperatureUnit: 'C', referenceHz: 440, calibrationValidDays: 90, repeatStrikesBeforeReview: false })
   })
 
   it('refuses an oversized body before reading it', async () => {
