@@ -10,12 +10,12 @@ const LIST_LIMIT = 2000
 
 const VIEW_COLUMNS = {
   id: calibrations.id, device: calibrations.device, referenceHz: calibrations.referenceHz,
-  referenceUncertaintyPpm: calibrations.referenceUncertaintyPpm, measuredHz: calibrations.measuredHz,
+  referenceUncertaintyPpm: calibrations.referenceUncertaintyPpm, referenceDescription: calibrations.referenceDescription, measuredHz: calibrations.measuredHz,
   offsetPpm: calibrations.offsetPpm, uncertaintyPpm: calibrations.uncertaintyPpm, createdAt: calibrations.createdAt,
   operatorName: users.name, validDays: workshops.calibrationValidDays,
 }
 
-type ViewRow = Pick<Calibration, 'id' | 'device' | 'referenceHz' | 'referenceUncertaintyPpm' | 'measuredHz' | 'offsetPpm' | 'uncertaintyPpm' | 'createdAt'>
+type ViewRow = Pick<Calibration, 'id' | 'device' | 'referenceHz' | 'referenceUncertaintyPpm' | 'referenceDescription' | 'measuredHz' | 'offsetPpm' | 'uncertaintyPpm' | 'createdAt'>
   & { operatorName: string | null, validDays: number }
 
 function viewOf({ createdAt, validDays, ...row }: ViewRow, now: Date): CalibrationView {

@@ -31,6 +31,7 @@ export async function createCalibration(db: Database, workshopId: string, actorI
       device: input.device,
       referenceHz: input.referenceHz,
       referenceUncertaintyPpm: input.referenceUncertaintyPpm ?? 0,
+      referenceDescription: input.reference,
       measuredHz: offset.measuredHz,
       offsetPpm: offset.offsetPpm,
       uncertaintyPpm: offset.uncertaintyPpm,

@@ -11,6 +11,7 @@ const numberField = <S extends z.ZodTypeAny>(schema: S) => z.preprocess(
 export const CalibrationFieldsSchema = z.object({
   referenceHz: numberField(finite('the reference frequency').min(20, 'The reference frequency must be between 20 and 20 000 Hz').max(20000, 'The reference frequency must be between 20 and 20 000 Hz')),
   device: z.string({ required_error: 'Name the input device' }).trim().min(1, 'Name the input device').max(120, 'A device name is at most 120 characters'),
+  reference: z.string({ invalid_type_error: 'Describe the reference in words' }).trim().max(300, 'A reference description is at most 300 characters').default(''),
   referenceUncertaintyPpm: numberField(finite('the reference uncertainty').min(0, 'The reference uncertainty must be between 0 and 1000 ppm').max(1000, 'The reference uncertainty must be between 0 and 1000 ppm').optional()),
 })
 export type CalibrationFields = z.infer<typeof CalibrationFieldsSchema>
@@ -36,6 +37,8 @@ export interface CalibrationView {
   device: string
   referenceHz: number
   referenceUncertaintyPpm: number
+  /** What the reference tone came from, in the workshop's words ('' when not given). */
+  referenceDescription: string
   measuredHz: number
   offsetPpm: number
   uncertaintyPpm: number

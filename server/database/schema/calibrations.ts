@@ -12,6 +12,8 @@ export const calibrations = pgTable('calibrations', {
   referenceHz: doublePrecision('reference_hz').notNull(),
   /** The reference's stated standard uncertainty, ppm (0 when not given). */
   referenceUncertaintyPpm: doublePrecision('reference_uncertainty_ppm').notNull().default(0),
+  /** The workshop's words for its reference (what the tone came from and what it is locked to). */
+  referenceDescription: text('reference_description').notNull().default(''),
   measuredHz: doublePrecision('measured_hz').notNull(),
   /** Positive: the input reads high. */
   offsetPpm: doublePrecision('offset_ppm').notNull(),

@@ -24,6 +24,7 @@ const SAMPLE_RATE = 48000
 /** The workshop's reference: a 1 kHz generator with an oven crystal, stated ± 0.4 ppm (invented). */
 const REFERENCE_HZ = 1000
 const REFERENCE_UNCERTAINTY_PPM = 0.4
+const REFERENCE_DESCRIPTION = 'Bench signal generator locked to the workshop\'s GPS-disciplined 10 MHz clock'
 
 /**
  * Each input's calibrations over the past months, measured from synthetic reference tones
@@ -36,7 +37,7 @@ export async function seedDemoCalibrations(db: Transaction, workshopId: string, 
     const tone = synthStrike([{ frequencyHz: REFERENCE_HZ * (1 + h.offsetPpm * 1e-6), amplitudeDb: -6, decayDbPerS: 0 }], { sampleRate: SAMPLE_RATE, durationS: 4, noiseDb: -45, seed: 71 + i })
     const offset = measureClockOffset(tone, SAMPLE_RATE, REFERENCE_HZ, { referenceUncertaintyPpm: REFERENCE_UNCERTAINTY_PPM })
     await db.insert(calibrations).values({
-      workshopId, device: h.device, referenceHz: REFERENCE_HZ, referenceUncertaintyPpm: REFERENCE_UNCERTAINTY_PPM,
+      workshopId, device: h.device, referenceHz: REFERENCE_HZ, referenceUncertaintyPpm: REFERENCE_UNCERTAINTY_PPM, referenceDescription: REFERENCE_DESCRIPTION,
       measuredHz: offset.measuredHz, offsetPpm: offset.offsetPpm, uncertaintyPpm: offset.uncertaintyPpm, operatorId,
       createdAt: new Date(now - h.daysAgo * 86_400_000),
     })

@@ -17,11 +17,11 @@ function form(bytes: Uint8Array | null, fields: Record<string, string>) {
 
 // The check of issue 15: a 1000 Hz reference on an input that reads 300 ppm high, SNR ≈ 31 dB (−6 dBFS peak tone, −40 dBFS noise).
 const tone = encodeWav(synthStrike([{ frequencyHz: 1000 * (1 + 300e-6), amplitudeDb: -6, decayDbPerS: 0 }], { sampleRate: 48000, durationS: 6, noiseDb: -40, seed: 9 }), 48000)
-const fields = { referenceHz: '1000', device: 'Bench interface, input 1', referenceUncertaintyPpm: '0.5' }
+const fields = { referenceHz: '1000', device: 'Bench interface, input 1', referenceUncertaintyPpm: '0.5', reference: 'Signal generator on the workshop clock' }
 
 async function rowsOf(workshopToken: string) {
   const session = await api('/api/auth/session', { token: workshopToken })
-  return sql`select device, offset_ppm, uncertainty_ppm, reference_uncertainty_ppm from calibrations c join memberships m on m.workshop_id = c.workshop_id where m.user_id = ${session.body.id}`
+  return sql`select device, offset_ppm, uncertainty_ppm, reference_uncertainty_ppm, reference_description from calibrations c join memberships m on m.workshop_id = c.workshop_id where m.user_id = ${session.body.id}`
 }
 
 describe('POST /api/calibrations', () => {
@@ -44,6 +44,7 @@ describe('POST /api/calibrations', () => {
     expect(rows).toHaveLength(1)
     expect(rows[0]!.device).toBe('Bench interface, input 1')
     expect(rows[0]!.offset_ppm).toBeCloseTo(reply.body.offsetPpm, 9)
+    expect(rows[0]!.reference_description).toBe('Signal generator on the workshop clock')
   })
 
   it('refuses bad fields with a plain sentence before measuring, and stores nothing', async () => {
@@ -53,6 +54,7 @@ describe('POST /api/calibrations', () => {
       { ...fields, referenceHz: '5' },
       { ...fields, device: '   ' },
       { ...fields, referenceUncertaintyPpm: '-1' },
+      { ...fields, reference: 'x'.repeat(301) },
       { referenceHz: '1000' },
     ]) {
       const reply = await api('/api/calibrations', { method: 'POST', token: benchmaker, body: form(tone, bad) })

@@ -6,8 +6,8 @@ const sql = postgres(process.env.NUXT_DATABASE_URL!, { max: 1, onnotice: () => {
 afterAll(() => sql.end())
 
 async function stored(workshopId: string, device: string, offsetPpm: number, daysAgo: number, operatorId: string | null = null) {
-  await sql`insert into calibrations (workshop_id, device, reference_hz, reference_uncertainty_ppm, measured_hz, offset_ppm, uncertainty_ppm, operator_id, created_at)
-    values (${workshopId}, ${device}, 1000, 0.5, ${1000 * (1 + offsetPpm * 1e-6)}, ${offsetPpm}, 0.4, ${operatorId}, now() - make_interval(days => ${daysAgo}))`
+  await sql`insert into calibrations (workshop_id, device, reference_hz, reference_uncertainty_ppm, reference_description, measured_hz, offset_ppm, uncertainty_ppm, operator_id, created_at)
+    values (${workshopId}, ${device}, 1000, 0.5, 'Reference fork, calibrated', ${1000 * (1 + offsetPpm * 1e-6)}, ${offsetPpm}, 0.4, ${operatorId}, now() - make_interval(days => ${daysAgo}))`
 }
 
 describe('GET /api/calibrations', () => {
@@ -26,7 +26,7 @@ describe('GET /api/calibrations', () => {
     const a = byName['Interface A']
     expect(a.history.map((c: { offsetPpm: number }) => c.offsetPpm)).toEqual([42.0, 41.3, 40.1])
     expect(a.current).toEqual(a.history[0])
-    expect(a.current).toMatchObject({ expired: false, daysLeft: 79, operatorName: 'Test Owner', referenceHz: 1000, referenceUncertaintyPpm: 0.5, uncertaintyPpm: 0.4 })
+    expect(a.current).toMatchObject({ expired: false, daysLeft: 79, operatorName: 'Test Owner', referenceHz: 1000, referenceUncertaintyPpm: 0.5, referenceDescription: 'Reference fork, calibrated', uncertaintyPpm: 0.4 })
     expect(Date.parse(a.current.expiresAt) - Date.parse(a.current.measuredAt)).toBe(90 * 86_400_000)
     expect(byName['Field recorder'].current).toMatchObject({ expired: true, daysLeft: -5, operatorName: null })
   })

@@ -1,0 +1,1 @@
+ALTER TABLE "calibrations" ADD COLUMN "reference_description" text DEFAULT '' NOT NULL;
