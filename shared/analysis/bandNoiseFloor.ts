@@ -1,5 +1,9 @@
 import { selectQuantile } from './selectQuantile'
 
+/** Work space of the quantile, shared by every call (it is called for every frame of every band). */
+const scratch = new Float64Array(128)
+const sample = new Float64Array(128)
+
 /**
  * Noise floor of a power spectrum, bin by bin, as the lower quartile of the power in
  * bands half an octave wide (never narrower than `minBandBins`). Banded, because the
@@ -14,8 +18,6 @@ export function bandNoiseFloor(
   minBandBins: number,
   floor: Float64Array = new Float64Array(power.length),
 ): Float64Array {
-  const scratch = new Float64Array(128)
-  const sample = new Float64Array(128)
   let lo = kMin
   while (lo <= kMax) {
     let hi = Math.max(lo + minBandBins - 1, Math.floor(lo * Math.SQRT2))

@@ -59,17 +59,16 @@ export function shortTimePeaks(signal: Float64Array, sampleRate: number, setting
   const frames: SpectrumFrame[] = []
   if (kMax <= kMin) return frames
 
-  const buffer = new Float64Array(fftSize)
-  const spectrum = new Float64Array(2 * fftSize)
-  const power = new Float64Array(kMax + 2)
-  const floor = new Float64Array(kMax + 2)
+  const { buffer, spectrum, power, floor, trailing } = scratchFor(fftSize, kMax + 2)
+  // The window fills the start of the frame; the rest is the zero padding (another call may have written there).
+  buffer.fill(0, windowLength)
   // Three main lobes of the zero-padded window: a band is never filled by one partial.
   const minBandBins = Math.ceil((3 * 8 * fftSize) / windowLength)
   const relative = 10 ** (-settings.peakThresholdDb / 10)
   const margin = 10 ** (settings.noiseMarginDb / 10)
 
   // Last frame first, so each frame's floor can be the lowest any later frame showed (trailingFloor).
-  const trailing = new Float64Array(kMax + 2).fill(Infinity)
+  trailing.fill(Infinity)
   const last = settings.startIndex + Math.floor((settings.endIndex - windowLength - settings.startIndex) / hop) * hop
   for (let start = last; start >= settings.startIndex; start -= hop) {
     for (let i = 0; i < windowLength; i++) buffer[i] = signal[start + i]! * window[i]!
@@ -100,4 +99,26 @@ export function shortTimePeaks(signal: Float64Array, sampleRate: number, setting
     frames.push({ timeS: (start + windowLength / 2) / sampleRate, peaks })
   }
   return frames.reverse()
+}
+
+/** Work arrays of the transform, kept between calls (an analysis makes a few STFTs of the same sizes; fresh ones cost collections). */
+interface Scratch {
+  buffer: Float64Array
+  spectrum: Float64Array
+  power: Float64Array
+  floor: Float64Array
+  trailing: Float64Array
+}
+const scratches = new Map<number, Scratch>()
+
+/** The work arrays for one transform size, `bins` long where per bin; written before they are read on every call. */
+function scratchFor(fftSize: number, bins: number): Scratch {
+  let s = scratches.get(fftSize)
+  if (!s || s.power.length < bins) {
+    s = { buffer: new Float64Array(fftSize), spectrum: new Float64Array(2 * fftSize), power: new Float64Array(bins), floor: new Float64Array(bins), trailing: new Float64Array(bins) }
+    // A few sizes per analysis; a recording at another rate brings others.
+    if (scratches.size >= 8) scratches.delete(scratches.keys().next().value!)
+    scratches.set(fftSize, s)
+  }
+  return s
 }
