@@ -58,6 +58,8 @@ export async function untilHydrated(page: Page, timeout = 60_000) {
   await page.waitForFunction(() => {
     type Root = { __vue_app__?: { config: { globalProperties: { $nuxt?: { isHydrating?: boolean } } } } }
     const app = (document.querySelector('#__nuxt') as Root | null)?.__vue_app__
+    // A page that is not the app (a PDF, a JSON answer) has nothing to hydrate.
+    if (!document.querySelector('#__nuxt')) return true
     return app?.config.globalProperties.$nuxt?.isHydrating === false
   }, undefined, { timeout })
 }
@@ -80,5 +82,18 @@ export function useBrowser(extraArgs: string[] = []): { newPage: () => Promise<P
   afterAll(async () => {
     await session?.close()
   })
-  return { newPage: () => session!.newPage() }
+  return {
+    // Every navigation waits for the app to hydrate: a click or a keystroke before then lands on the
+    // server-drawn page and is lost (on a loaded machine that took over 30 s to show).
+    newPage: async () => {
+      const page = await session!.newPage()
+      const goto = page.goto.bind(page)
+      page.goto = async (...args: Parameters<Page['goto']>) => {
+        const response = await goto(...args)
+        await untilHydrated(page)
+        return response
+      }
+      return page
+    },
+  }
 }
