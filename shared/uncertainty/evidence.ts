@@ -12,6 +12,14 @@ export const STORED_RESOLUTION_CENTS = 0.1
 /** How many of a piece's last strikes at its final state the repeatability reads. */
 export const FINAL_STATE_STRIKES_MAX = 5
 
+/**
+ * A strike whose fundamental reads further than this from the reference strike's, ¢, was made
+ * before material was last taken off (a cut the Bench was not told of): the final state starts
+ * after it. Repeat strikes of an unchanged bar agree to a few tenths of a cent; a finishing cut
+ * moves it by a cent or more (common practice).
+ */
+export const FINAL_STATE_AGREEMENT_CENTS = 1.5
+
 /** Strikes the workshop may ask for at the final state before a piece goes to review. */
 export const STRIKES_BEFORE_REVIEW = 3
 

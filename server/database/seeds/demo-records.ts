@@ -50,8 +50,16 @@ function deviations(random: ReturnType<typeof seededRandom>, partials: number, c
       return last + (s - last) * left ** 1.5
     }))
   }
+  // A finished piece is struck twice more as it is (the repeatability of its budget): a few tenths of a cent apart.
+  const final = out.at(-1)
+  if (finishWithin && final) {
+    for (let r = 0; r < FINAL_REPEATS; r++) out.push(final.map(d => d + (random.uniform() - 0.5) * 0.4))
+  }
   return out
 }
+
+/** Extra strikes of a finished demo piece at its final state. */
+const FINAL_REPEATS = 2
 
 function strikeCountFor(stage: PieceStage, random: ReturnType<typeof seededRandom>) {
   if (stage === 'blank' || stage === 'scrapped') return 0
@@ -79,7 +87,7 @@ export async function seedSetStrikes(
     const devs = deviations(random, template.partials.length, count, finishWithin, tolerances)
     let last: { id: string, result: AnalysisResult, at: Date } | null = null
     await db.transaction(async (tx) => {
-      for (let k = 0; k < count; k++) {
+      for (let k = 0; k < devs.length; k++) {
         const temperatureC = 20.5 + random.uniform() * 3
         // The deviations are meant at the template's reference temperature; a warmer bar reads flatter.
         const drift = template.temperatureCoefficientCentsPerC * (temperatureC - template.referenceTemperatureC)
@@ -96,7 +104,7 @@ export async function seedSetStrikes(
             referenceTemperatureC: template.referenceTemperatureC, temperatureCoefficientCentsPerC: template.temperatureCoefficientCentsPerC,
           },
         })
-        const at = new Date(now - (rows.length - i) * 3 * 3600_000 - (count - k) * 600_000)
+        const at = new Date(now - (rows.length - i) * 3 * 3600_000 - (devs.length - k) * 600_000)
         const id = crypto.randomUUID()
         const audioKey = `workshops/${workshopId}/strikes/${piece.id}/${id}.wav`
         await storage.put(audioKey, encodeWav(samples, SAMPLE_RATE), 'audio/wav')
@@ -114,7 +122,7 @@ export async function seedSetStrikes(
       }
       const l = last as { id: string, result: AnalysisResult, at: Date } | null
       await tx.update(pieces).set({
-        stage, strikeCount: count, assigneeId: stage === 'blank' ? null : people.bench,
+        stage, strikeCount: devs.length, assigneeId: stage === 'blank' ? null : people.bench,
         latestStrikeId: l?.id ?? null, latestVerdict: l?.result.verdict ?? null, latestWorstCents: l ? worstCents(l.result) : null,
         latestFundamentalHz: l?.result.fundamentalHz ?? null, latestStrikeAt: l?.at ?? null,
         approvedStrikeId: stage === 'approved' ? l?.id ?? null : null, approvedAt: stage === 'approved' ? l?.at ?? null : null,
