@@ -4,6 +4,7 @@ import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath, pathToFileURL } from 'node:url'
 import { Piscina } from 'piscina'
 import { AnalysisError } from '../../shared/analysis/AnalysisError'
+import { LIMITS } from '../../shared/analysis/limits'
 import type { AnalysisResult, AnalyzeOptions } from '../../shared/analysis/types'
 import type { ClockOffset } from '../../shared/calibration/measureClockOffset'
 import type { AnalysisReply, AnalysisTask, CalibrationReply, CalibrationTask } from '../workers/analysis.worker'
@@ -21,6 +22,11 @@ export interface AnalysisPoolOptions {
   workerFile?: string
   /** Seconds a refused client is told to wait (Retry-After). */
   retryAfterS?: number
+  /**
+   * Seconds from submission after which a task's thread is stopped (default 6 × LIMITS.maxMeasureS): a
+   * backstop behind the engine's own limit, for a decode or a step that never reaches a check.
+   */
+  maxTaskS?: number
 }
 
 /** The queue is full: answer 503 with Retry-After rather than pile work up. */
@@ -96,6 +102,7 @@ export function createAnalysisPool(options: AnalysisPoolOptions = {}): AnalysisP
   const threads = options.threads && options.threads > 0 ? Math.floor(options.threads) : availableParallelism()
   const maxQueue = options.maxQueue && options.maxQueue > 0 ? Math.floor(options.maxQueue) : 2 * threads
   const retryAfterS = options.retryAfterS ?? 5
+  const maxTaskS = options.maxTaskS && options.maxTaskS > 0 ? options.maxTaskS : 6 * LIMITS.maxMeasureS
   const located = options.workerFile
     ? { file: resolve(options.workerFile), typescript: options.workerFile.endsWith('.ts') }
     : locateWorker()
@@ -124,10 +131,10 @@ export function createAnalysisPool(options: AnalysisPoolOptions = {}): AnalysisP
       // The upload is a view into the whole request body: copy just its bytes and hand
       // that copy over (a plain clone would copy the whole body buffer).
       const own = bytes.slice()
-      reply = await piscina.run({ bytes: own, options: analyzeOptions }, { transferList: [own.buffer] }) as AnalysisReply
+      reply = await piscina.run({ bytes: own, options: analyzeOptions }, { transferList: [own.buffer], signal: AbortSignal.timeout(maxTaskS * 1000) }) as AnalysisReply
     }
     catch (error) {
-      throw busyOr(error, retryAfterS)
+      throw busyOr(error, retryAfterS, maxTaskS)
     }
     return decodeReply(reply)
   }
@@ -136,10 +143,10 @@ export function createAnalysisPool(options: AnalysisPoolOptions = {}): AnalysisP
     let reply: CalibrationReply
     try {
       const own = task.bytes.slice()
-      reply = await piscina.run({ ...task, bytes: own }, { name: 'calibrate', transferList: [own.buffer] }) as CalibrationReply
+      reply = await piscina.run({ ...task, bytes: own }, { name: 'calibrate', transferList: [own.buffer], signal: AbortSignal.timeout(maxTaskS * 1000) }) as CalibrationReply
     }
     catch (error) {
-      throw busyOr(error, retryAfterS)
+      throw busyOr(error, retryAfterS, maxTaskS)
     }
     return decodeCalibration(reply)
   }
@@ -193,9 +200,15 @@ function inThreadPool(threads: number, maxQueue: number, retryAfterS: number): A
   }
 }
 
-/** Piscina's refusal of a full queue as AnalysisBusyError; anything else as it came. */
-function busyOr(error: unknown, retryAfterS: number): unknown {
+/**
+ * Piscina's refusal of a full queue as AnalysisBusyError; a task stopped at its time limit (its
+ * thread is ended and replaced) as a 422 in plain words; anything else as it came.
+ */
+function busyOr(error: unknown, retryAfterS: number, maxTaskS: number): unknown {
   if (error instanceof Error && /queue is at limit|all workers are busy/i.test(error.message)) return new AnalysisBusyError(retryAfterS)
+  if (error instanceof Error && (error.name === 'AbortError' || /aborted/i.test(error.message))) {
+    return new AnalysisError(422, 'too_slow_to_measure', `Measuring this recording was stopped after ${maxTaskS} s; record a single strike of the piece in a quiet room and send it again.`)
+  }
   return error
 }
 

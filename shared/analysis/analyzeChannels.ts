@@ -1,3 +1,5 @@
+import { LIMITS } from './limits'
+import { startWorkDeadline } from './workDeadline'
 import { addLongLookPartials } from './addLongLookPartials'
 import { addShortPartials } from './addShortPartials'
 import { applyTemplate } from './applyTemplate'
@@ -28,6 +30,22 @@ export function analyzeChannels(
   options: AnalyzeOptions = {},
   /** What the container says: a lossy codec, or integer PCM of this many bits (coarse ones show less range). */
   source: { lossy?: boolean, pcmBits?: number | null } = {},
+): AnalysisResult {
+  const lift = startWorkDeadline(LIMITS.maxMeasureS)
+  try {
+    return measureChannels(channels, sampleRate, options, source)
+  }
+  finally {
+    lift()
+  }
+}
+
+/** analyzeChannels' steps, under its time limit. */
+function measureChannels(
+  channels: readonly ArrayLike<number>[],
+  sampleRate: number,
+  options: AnalyzeOptions,
+  source: { lossy?: boolean, pcmBits?: number | null },
 ): AnalysisResult {
   const opts = validateAnalyzeOptions(options)
   const prepared = prepareMono(channels, sampleRate)

@@ -1,3 +1,4 @@
+import { checkWorkDeadline } from './workDeadline'
 import { centsBetween } from './centsBetween'
 import { estimateBand, type BandEstimate } from './estimateBand'
 import type { FftPartial, MeasuredPartial } from './types'
@@ -49,6 +50,7 @@ export function annotatePartials<P extends FftPartial>(
   const maxSpanS = settings.maxSpanS ?? 1
   const warnings: string[] = []
   const out = partials.map((p) => {
+    checkWorkDeadline()
     const none = { ...p, crossCheckCents: null, uncertaintyCents: null, uncertaintyDecayPct: null }
     const decay = Math.max(p.decayDbPerS, 0.5)
     const spanS = Math.min(maxSpanS, Math.max(0.02, (Math.min(Math.max(p.snrDb, 20), 70) + 10) / decay))

@@ -23,11 +23,17 @@ const TREMOLO_MIN_HZ = ENGINE_SETTINGS.modulation.minRateHz
  */
 export function dropSidebands(partials: readonly TrackMeasurement[], maxOrder = 6, toleranceHz = 0.3, maxRateHz = MAX_SIDEBAND_RATE_HZ): TrackMeasurement[] {
   const byLevel = [...partials].sort((a, b) => b.amplitudeDb - a.amplitudeDb)
+  // Partials by frequency, each with its rank by level: a search looks only where a sideband can be
+  // (a dense strike — a cymbal's hundreds of readings — must not cost partials² × rates).
+  const rank = new Map(byLevel.map((p, i) => [p, i]))
+  const byFrequency = [...byLevel].sort((a, b) => a.frequencyHz - b.frequencyHz)
+  const within = (loHz: number, hiHz: number) => byFrequency.slice(firstAtOrAbove(byFrequency, loHz), firstAtOrAbove(byFrequency, hiHz, true))
   const dropped = new Set<TrackMeasurement>()
   for (const carrier of byLevel) {
     const rate = carrier.modulationHz ?? 0
     if (dropped.has(carrier) || carrier.modulationFrom !== 'sidebands' || !(rate > 0) || rate > maxRateHz) continue
-    for (const other of byLevel) {
+    const reachHz = maxOrder * rate + Math.max(toleranceHz, 0.05 * rate) + 1e-9
+    for (const other of within(carrier.frequencyHz - reachHz, carrier.frequencyHz + reachHz)) {
       if (other === carrier || dropped.has(other) || !weakerThan(other, carrier)) continue
       const order = Math.abs(other.frequencyHz - carrier.frequencyHz) / rate
       const k = Math.round(order)
@@ -42,7 +48,16 @@ export function dropSidebands(partials: readonly TrackMeasurement[], maxOrder = 
   for (const carrier of byLevel) {
     if (dropped.has(carrier)) continue
     for (const rate of strikeRatesHz) {
-      const at = (hz: number) => byLevel.find(o => o !== carrier && !dropped.has(o) && weakerThan(o, carrier) && Math.abs(o.frequencyHz - hz) <= Math.max(toleranceHz, 0.05 * rate))
+      // The strongest partial near hz that qualifies, as a scan of byLevel would find it first.
+      const at = (hz: number) => {
+        const tol = Math.max(toleranceHz, 0.05 * rate)
+        let best: TrackMeasurement | undefined
+        for (const o of within(hz - tol - 1e-9, hz + tol + 1e-9)) {
+          if (o === carrier || dropped.has(o) || !weakerThan(o, carrier) || Math.abs(o.frequencyHz - hz) > tol) continue
+          if (!best || rank.get(o)! < rank.get(best)!) best = o
+        }
+        return best
+      }
       const lower = at(carrier.frequencyHz - rate)
       const upper = at(carrier.frequencyHz + rate)
       if (lower && upper && sidebandLevels(carrier, lower, upper)) {
@@ -83,4 +98,17 @@ function sidebandLevels(carrier: TrackMeasurement, lower: TrackMeasurement, uppe
   const { maxBelowCarrierDb, maxImbalanceDb } = ENGINE_SETTINGS.modulation
   const below = [lower, upper].map(p => carrier.amplitudeDb - p.amplitudeDb)
   return below.every(d => d >= MIN_BELOW_CARRIER_DB && d <= maxBelowCarrierDb) && Math.abs(lower.amplitudeDb - upper.amplitudeDb) <= maxImbalanceDb
+}
+
+/** Index of the first partial at or above `hz` (strictly above when `after`) in a list sorted by frequency (binary search). */
+function firstAtOrAbove(sorted: readonly TrackMeasurement[], hz: number, after = false): number {
+  let lo = 0
+  let hi = sorted.length
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1
+    const f = sorted[mid]!.frequencyHz
+    if (f < hz || (after && f === hz)) lo = mid + 1
+    else hi = mid
+  }
+  return lo
 }

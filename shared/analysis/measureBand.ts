@@ -1,3 +1,4 @@
+import { checkWorkDeadline } from './workDeadline'
 import { linkTracks, type TrackPoint } from './linkTracks'
 import { measureTrack, type TrackMeasurement } from './measureTrack'
 import type { ModulationSettings } from './measureModulation'
@@ -78,6 +79,7 @@ export function measureBand(
   const byLevel = [...first, ...kept.map((_, i) => i).filter(i => !first.includes(i))]
   const readings: TrackMeasurement[][] = []
   for (const i of byLevel) {
+    checkWorkDeadline()
     readings[i] = measureTrack(kept[i]!, signal, sampleRate, {
       onsetIndex: strike.onsetIndex,
       startIndex: strike.startIndex,

@@ -1,3 +1,4 @@
+import { checkWorkDeadline } from './workDeadline'
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import type { TrackMeasurement } from './measureTrack'
 import { ENGINE_SETTINGS } from './engineSettings'
@@ -80,6 +81,7 @@ export function splitDoublets<P extends DoubletCandidate>(
     .filter(q => q.modulationFrom === 'sidebands' && q.modulationHz !== null && q.modulationHz >= TREMOLO_RATES_HZ.min && q.modulationHz <= TREMOLO_RATES_HZ.max)
     .map(q => q.modulationHz!)
   for (const p of partials) {
+    checkWorkDeadline()
     const split = p.modulationFrom === 'pair' || p.snrDb < MIN_SNR_DB || p.amplitudeDb < floorDb ? null : splitOne(p)
     if (split) pairs.push(...split)
     else single.push(p)

@@ -70,6 +70,29 @@ describe('analysis pool (worker threads from the TypeScript source through tsx)'
   }, 60_000)
 })
 
+describe('analysis pool time limit (the backstop behind the engine\'s own)', () => {
+  it('stops a task past maxTaskS with a 422 in plain words, and a pool with room measures the same strike', async () => {
+    const strict = createAnalysisPool({ threads: 1, maxQueue: 2, maxTaskS: 0.05 })
+    try {
+      // 4 s of a real strike takes far more than 50 ms in a cold worker.
+      const error = await strict.run(fixture('strike-48k.flac'), { targetHz: 440 }).catch(e => e)
+      expect(error).toBeInstanceOf(AnalysisError)
+      expect(error).toMatchObject({ status: 422, code: 'too_slow_to_measure' })
+      expect(error.message).toMatch(/^Measuring this recording was stopped after 0\.05 s;/)
+    }
+    finally {
+      await strict.close()
+    }
+    const relaxed = createAnalysisPool({ threads: 1, maxQueue: 2, maxTaskS: 120 })
+    try {
+      expect((await relaxed.run(fixture('strike-48k.flac'), { targetHz: 440 })).partials.length).toBeGreaterThan(0)
+    }
+    finally {
+      await relaxed.close()
+    }
+  }, 120_000)
+})
+
 describe('locateWorker', () => {
   it('never offers the TypeScript source to a production process', () => {
     // No build beside this source tree's server/utils: production finds nothing, development the source.
