@@ -48,3 +48,40 @@ describe('web: every page answers odd addresses without a 500', () => {
     expect(failures).toEqual([])
   })
 })
+
+// Class guarded: "A form submitted before the app has started in the browser (a slow connection, a
+// quick Enter) never puts what was typed — a password among it — into an address, where server logs,
+// history and proxies keep it": every server-drawn form posts, except search bars (role="search").
+describe('web: server-drawn forms post', () => {
+  it('every form on every page, signed out and in, has method="post"', { timeout: 300_000 }, async () => {
+    const owner = await newWorkshop('Form walk workshop')
+    const cookie = `auth.token=${encodeURIComponent(owner.token)}`
+    const failures: string[] = []
+    let forms = 0
+    for (const page of allPages().filter(p => !/\[\w+\]/.test(p))) {
+      for (const who of [undefined, cookie]) {
+        const reply = await fetchPage(page, who)
+        for (const tag of reply.text.match(/<form\b[^>]*>/g) ?? []) {
+          forms++
+          if (!/\bmethod="post"/.test(tag) && !/\brole="search"/.test(tag)) failures.push(`${who ? 'signed in' : 'signed out'} ${page}: ${tag.slice(0, 80)}`)
+        }
+      }
+    }
+    expect(forms).toBeGreaterThan(5)
+    expect(failures).toEqual([])
+  })
+
+  it('a sign-in form posted before the app started is answered with the page, not an error, and echoes nothing', async () => {
+    const secret = 'Pre-hydration-secret-42'
+    const response = await fetch(`${BASE_URL}/signin`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded', 'accept': 'text/html' },
+      body: new URLSearchParams({ email: 'someone@example.test', password: secret }).toString(),
+      redirect: 'manual',
+    })
+    const text = await response.text()
+    expect(response.status).toBeLessThan(500)
+    expect(response.headers.get('location') ?? '').not.toContain(secret)
+    expect(text).not.toContain(secret)
+  })
+})
