@@ -69,6 +69,11 @@ describe('web: server-drawn forms post', () => {
     }
     expect(forms).toBeGreaterThan(5)
     expect(failures).toEqual([])
+    // And the signed-out pages' buttons wait for the page to start: nothing typed is lost to a plain post.
+    for (const page of ['/signin', '/signup', '/forgot-password']) {
+      const submit = (await fetchPage(page)).text.match(/<button\b[^>]*type="submit"[^>]*>/)?.[0] ?? ''
+      expect(submit, page).toMatch(/\bdisabled\b/)
+    }
   })
 
   it('a sign-in form posted before the app started is answered with the page, not an error, and echoes nothing', async () => {
