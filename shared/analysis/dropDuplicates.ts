@@ -1,3 +1,4 @@
+import { firstAtOrAbove } from './firstAtOrAbove'
 import type { TrackMeasurement } from './measureTrack'
 
 /**
@@ -14,26 +15,13 @@ export function dropDuplicates(measured: readonly TrackMeasurement[]): TrackMeas
   const reachHz = 1 / shortestS
   const kept: TrackMeasurement[] = []
   for (const m of byLength) {
-    let at = firstAbove(kept, m.frequencyHz - reachHz)
+    let at = firstAtOrAbove(kept, m.frequencyHz - reachHz)
     let clash = false
     for (; at < kept.length && kept[at]!.frequencyHz <= m.frequencyHz + reachHz && !clash; at++) {
       const k = kept[at]!
       clash = Math.abs(k.frequencyHz - m.frequencyHz) < 1 / Math.min(k.refineSpanS, m.refineSpanS)
     }
-    if (!clash) kept.splice(firstAbove(kept, m.frequencyHz, true), 0, m)
+    if (!clash) kept.splice(firstAtOrAbove(kept, m.frequencyHz, true), 0, m)
   }
   return kept
-}
-
-/** Index of the first partial at or above `hz` (strictly above when `after`: equal ones keep their order) in a list sorted by frequency. */
-function firstAbove(sorted: readonly TrackMeasurement[], hz: number, after = false): number {
-  let lo = 0
-  let hi = sorted.length
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1
-    const f = sorted[mid]!.frequencyHz
-    if (f < hz || (after && f === hz)) lo = mid + 1
-    else hi = mid
-  }
-  return lo
 }

@@ -1,3 +1,4 @@
+import { firstAtOrAbove } from './firstAtOrAbove'
 import { ENGINE_SETTINGS } from './engineSettings'
 import type { TrackMeasurement } from './measureTrack'
 
@@ -98,17 +99,4 @@ function sidebandLevels(carrier: TrackMeasurement, lower: TrackMeasurement, uppe
   const { maxBelowCarrierDb, maxImbalanceDb } = ENGINE_SETTINGS.modulation
   const below = [lower, upper].map(p => carrier.amplitudeDb - p.amplitudeDb)
   return below.every(d => d >= MIN_BELOW_CARRIER_DB && d <= maxBelowCarrierDb) && Math.abs(lower.amplitudeDb - upper.amplitudeDb) <= maxImbalanceDb
-}
-
-/** Index of the first partial at or above `hz` (strictly above when `after`) in a list sorted by frequency (binary search). */
-function firstAtOrAbove(sorted: readonly TrackMeasurement[], hz: number, after = false): number {
-  let lo = 0
-  let hi = sorted.length
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1
-    const f = sorted[mid]!.frequencyHz
-    if (f < hz || (after && f === hz)) lo = mid + 1
-    else hi = mid
-  }
-  return lo
 }
