@@ -20,6 +20,9 @@ strike() { # rate seconds output [sox output options...]
 strike 44100 0.6 strike-44k1-24bit.wav -b 24 -e signed-integer
 strike 44100 0.45 strike-44k1-float.wav -b 32 -e floating-point
 strike 48000 0.8 strike-48k-16bit.wav -b 16 -e signed-integer --no-dither
+# The same strike as AIFF (sample for sample the WAV above) and as AIFF-C at 24 bits.
+strike 48000 0.8 strike-48k-16bit.aiff -b 16 -e signed-integer --no-dither
+strike 44100 0.6 strike-44k1-24bit.aifc -b 24 -e signed-integer
 strike 48000 1.0 strike-48k.flac -b 16 -C 8
 strike 96000 0.5 strike-96k.flac -b 24 -C 8
 strike 44100 1.0 strike-44k1.mp3 -C 128
@@ -28,6 +31,8 @@ strike 48000 1.0 strike-48k.ogg -C 4
 # Damaged files for the bad-input tests.
 head -c 3000 strike-48k.flac > truncated.flac
 head -c 40 strike-48k-16bit.wav > truncated-header.wav
+head -c 30000 strike-48k-16bit.aiff > truncated.aiff
+head -c 30 strike-48k-16bit.aiff > truncated-header.aiff
 printf 'Tonewright test: this file is plain text, not audio.\n' > not-audio.txt
 : > empty.wav
 ls -l

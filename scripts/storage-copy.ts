@@ -16,6 +16,7 @@ import { existsSync, statSync } from 'node:fs'
 import { resolve } from 'node:path'
 import { parseArgs } from 'node:util'
 import { HeadObjectCommand } from '@aws-sdk/client-s3'
+import { AUDIO_FORMATS } from '../shared/analysis/audioFormats'
 import { storageConfigFromEnv } from '../server/utils/blob-storage'
 import { fileStorage } from '../server/utils/storage-fs'
 import { s3Client, s3Storage, SHA256_METADATA } from '../server/utils/storage-s3'
@@ -43,7 +44,7 @@ const client = s3Client(config)
 const source = fileStorage(from)
 const target = s3Storage(config, client)
 
-const TYPES: Record<string, string> = { wav: 'audio/wav', flac: 'audio/flac', mp3: 'audio/mpeg', ogg: 'audio/ogg', pdf: 'application/pdf' }
+const TYPES: Record<string, string> = { ...Object.fromEntries(AUDIO_FORMATS.map(f => [f.extension, f.mediaType])), pdf: 'application/pdf' }
 const typeOf = (key: string) => TYPES[key.split('.').pop()?.toLowerCase() ?? ''] ?? 'application/octet-stream'
 const sha256 = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest('hex')
 

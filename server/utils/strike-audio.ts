@@ -1,7 +1,7 @@
 import type { Readable } from 'node:stream'
 import type { H3Event } from 'h3'
 import { getRequestHeader, setResponseHeader, setResponseHeaders, setResponseStatus } from 'h3'
-import { CONTAINER_MEDIA } from '../../shared/analysis/containerMediaType'
+import { containerMedia } from '../../shared/analysis/containerMediaType'
 import { detectContainer } from '../../shared/analysis/detectContainer'
 import type { Executor } from '../database/client'
 import { parseByteRange } from './byte-range'
@@ -34,7 +34,7 @@ export async function strikeAudio(event: H3Event, db: Executor, storage: BlobSto
   }
   const opening = info.size > 0 ? await storage.stream(strike.audioKey, { start: 0, end: Math.min(info.size, SNIFF_BYTES) - 1 }) : null
   if (info.size > 0 && !opening) fail(404, 'The recording of this strike is not in storage.')
-  const media = CONTAINER_MEDIA[detectContainer(opening ? await collect(opening) : new Uint8Array())]
+  const media = containerMedia(detectContainer(opening ? await collect(opening) : new Uint8Array()))
   const range = ask.kind === 'range' ? ask.range : { start: 0, end: info.size - 1 }
   const body = info.size === 0 ? null : await storage.stream(strike.audioKey, ask.kind === 'range' ? range : undefined)
   if (info.size > 0 && !body) fail(404, 'The recording of this strike is not in storage.')

@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto'
 import { and, eq, getTableColumns, sql } from 'drizzle-orm'
 import { pieces, sets, strikeAnalyses, strikes, templateVersions } from '../database/schema'
 import type { Database } from '../database/client'
+import { storedAudioExtension } from '../../shared/analysis/audioFormats'
 import type { AnalysisResult } from '../../shared/analysis/types'
 import { assigneeAfter, assigneeProblem, isStrikeable, STAGE_LABELS, stageAfterStrike, type PieceStage } from '../../shared/records/stages'
 import type { Member } from './auth'
@@ -20,13 +21,6 @@ export function worstCents(result: AnalysisResult): number | null {
     if (worst === null || Math.abs(m.cents) > Math.abs(worst)) worst = m.cents
   }
   return worst
-}
-
-const EXTENSIONS: Record<string, string> = { wav: 'wav', flac: 'flac', mp3: 'mp3', ogg: 'ogg', oga: 'ogg', opus: 'ogg' }
-
-function extensionOf(name: string) {
-  const ext = name.split('.').pop()?.toLowerCase() ?? ''
-  return EXTENSIONS[ext] ?? 'bin'
 }
 
 /** Where an upload waits until its row commits; the sweep clears what never did. */
@@ -89,7 +83,7 @@ export async function recordStrike(
   })
 
   const strikeId = randomUUID()
-  const extension = extensionOf(file.filename)
+  const extension = storedAudioExtension(file.filename)
   const audioKey = `workshops/${member.workshopId}/strikes/${pieceId}/${strikeId}.${extension}`
   const pendingKey = pendingAudioKey(member.workshopId, strikeId, extension)
   await storage.put(pendingKey, file.bytes, file.type || 'application/octet-stream')

@@ -2,11 +2,10 @@ import { analyzeChannels } from './analyzeChannels'
 import { decodeAudio } from './decodeAudio'
 import { detectContainer, isLossy } from './detectContainer'
 import { validateAnalyzeOptions } from './parseAnalyzeOptions'
-import { readWavHeader } from './readWavHeader'
 import type { AnalysisResult, AnalyzeOptions } from './types'
 
 /**
- * Measure one strike from the bytes of an audio file (WAV, FLAC, MP3, Ogg): decode,
+ * Measure one strike from the bytes of an audio file (WAV, FLAC, AIFF, MP3, Ogg): decode,
  * mix to mono at the native rate, then the full pipeline. Resolves to the JSON contract;
  * rejects with AnalysisError (400 bad option, 413 too large, 415 not audio, 422 not
  * measurable) carrying one plain sentence.
@@ -15,10 +14,7 @@ export async function analyzeStrike(bytes: Uint8Array, options: AnalyzeOptions =
   // Options first: a typo in a form field should not cost a decode.
   const opts = validateAnalyzeOptions(options)
   const decoded = await decodeAudio(bytes)
-  // Integer PCM WAV states its bit depth; float (tag 3) holds more than the engine reports.
-  const wav = readWavHeader(bytes)
-  const pcmBits = wav && wav !== 'corrupt' && wav.formatTag !== 3 && wav.bitsPerSample < 32 ? wav.bitsPerSample : null
-  const result = await analyzeChannels(decoded.channelData, decoded.sampleRate, opts, { lossy: isLossy(detectContainer(bytes)), pcmBits })
+  const result = await analyzeChannels(decoded.channelData, decoded.sampleRate, opts, { lossy: isLossy(detectContainer(bytes)), pcmBits: decoded.pcmBits })
   // What decoding found about the file itself (e.g. a truncated WAV) comes first.
   if (decoded.warnings.length > 0) result.warnings = [...decoded.warnings, ...result.warnings]
   return result

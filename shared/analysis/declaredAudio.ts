@@ -5,7 +5,7 @@
  * than (for formats that only bound it, such as MP3 without a frame count).
  */
 export interface DeclaredAudio {
-  codec: 'wav' | 'flac' | 'mp3' | 'vorbis' | 'opus'
+  codec: 'wav' | 'flac' | 'aiff' | 'mp3' | 'vorbis' | 'opus'
   channels: number | null
   sampleRate: number | null
   frames: number | null

@@ -1,7 +1,9 @@
 import { AnalysisError } from './AnalysisError'
+import { AUDIO_FORMAT_NAMES } from './audioFormats'
 import { decodeBounded, type DecodedAudio } from './decodeBounded'
 import { detectContainer } from './detectContainer'
 import { LIMITS } from './limits'
+import { AIFF_PCM_TYPES, readAiffHeader } from './readAiffHeader'
 import { readDeclaredAudio } from './readDeclaredAudio'
 import { readWavHeader } from './readWavHeader'
 
@@ -10,18 +12,21 @@ export type { DecodedAudio } from './decodeBounded'
 /** Decoded audio and what the measurement should say about the file itself. */
 export interface DecodedFile extends DecodedAudio {
   warnings: string[]
+  /** Bit depth of integer PCM under 32 bits (WAV, AIFF), whose quantisation bounds what can be reported; null otherwise. */
+  pcmBits: number | null
 }
 
-const NOT_AUDIO = 'The file is not audio in a format Tonewright reads (WAV, FLAC, MP3 or Ogg).'
+const NOT_AUDIO = `The file is not audio in a format Tonewright reads (${AUDIO_FORMAT_NAMES}).`
 
 /**
- * Decode WAV (16/24-bit PCM, 32-bit float), FLAC, MP3 or Ogg (Vorbis, Opus) bytes with
+ * Decode WAV (16/24-bit PCM, 32-bit float), FLAC, AIFF (uncompressed), MP3 or Ogg (Vorbis, Opus) bytes with
  * `audio-decode`, keeping the native sample rate. Refuses, with an AnalysisError and one
  * plain sentence, everything the engine cannot take: too large (413), empty, not audio,
  * truncated or corrupt (415), and audio outside the limits (422). The container's header
  * is checked before decoding (channels, rate and stated length), and decoding stops as
  * soon as the decoded audio passes 60 s, so a small file that expands to hours costs
- * almost nothing. A WAV whose data chunk is cut short, or states no length, is measured with a warning.
+ * almost nothing. A WAV or AIFF whose sample data is cut short, or a WAV that states no length,
+ * is measured with a warning.
  */
 export async function decodeAudio(bytes: Uint8Array): Promise<DecodedFile> {
   if (bytes.length > LIMITS.maxBytes) {
@@ -45,8 +50,20 @@ export async function decodeAudio(bytes: Uint8Array): Promise<DecodedFile> {
       warnings.push('the WAV header states no length for its audio (the recorder may not have finished the file); it was read to the end of the file')
     }
   }
+  const aiff = readAiffHeader(bytes)
+  if (aiff === 'corrupt') {
+    throw new AnalysisError(415, 'corrupt_audio', 'The AIFF file is truncated or its header is damaged, so it cannot be read.')
+  }
+  if (aiff) {
+    checkLimits(aiff.channels, aiff.sampleRate, aiff.frames)
+    if (!AIFF_PCM_TYPES.has(aiff.compression) || aiff.bitsPerSample < 8 || aiff.bitsPerSample > 32) {
+      throw new AnalysisError(415, 'unsupported_audio', 'This AIFF-C encoding is not supported; use uncompressed AIFF, WAV or FLAC.')
+    }
+    const warning = truncationWarning(aiff.framesDeclared * aiff.blockAlign, aiff.frames * aiff.blockAlign, aiff.blockAlign, aiff.sampleRate, 'AIFF')
+    if (warning) warnings.push(warning)
+  }
   const kind = detectContainer(bytes)
-  const declared = readDeclaredAudio(bytes, kind, wav)
+  const declared = readDeclaredAudio(bytes, kind, wav, aiff)
   if (!declared) {
     if (kind === 'flac' || kind === 'ogg') throw new AnalysisError(415, 'corrupt_audio', 'The audio file is damaged or truncated and cannot be decoded.')
     throw new AnalysisError(415, 'not_audio', NOT_AUDIO)
@@ -65,18 +82,25 @@ export async function decodeAudio(bytes: Uint8Array): Promise<DecodedFile> {
     throw new AnalysisError(415, 'corrupt_audio', 'The audio file is damaged or truncated and cannot be decoded.')
   }
   checkLimits(channels, decoded.sampleRate, decoded.channelData[0]!.length)
-  return { channelData: decoded.channelData, sampleRate: decoded.sampleRate, warnings }
+  return { channelData: decoded.channelData, sampleRate: decoded.sampleRate, warnings, pcmBits: pcmBitsOf(wav, aiff) }
+}
+
+/** Integer PCM under 32 bits states a quantisation step; float and 32-bit integer hold more than the engine reports. */
+function pcmBitsOf(wav: ReturnType<typeof readWavHeader>, aiff: ReturnType<typeof readAiffHeader>): number | null {
+  if (wav && wav !== 'corrupt') return wav.formatTag !== 3 && wav.bitsPerSample < 32 ? wav.bitsPerSample : null
+  if (aiff && aiff !== 'corrupt') return ['NONE', 'twos', 'sowt'].includes(aiff.compression) && aiff.bitsPerSample < 32 ? aiff.bitsPerSample : null
+  return null
 }
 
 /**
- * The warning for a WAV data chunk that declares more audio than the file holds (0 and
+ * The warning for sample data that declares more audio than the file holds (for WAV, 0 and
  * 0xFFFFFFFF are the placeholders of a recorder that streams, not a truncation).
  */
-export function truncationWarning(dataBytes: number, dataBytesPresent: number, blockAlign: number, sampleRate: number): string | null {
+export function truncationWarning(dataBytes: number, dataBytesPresent: number, blockAlign: number, sampleRate: number, format = 'WAV'): string | null {
   if (dataBytes === 0 || dataBytes === 0xffffffff || dataBytesPresent >= dataBytes) return null
   const declaredS = dataBytes / blockAlign / sampleRate
   const presentS = dataBytesPresent / blockAlign / sampleRate
-  return `truncated WAV file: the header declares ${declaredS.toFixed(2)} s of audio but the file holds ${presentS.toFixed(2)} s; only that part was measured`
+  return `truncated ${format} file: the header declares ${declaredS.toFixed(2)} s of audio but the file holds ${presentS.toFixed(2)} s; only that part was measured`
 }
 
 /** The limits a header can state, checked before any decoding (422). */

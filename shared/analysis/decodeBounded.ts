@@ -14,7 +14,7 @@ const OUTPUT_BUDGET_BYTES = 8 * 1024 * 1024
 const FIRST_SLICE_BYTES = 256
 const MAX_SLICE_BYTES = 1024 * 1024
 
-const DECODERS = { wav: decode.wav, flac: decode.flac, mp3: decode.mp3, vorbis: decode.oga, opus: decode.opus }
+const DECODERS = { wav: decode.wav, flac: decode.flac, aiff: decode.aiff, mp3: decode.mp3, vorbis: decode.oga, opus: decode.opus }
 
 /**
  * Decodes in slices with audio-decode's streaming decoders and stops as soon as the

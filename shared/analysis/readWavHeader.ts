@@ -1,3 +1,5 @@
+import { asciiAt } from './asciiAt'
+
 /** What the header of a RIFF/WAVE file declares. */
 export interface WavHeader {
   /** WAVE format tag (1 PCM, 3 IEEE float, 0xFFFE extensible). */
@@ -21,13 +23,13 @@ export interface WavHeader {
  * truncated or inconsistent.
  */
 export function readWavHeader(bytes: Uint8Array): WavHeader | 'corrupt' | null {
-  if (bytes.length < 12) return bytes.length >= 4 && ascii(bytes, 0, 4) === 'RIFF' ? 'corrupt' : null
-  if (ascii(bytes, 0, 4) !== 'RIFF' || ascii(bytes, 8, 4) !== 'WAVE') return null
+  if (bytes.length < 12) return bytes.length >= 4 && asciiAt(bytes, 0, 4) === 'RIFF' ? 'corrupt' : null
+  if (asciiAt(bytes, 0, 4) !== 'RIFF' || asciiAt(bytes, 8, 4) !== 'WAVE') return null
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength)
   let offset = 12
   let fmt: Omit<WavHeader, 'dataBytes' | 'dataBytesPresent' | 'frames'> | null = null
   while (offset + 8 <= bytes.length) {
-    const id = ascii(bytes, offset, 4)
+    const id = asciiAt(bytes, offset, 4)
     const size = view.getUint32(offset + 4, true)
     const body = offset + 8
     if (id === 'fmt ') {
@@ -51,10 +53,4 @@ export function readWavHeader(bytes: Uint8Array): WavHeader | 'corrupt' | null {
     offset = body + size + (size % 2)
   }
   return 'corrupt'
-}
-
-function ascii(bytes: Uint8Array, offset: number, length: number): string {
-  let s = ''
-  for (let i = 0; i < length; i++) s += String.fromCharCode(bytes[offset + i]!)
-  return s
 }

@@ -4,7 +4,7 @@ import { mixToMono } from '../analysis/mixToMono'
 import { measureClockOffset, type ClockOffset, type ClockOffsetOptions } from './measureClockOffset'
 
 /**
- * The clock offset from the bytes of a recorded reference tone (WAV, FLAC, MP3, Ogg): decoded
+ * The clock offset from the bytes of a recorded reference tone (WAV, FLAC, AIFF, MP3, Ogg): decoded
  * within the engine's limits (decodeAudio), mixed to mono as strikes are (a channel of the opposite
  * polarity inverted, a dead one left out: channelSigns), measured (measureClockOffset).
  * Rejects with AnalysisError and one plain sentence.

@@ -52,6 +52,19 @@ describe('downloads are typed by the server and never sniffed', () => {
     expect(got.headers.get('content-disposition')).toBe(`attachment; filename="${id}.flac"`)
   })
 
+  it('an AIFF from a recorder is measured, stored and served as AIFF', async () => {
+    const owner = await newWorkshop('Audio AIFF')
+    const set = await createSet(owner.token)
+    const aiff = await readFile('tests/fixtures/audio/strike-48k-16bit.aiff')
+    const strike = await postStrike(owner.token, set.pieces[1].id, aiff, { temperatureC: '21' }, 'C4 take 2.aif')
+    expect(strike.status).toBe(201)
+    const id = strike.body.id ?? strike.body.strike?.id
+    const got = await download(`/api/strikes/${id}/audio`, owner.token)
+    expect(got.headers.get('content-type')).toBe('audio/aiff') // common practice (browsers send audio/aiff for .aif)
+    expect(got.headers.get('content-disposition')).toBe(`attachment; filename="${id}.aiff"`)
+    expect(Buffer.from(got.bytes).equals(aiff)).toBe(true)
+  })
+
   it('another workshop\'s recording is 404, without a session 401', async () => {
     const owner = await newWorkshop('Audio owner')
     const stranger = await newWorkshop('Audio stranger')

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest'
+import { AUDIO_FORMAT_NAMES } from '../../../../shared/analysis/audioFormats'
 import { encodeWav } from '../../../../shared/analysis/encodeWav'
 import { synthStrike } from '../../../../shared/synthesis/synthStrike'
 import { api, newWorkshop } from '../../../integration/support/http'
@@ -126,7 +127,7 @@ describe('blanks', () => {
       await page.getByLabel(label).fill(String(value))
     }
     await page.getByLabel('From a recording of its strike').check()
-    await page.getByLabel('Or a recording (WAV, FLAC, MP3 or Ogg)').setInputFiles({ name: 'blank.wav', mimeType: 'audio/wav', buffer: Buffer.from(wav) })
+    await page.getByLabel(`Or a recording (${AUDIO_FORMAT_NAMES})`).setInputFiles({ name: 'blank.wav', mimeType: 'audio/wav', buffer: Buffer.from(wav) })
     await page.getByRole('button', { name: 'Grade and record the blank' }).click()
     const modulus = page.getByTestId('blank-result').locator('div', { hasText: 'Young\'s modulus E (Euler–Bernoulli)' }).locator('dd')
     await modulus.waitFor({ timeout: 90_000 })

@@ -51,6 +51,8 @@ describe('decoding every accepted format', () => {
     ['strike-96k.flac', 96000, 0.05],
     ['strike-44k1.mp3', 44100, 0.1], // MP3 adds encoder delay and padding
     ['strike-48k.ogg', 48000, 0.05],
+    ['strike-48k-16bit.aiff', 48000, 0.05],
+    ['strike-44k1-24bit.aifc', 44100, 0.05],
   ]
   for (const [name, rate, maxCents] of cases) {
     it(`reads ${name} and finds both sines`, async () => {
@@ -68,6 +70,8 @@ describe('decoding every accepted format', () => {
     expect(detectContainer(fixture('strike-48k.flac'))).toBe('flac')
     expect(detectContainer(fixture('strike-44k1.mp3'))).toBe('mp3')
     expect(detectContainer(fixture('strike-48k.ogg'))).toBe('ogg')
+    expect(detectContainer(fixture('strike-48k-16bit.aiff'))).toBe('aiff')
+    expect(detectContainer(fixture('strike-44k1-24bit.aifc'))).toBe('aiff')
     expect(detectContainer(fixture('not-audio.txt'))).toBe('other')
   })
 
@@ -157,6 +161,15 @@ describe('bad input gets a clear refusal', () => {
     const damaged = flac.slice()
     damaged.fill(0xff, 4, 200) // keep the "fLaC" marker, wreck the stream header
     await expectRefusal(() => analyzeStrike(damaged), 415, 'corrupt_audio')
+    await expectRefusal(() => analyzeStrike(fixture('truncated-header.aiff')), 415, 'corrupt_audio')
+  })
+
+  it('415: a compressed AIFF-C encoding it does not read', async () => {
+    const bytes = fixture('strike-44k1-24bit.aifc').slice()
+    // COMM's compression type (after FORM, FVER and COMM's own 26 bytes): 'NONE' → 'ima4'.
+    const at = bytes.findIndex((_, i) => String.fromCharCode(...bytes.subarray(i, i + 4)) === 'NONE')
+    bytes.set(new TextEncoder().encode('ima4'), at)
+    await expectRefusal(() => analyzeStrike(bytes), 415, 'unsupported_audio')
   })
 
   it('415: a compressed WAV encoding it does not read', async () => {
@@ -214,6 +227,13 @@ describe('bad input gets a clear refusal', () => {
 })
 
 describe('warnings, not errors', () => {
+  it('an AIFF cut short is measured with a warning that says how much is missing', async () => {
+    const result = await analyzeStrike(fixture('truncated.aiff'))
+    // COMM declares 40 800 frames (0.85 s); 14 956 are present (0.31 s).
+    expect(result.warnings[0]).toBe('truncated AIFF file: the header declares 0.85 s of audio but the file holds 0.31 s; only that part was measured')
+    expect(result.partials.map(p => Math.round(p.frequencyHz))).toContain(440)
+  })
+
   it('clipping is counted', () => {
     const x = strike(48000).map(v => Math.max(-0.2, Math.min(0.2, v * 3)) * 5)
     const result = analyzeSamples(x, 48000)
@@ -229,5 +249,19 @@ describe('warnings, not errors', () => {
     const result = analyzeSamples(x, 48000)
     expect(result.warnings.some(w => w.startsWith('DC offset: 0.1'))).toBe(true)
     expect(result.partials.map(p => Math.round(p.frequencyHz))).toEqual([440, 1213])
+  })
+})
+
+describe('AIFF', () => {
+  it('decodes sample for sample what the same strike holds as WAV (both written by sox)', async () => {
+    const wav = await decodeAudio(fixture('strike-48k-16bit.wav'))
+    const aiff = await decodeAudio(fixture('strike-48k-16bit.aiff'))
+    expect(aiff.sampleRate).toBe(wav.sampleRate)
+    expect(aiff.pcmBits).toBe(16)
+    // As integer codes: the WAV decoder scales positive codes by 1/32767, the AIFF decoder by 1/32768.
+    const wavCodes = Array.from(wav.channelData[0]!, v => Math.round(v * (v > 0 ? 32767 : 32768)))
+    const aiffCodes = Array.from(aiff.channelData[0]!, v => Math.round(v * 32768))
+    expect(aiffCodes).toEqual(wavCodes)
+    expect(Math.max(...aiffCodes)).toBeGreaterThan(10000)
   })
 })
