@@ -31,9 +31,13 @@ describe('decodeAudio: limits from the header, before decoding', () => {
     expect(await refusal(fast)).toMatchObject({ status: 422, code: 'bad_sample_rate' })
   })
 
-  it('refuses containers outside WAV, FLAC, MP3 and Ogg without decoding them', async () => {
+  it('refuses containers outside WAV, FLAC, AIFF, MP3 and Ogg without decoding them', async () => {
+    // Core Audio Format: 'caff', version 1 (Apple CAF specification, from memory).
+    const caf = new TextEncoder().encode('caff\0\x01\0\0desc\0\0\0\0\0\0\0\x20')
+    expect(await refusal(caf)).toMatchObject({ status: 415, code: 'not_audio' })
+    // An AIFF whose COMM chunk is cut off is refused as damaged, unread.
     const aiff = new TextEncoder().encode('FORM\0\0\0\x40AIFFCOMM\0\0\0\x12\0\x01')
-    expect(await refusal(aiff)).toMatchObject({ status: 415, code: 'not_audio' })
+    expect(await refusal(aiff)).toMatchObject({ status: 415, code: 'corrupt_audio' })
   })
 })
 
