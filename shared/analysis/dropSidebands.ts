@@ -1,3 +1,4 @@
+import { MAIN_LOBE_BINS } from './chooseWindow'
 import { firstAtOrAbove } from './firstAtOrAbove'
 import { ENGINE_SETTINGS } from './engineSettings'
 import type { TrackMeasurement } from './measureTrack'
@@ -8,6 +9,11 @@ import type { TrackMeasurement } from './measureTrack'
  * inside a short window's lobe (150 Hz apart in a 25 ms band) is no modulation of a partial.
  */
 const MAX_SIDEBAND_RATE_HZ = 2 * ENGINE_SETTINGS.modulation.maxRateHz
+/** How far a sideband's shoulder inside the carrier's main lobe may be pulled off k·f_m, as a share of f_m. */
+const IN_LOBE_SHARE = 0.3
+/** Sidebands of order over `maxOrder`, up to this, are left out when this far under the carrier, dB. */
+const HIGH_ORDER_MAX = 16
+const HIGH_ORDER_BELOW_DB = 20
 /** Slowest tremolo looked for, Hz. */
 const TREMOLO_MIN_HZ = ENGINE_SETTINGS.modulation.minRateHz
 
@@ -15,7 +21,8 @@ const TREMOLO_MIN_HZ = ENGINE_SETTINGS.modulation.minRateHz
  * Leave out the modulation sidebands of modulated partials: a partial weaker than one whose
  * spectrum showed symmetric sidebands (measureModulation) and lying k·f_m away from it (k = 1…`maxOrder`, within `toleranceHz` or
  * 5 % of f_m) is a sideband of that tremolo or vibrato (the modulation theorem), not a
- * mode of the piece. Only rates up to `maxRateHz` are modulations. Strongest carriers first, so a sideband never removes its carrier.
+ * mode of the piece; up to order 16 when 20 dB or more under the carrier (an envelope that is no
+ * pure sine has harmonics). Only rates up to `maxRateHz` are modulations. Strongest carriers first, so a sideband never removes its carrier.
  * A symmetric pair around any partial at the rate of a tremolo another partial showed (1.5–12 Hz)
  * is left out too, when its levels are a tremolo's (sidebandLevels): the discs modulate every
  * partial, but a weak one's own spectrum may not show it.
@@ -33,12 +40,18 @@ export function dropSidebands(partials: readonly TrackMeasurement[], maxOrder = 
   for (const carrier of byLevel) {
     const rate = carrier.modulationHz ?? 0
     if (dropped.has(carrier) || carrier.modulationFrom !== 'sidebands' || !(rate > 0) || rate > maxRateHz) continue
-    const reachHz = maxOrder * rate + Math.max(toleranceHz, 0.05 * rate) + 1e-9
+    const reachHz = Math.max(maxOrder, HIGH_ORDER_MAX) * rate + Math.max(toleranceHz, 0.05 * rate) + 1e-9
     for (const other of within(carrier.frequencyHz - reachHz, carrier.frequencyHz + reachHz)) {
       if (other === carrier || dropped.has(other) || !weakerThan(other, carrier)) continue
       const order = Math.abs(other.frequencyHz - carrier.frequencyHz) / rate
       const k = Math.round(order)
-      if (k >= 1 && k <= maxOrder && Math.abs(order - k) * rate <= Math.max(toleranceHz, 0.05 * rate)) dropped.add(other)
+      // A sideband inside (or at the edge of) the carrier's main lobe is no peak of its own: it shows as
+      // a shoulder, pulled off k·f_m by the carrier's skirt (a 4 Hz tremolo's in a 0.5 s window: ±4.9, ±8.7 Hz).
+      const inLobe = k * rate < (MAIN_LOBE_BINS / 2 + 1) / carrier.windowS && carrier.amplitudeDb - other.amplitudeDb >= MIN_BELOW_CARRIER_DB
+      const tolHz = Math.max(toleranceHz, 0.05 * rate, inLobe ? IN_LOBE_SHARE * rate : 0)
+      // A tremolo that is no pure sine (discs that open and shut) has sidebands of higher order, ever weaker.
+      const highOrder = k > maxOrder && k <= HIGH_ORDER_MAX && carrier.amplitudeDb - other.amplitudeDb >= HIGH_ORDER_BELOW_DB
+      if (k >= 1 && (k <= maxOrder || highOrder) && Math.abs(order - k) * rate <= tolHz) dropped.add(other)
     }
   }
   // A tremolo modulates every partial of the strike at one rate, but a weak partial's own

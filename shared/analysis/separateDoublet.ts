@@ -15,7 +15,9 @@ export interface DoubletSettings {
  * bar's twisting mode beside a bending mode — each with its own frequency, decay and
  * amplitude: the matrix pencil on the band (estimateBand) with at least two exponentials,
  * keeping the two strongest within `halfWidthHz` of `centerHz`, lower first.
- * Returns null when fewer than two components stand over the noise there.
+ * Returns null when fewer than two components stand over the noise there, and when the
+ * weaker of the two has a mirror image about the stronger (isTremoloTriplet): that is a
+ * carrier with a tremolo's two sidebands, not two partials.
  */
 export function separateDoublet(
   signal: Float64Array,
@@ -38,6 +40,24 @@ export function separateDoublet(
     .filter(c => Math.abs(c.frequencyHz - centerHz) <= settings.halfWidthHz && c.snrDb > 6)
     .sort((a, b) => b.amplitude - a.amplitude)
   if (inside.length < 2) return null
+  if (isTremoloTriplet(inside[0]!, inside[1]!, inside.slice(2))) return null
   const pair = [inside[0]!, inside[1]!].sort((a, b) => a.frequencyHz - b.frequencyHz)
   return [pair[0]!, pair[1]!]
+}
+
+/** The mirror lies within this share of the gap from where it should (rates read to a few per cent). */
+const MIRROR_SHARE = 0.1
+/** The mirror image is within this of the first sideband, dB (as the FFT path's mirroredSideband). */
+const MIRROR_WITHIN_DB = 10
+
+/**
+ * A carrier and one sideband of an amplitude modulation: the modulation theorem puts a second
+ * sideband of equal level on the carrier's other side, A·m/2 at f ± f_m; a second partial has no
+ * such mirror. `others` are the band's remaining components.
+ */
+export function isTremoloTriplet(carrier: BandComponent, side: BandComponent, others: readonly BandComponent[]): boolean {
+  const gapHz = Math.abs(side.frequencyHz - carrier.frequencyHz)
+  const mirrorHz = 2 * carrier.frequencyHz - side.frequencyHz
+  return others.some(o => Math.abs(o.frequencyHz - mirrorHz) <= MIRROR_SHARE * gapHz
+    && Math.abs(20 * Math.log10(o.amplitude / side.amplitude)) <= MIRROR_WITHIN_DB)
 }

@@ -54,14 +54,10 @@ describe('dropSidebands and dropDuplicates on dense readings', () => {
       const kept = dropSidebands(readings)
       const left = readings.filter(r => !kept.includes(r))
       // Order kept, and nothing stronger than its carrier is dropped: every reading left out lies
-      // k·rate (k = 1…6, within 0.3 Hz or 5 % of the rate) from a reading that stays.
+      // k·rate from a reading that stays (sidebandOf: the rule as dropSidebands states it).
       expect(kept).toEqual(readings.filter(r => kept.includes(r)))
       for (const r of left) {
-        const near = kept.some(c => [4, 6.75, 8, 17.5].some((rate) => {
-          const order = Math.abs(r.frequencyHz - c.frequencyHz) / rate
-          const k = Math.round(order)
-          return k >= 1 && k <= 6 && Math.abs(order - k) * rate <= Math.max(0.3, 0.05 * rate)
-        }))
+        const near = kept.some(c => [4, 6.75, 8, 17.5].some(rate => sidebandOf(r, c, rate)))
         expect(near, `${r.frequencyHz} Hz left out with no carrier`).toBe(true)
       }
       // And nothing that is a sideband stays: no kept reading, weaker on both levels than a kept
@@ -70,12 +66,24 @@ describe('dropSidebands and dropDuplicates on dense readings', () => {
         const rate = c.modulationHz!
         for (const r of kept) {
           if (r === c || !(r.amplitudeDb < c.amplitudeDb && r.strongestFrameDb <= c.strongestFrameDb)) continue
-          const order = Math.abs(r.frequencyHz - c.frequencyHz) / rate
-          const k = Math.round(order)
-          const sideband = k >= 1 && k <= 6 && Math.abs(order - k) * rate <= Math.max(0.3, 0.05 * rate)
+          const sideband = sidebandOf(r, c, rate)
           expect(sideband, `${r.frequencyHz} Hz kept beside ${c.frequencyHz} Hz at ${rate} Hz`).toBe(false)
         }
       }
     }
   })
 })
+
+/**
+ * The sideband rule, written out apart from the code: k·rate from the carrier for k = 1…6 within
+ * 0.3 Hz or 5 % of the rate (0.3 of the rate for a shoulder inside the carrier's main lobe, 6 dB
+ * or more under it), and k = 7…16 when 20 dB or more under the carrier.
+ */
+function sidebandOf(r: TrackMeasurement, c: TrackMeasurement, rate: number): boolean {
+  const order = Math.abs(r.frequencyHz - c.frequencyHz) / rate
+  const k = Math.round(order)
+  const belowDb = c.amplitudeDb - r.amplitudeDb
+  const inLobe = k * rate < 5 / c.windowS && belowDb >= 6
+  const tolHz = Math.max(0.3, 0.05 * rate, inLobe ? 0.3 * rate : 0)
+  return k >= 1 && (k <= 6 || (k <= 16 && belowDb >= 20)) && Math.abs(order - k) * rate <= tolHz
+}
