@@ -39,31 +39,26 @@ describe('downloads are typed by the server and never sniffed', () => {
     expect((await download(`/api/strikes/${id}/audio?inline=yes`, owner.token)).status).toBe(400)
   })
 
-  it('a FLAC keeps its own type whatever the uploader said', async () => {
-    const owner = await newWorkshop('Audio FLAC')
-    const set = await createSet(owner.token)
-    const flac = await readFile('tests/fixtures/audio/strike-48k.flac')
-    const strike = await postStrike(owner.token, set.pieces[1].id, flac, { temperatureC: '21' }, 'x.svg')
-    expect(strike.status).toBe(201)
-    const id = strike.body.id ?? strike.body.strike?.id
-    const got = await download(`/api/strikes/${id}/audio`, owner.token)
-    // source: RFC 9639 (FLAC), media type audio/flac
-    expect(got.headers.get('content-type')).toBe('audio/flac')
-    expect(got.headers.get('content-disposition')).toBe(`attachment; filename="${id}.flac"`)
-  })
-
-  it('an AIFF from a recorder is measured, stored and served as AIFF', async () => {
-    const owner = await newWorkshop('Audio AIFF')
-    const set = await createSet(owner.token)
-    const aiff = await readFile('tests/fixtures/audio/strike-48k-16bit.aiff')
-    const strike = await postStrike(owner.token, set.pieces[1].id, aiff, { temperatureC: '21' }, 'C4 take 2.aif')
-    expect(strike.status).toBe(201)
-    const id = strike.body.id ?? strike.body.strike?.id
-    const got = await download(`/api/strikes/${id}/audio`, owner.token)
-    expect(got.headers.get('content-type')).toBe('audio/aiff') // common practice (browsers send audio/aiff for .aif)
-    expect(got.headers.get('content-disposition')).toBe(`attachment; filename="${id}.aiff"`)
-    expect(Buffer.from(got.bytes).equals(aiff)).toBe(true)
-  })
+  // Each container keeps its own type and extension whatever the uploader said, and comes back byte for byte.
+  // source: RFC 9639 (FLAC), media type audio/flac; audio/aiff as browsers send it for .aif (common practice).
+  const CONTAINERS: [string, string, string, string, string][] = [
+    ['a FLAC named .svg', 'strike-48k.flac', 'x.svg', 'audio/flac', 'flac'],
+    ['an AIFF from a recorder', 'strike-48k-16bit.aiff', 'C4 take 2.aif', 'audio/aiff', 'aiff'],
+  ]
+  for (const [name, fixture, uploadName, mediaType, extension] of CONTAINERS) {
+    it(`${name} is stored and served as ${mediaType}`, async () => {
+      const owner = await newWorkshop(`Audio ${extension}`)
+      const set = await createSet(owner.token)
+      const bytes = await readFile(`tests/fixtures/audio/${fixture}`)
+      const strike = await postStrike(owner.token, set.pieces[1].id, bytes, { temperatureC: '21' }, uploadName)
+      expect(strike.status).toBe(201)
+      const id = strike.body.id ?? strike.body.strike?.id
+      const got = await download(`/api/strikes/${id}/audio`, owner.token)
+      expect(got.headers.get('content-type')).toBe(mediaType)
+      expect(got.headers.get('content-disposition')).toBe(`attachment; filename="${id}.${extension}"`)
+      expect(Buffer.from(got.bytes).equals(bytes)).toBe(true)
+    })
+  }
 
   it('another workshop\'s recording is 404, without a session 401', async () => {
     const owner = await newWorkshop('Audio owner')
