@@ -3,7 +3,7 @@ import { AUDIO_FORMAT_NAMES } from './audioFormats'
 import { decodeBounded, type DecodedAudio } from './decodeBounded'
 import { detectContainer } from './detectContainer'
 import { LIMITS } from './limits'
-import { AIFF_PCM_TYPES, readAiffHeader } from './readAiffHeader'
+import { AIFF_INTEGER_TYPES, AIFF_PCM_TYPES, readAiffHeader } from './readAiffHeader'
 import { readDeclaredAudio } from './readDeclaredAudio'
 import { readWavHeader } from './readWavHeader'
 
@@ -88,7 +88,7 @@ export async function decodeAudio(bytes: Uint8Array): Promise<DecodedFile> {
 /** Integer PCM under 32 bits states a quantisation step; float and 32-bit integer hold more than the engine reports. */
 function pcmBitsOf(wav: ReturnType<typeof readWavHeader>, aiff: ReturnType<typeof readAiffHeader>): number | null {
   if (wav && wav !== 'corrupt') return wav.formatTag !== 3 && wav.bitsPerSample < 32 ? wav.bitsPerSample : null
-  if (aiff && aiff !== 'corrupt') return ['NONE', 'twos', 'sowt'].includes(aiff.compression) && aiff.bitsPerSample < 32 ? aiff.bitsPerSample : null
+  if (aiff && aiff !== 'corrupt') return AIFF_INTEGER_TYPES.has(aiff.compression) && aiff.bitsPerSample < 32 ? aiff.bitsPerSample : null
   return null
 }
 

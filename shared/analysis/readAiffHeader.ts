@@ -15,8 +15,10 @@ export interface AiffHeader {
   frames: number
 }
 
-/** Uncompressed encodings: big-endian integer ('NONE', 'twos'), little-endian ('sowt'), float. */
-export const AIFF_PCM_TYPES: ReadonlySet<string> = new Set(['NONE', 'twos', 'sowt', 'fl32', 'FL32', 'fl64', 'FL64'])
+/** Uncompressed integer encodings: big-endian ('NONE', 'twos') and little-endian ('sowt'). */
+export const AIFF_INTEGER_TYPES: ReadonlySet<string> = new Set(['NONE', 'twos', 'sowt'])
+/** Uncompressed encodings: the integer ones and float. */
+export const AIFF_PCM_TYPES: ReadonlySet<string> = new Set([...AIFF_INTEGER_TYPES, 'fl32', 'FL32', 'fl64', 'FL64'])
 
 /**
  * Read the header of an AIFF or AIFF-C file without decoding it (Apple, Audio Interchange

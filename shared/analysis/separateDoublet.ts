@@ -1,4 +1,5 @@
 import { estimateBand, type BandComponent } from './estimateBand'
+import { MIRROR_WITHIN_DB } from './mirroredSideband'
 
 export interface DoubletSettings {
   /** First and one-past-last sample that may be used. */
@@ -47,8 +48,6 @@ export function separateDoublet(
 
 /** The mirror lies within this share of the gap from where it should (rates read to a few per cent). */
 const MIRROR_SHARE = 0.1
-/** The mirror image is within this of the first sideband, dB (as the FFT path's mirroredSideband). */
-const MIRROR_WITHIN_DB = 10
 
 /**
  * A carrier and one sideband of an amplitude modulation: the modulation theorem puts a second
