@@ -10,6 +10,8 @@ export interface StrikeSpan {
   noiseFloorDb: number
   /** Level of the loudest block, dB re full scale (RMS). */
   peakDb: number
+  /** First sample of the loudest block. */
+  peakIndex: number
 }
 
 export interface StrikeSettings {
@@ -19,9 +21,13 @@ export interface StrikeSettings {
   blockS?: number
 }
 
+/** The lead-in before the strike ends at the first block this close to the loudest, dB. */
+const LEAD_IN_BELOW_PEAK_DB = 20
+
 /**
  * Find the strike in a mono recording from its short-time energy envelope (1 ms
- * blocks): the noise floor is the median level of the lead-in before the loudest block
+ * blocks): the noise floor is the median level of the lead-in before the first block within
+ * 20 dB of the loudest
  * (or the 10th percentile of all blocks when that is lower or there is no lead-in), the onset is
  * the first sample of the rise to the loudest block (the first sample over
  * max(4 × noise RMS, peak − 30 dB) from the block where the envelope left the floor),
@@ -43,9 +49,13 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   for (let b = 1; b < blocks; b++) if (levels[b]! > levels[peakBlock]!) peakBlock = b
   const peakDb = levels[peakBlock]!
   // The quiet part is the lead-in before the strike when there is one (a ringing piece may
-  // never fall to the floor within the recording), else the quietest tenth of the blocks.
+  // never fall to the floor within the recording), else the quietest tenth of the blocks. The
+  // lead-in ends where the sound first comes near its loudest: under a deep slow tremolo the
+  // loudest block may be a later swell, and what lies before it is the strike, not the floor.
   let noiseFloorDb = percentile(levels, 0.1)
-  if (peakBlock >= 15) noiseFloorDb = Math.min(noiseFloorDb, percentile(levels.subarray(0, peakBlock - 5), 0.5))
+  let firstLoud = 0
+  while (levels[firstLoud]! < peakDb - LEAD_IN_BELOW_PEAK_DB) firstLoud++
+  if (firstLoud >= 15) noiseFloorDb = Math.min(noiseFloorDb, percentile(levels.subarray(0, firstLoud - 5), 0.5))
   const riseDb = Math.max(noiseFloorDb + 10, peakDb - 40)
 
   // Walk back from the loudest block to where the envelope left the floor. A low partial
@@ -82,7 +92,7 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   }
   const endIndex = Math.min(signal.length, (last + 1) * block)
   const startIndex = Math.min(endIndex, onsetIndex + Math.round(settings.attackSkipS * sampleRate))
-  return { onsetIndex, startIndex, endIndex, noiseFloorDb, peakDb }
+  return { onsetIndex, startIndex, endIndex, noiseFloorDb, peakDb, peakIndex: peakBlock * block }
 }
 
 function percentile(values: Float64Array, q: number): number {

@@ -22,6 +22,13 @@ export function locateStrike(
   const found = findStrike(mono, sampleRate, { attackSkipS: settings.attackSkipS })
   const warnings: string[] = []
   let { onsetIndex, startIndex, endIndex } = found
+  // The rise to the loudest moment may hold a blow of its own (a light tap, then the real
+  // strike): the strike is the last blow before the loudest moment. A tremolo's or a beat's
+  // swell is no blow, so the strike keeps the onset where the sound first rose.
+  for (let blow = laterBlow(mono, sampleRate, found, onsetIndex); blow !== null; blow = laterBlow(mono, sampleRate, found, onsetIndex)) {
+    onsetIndex = blow
+    startIndex = Math.min(endIndex, blow + Math.round(settings.attackSkipS * sampleRate))
+  }
   if (found.peakDb - found.noiseFloorDb < settings.minProminenceDb) {
     // No quiet part to tell the strike from: the sound rings through the whole recording
     // (or there is no strike at all). Take the first loud sample as onset, analyse to the end.
@@ -44,4 +51,11 @@ export function locateStrike(
     startIndex = Math.max(0, Math.min(startIndex, endIndex - minSpan))
   }
   return { strike: { ...found, onsetIndex, startIndex, endIndex }, warnings }
+}
+
+/** A blow after `onsetIndex` and before the strike's loudest moment (findSecondStrike), or null. */
+function laterBlow(mono: Float64Array, sampleRate: number, found: StrikeSpan, onsetIndex: number): number | null {
+  const toIndex = found.peakIndex + Math.max(16, Math.round(sampleRate * 0.001))
+  if (toIndex <= onsetIndex) return null
+  return findSecondStrike(mono, sampleRate, { onsetIndex, fromIndex: onsetIndex + Math.round(sampleRate * 0.005), toIndex })
 }

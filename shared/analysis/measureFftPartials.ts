@@ -7,6 +7,7 @@ import { guardPartials } from './guardPartials'
 import { measureAllBands } from './measureAllBands'
 import { quantisationRangeDb } from './quantisationRangeDb'
 import type { BandMeasurement } from './measureBand'
+import type { TrackMeasurement } from './measureTrack'
 import type { AnalysisPlan } from './planAnalysis'
 import { reportFloor } from './reportFloor'
 import type { DoubletCandidate } from './splitDoublets'
@@ -24,7 +25,8 @@ export interface FftPartials {
 /**
  * Every band measured and merged (measureAllBands), readings outside the physical bounds
  * left out (guardPartials), then the reported range (within `dynamicRangeDb` of the
- * strongest: 80 dB, 35 for a lossy codec, less for coarse PCM by quantisationRangeDb), modulation sidebands, duplicates and spurious tracks left out.
+ * strongest: 80 dB, 35 for a lossy codec — judged at its strongest frame —, less for coarse PCM by
+ * quantisationRangeDb), modulation sidebands, duplicates and spurious tracks left out.
  */
 export function measureFftPartials(
   mono: Float64Array,
@@ -48,7 +50,10 @@ export function measureFftPartials(
   const guarded = guardPartials(merged, bounds)
   const strongestDb = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb))
   const minAmplitudeDb = strongestDb - dynamicRangeDb
-  const honest = dropSpuriousPartials(dropDuplicates(dropSidebands(guarded.kept.filter(m => m.amplitudeDb >= minAmplitudeDb))), { strongestDb, ...S.spurious })
+  // A codec's noise rises in the quiet tail; read back to the blow at its own fast decay it
+  // would pass for a loud partial, so a lossy file's readings are judged where they were seen.
+  const seenDb = (m: TrackMeasurement) => level.lossy ? Math.min(m.amplitudeDb, m.strongestFrameDb) : m.amplitudeDb
+  const honest = dropSpuriousPartials(dropDuplicates(dropSidebands(guarded.kept.filter(m => seenDb(m) >= minAmplitudeDb))), { strongestDb, ...S.spurious })
   const partials = honest.kept.map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }): DoubletCandidate => p)
   return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: [...guarded.warnings, ...honest.warnings] }
 }

@@ -5,8 +5,8 @@ import type { SynthPartial } from './synthStrike'
 
 /** A mode of a realistic strike: a decaying sinusoid, optionally amplitude-modulated. */
 export interface RealisticPartial extends SynthPartial {
-  /** Tremolo: envelope × (1 + index · cos 2π rate t); index 0…1. */
-  tremolo?: { rateHz: number, index: number }
+  /** Tremolo: envelope × (1 + index · cos(2π rate t + phase)); index 0…1; phase 0 (a swell at the blow) unless given. */
+  tremolo?: { rateHz: number, index: number, phaseRad?: number }
 }
 
 export interface RealisticOptions {
@@ -48,10 +48,11 @@ export function synthRealisticStrike(partials: RealisticPartial[], options: Real
     const phase = p.phaseRad ?? random.uniform() * 2 * Math.PI
     const tremoloW = p.tremolo ? (2 * Math.PI * p.tremolo.rateHz) / sampleRate : 0
     const index = p.tremolo?.index ?? 0
+    const tremoloPhase = p.tremolo?.phaseRad ?? 0
     let env = a
     for (let i = onset; i < n && env > 1e-9; i++) {
       const t = i - onset
-      out[i]! += env * (1 + index * Math.cos(tremoloW * t)) * Math.cos(w * t + phase)
+      out[i]! += env * (1 + index * Math.cos(tremoloW * t + tremoloPhase)) * Math.cos(w * t + phase)
       env *= perSample
     }
   }
