@@ -1,5 +1,5 @@
 import { AnalysisError } from './AnalysisError'
-import { channelSigns } from './channelSigns'
+import { alignChannels } from './alignChannels'
 import { checkLimits } from './decodeAudio'
 import { inspectLevels } from './inspectLevels'
 import { LIMITS } from './limits'
@@ -15,7 +15,8 @@ export interface PreparedMono {
 
 /**
  * Check the decoded channels (limits, invalid samples, silence, clipping), mix them to
- * mono (a channel wired in opposite polarity inverted, a dead one left out: channelSigns)
+ * mono (a channel wired in opposite polarity inverted, a dead one left out, a later one
+ * lined up with the loudest: alignChannels)
  * and remove the DC offset. Throws AnalysisError for audio that cannot be measured.
  */
 export function prepareMono(channels: readonly ArrayLike<number>[], sampleRate: number): PreparedMono {
@@ -31,12 +32,12 @@ export function prepareMono(channels: readonly ArrayLike<number>[], sampleRate: 
   }
   const warnings: string[] = []
   if (levels.clippedSamples > 0) warnings.push(`clipped samples: ${levels.clippedSamples}`)
-  const signs = channels.length > 1 ? channelSigns(channels) : undefined
+  const { signs, lags } = channels.length > 1 ? alignChannels(channels, sampleRate) : { signs: undefined, lags: undefined }
   signs?.forEach((sign, k) => {
     if (sign === -1) warnings.push(`channel ${k + 1} is in opposite polarity to the loudest channel; it was inverted before mixing`)
     if (sign === 0) warnings.push(`channel ${k + 1} is silent or nearly so (40 dB or more under the loudest); it was left out of the mix`)
   })
-  const mono = mixToMono(channels, signs)
+  const mono = mixToMono(channels, signs, lags)
   let mean = 0
   for (let i = 0; i < mono.length; i++) mean += mono[i]!
   mean /= mono.length
