@@ -7,6 +7,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { synthRealisticStrike, type RealisticOptions, type RealisticPartial } from '../../shared/synthesis/synthRealisticStrike'
+import { seededRandom } from './seededRandom'
 import { writeWav, type WavFormat, type WavOptions } from './writeWav'
 
 export interface ConditionCase {
@@ -83,6 +84,23 @@ function scaledToPeakDb(x: Float64Array, peakDb: number): Float64Array {
   return x.map(v => v * g)
 }
 
+/** x plus low-passed seeded noise (two one-pole sections at 30 Hz) scaled to `levelDb` RMS re full scale. */
+function withRumble(x: Float64Array, sampleRate: number, levelDb: number): Float64Array {
+  const random = seededRandom(77)
+  const a = Math.exp((-2 * Math.PI * 30) / sampleRate)
+  const rumble = new Float64Array(x.length)
+  let y1 = 0
+  let y2 = 0
+  for (let i = 0; i < x.length; i++) {
+    y1 = a * y1 + (1 - a) * random.normal()
+    y2 = a * y2 + (1 - a) * y1
+    rumble[i] = y2
+  }
+  const rms = Math.sqrt(rumble.reduce((sum, v) => sum + v * v, 0) / rumble.length)
+  const gain = 10 ** (levelDb / 20) / rms
+  return x.map((v, i) => v + gain * rumble[i]!)
+}
+
 /** What of the synthesised truth the file keeps: all of it, the decays only (a scaled file), or neither. */
 type Kept = 'all' | 'decay' | 'none'
 
@@ -130,6 +148,9 @@ function formatCases(): ConditionCase[] {
     makeCase('format FLAC 24-bit, 96 kHz', 'marimbaA3', () => flacOf(wav(render(s, { sampleRate: 96000 }), 96000, 'pcm24'))),
     makeCase('stereo channels out of phase', 'marimbaA3', () => stereo(render(s), x => x.map(v => -v))),
     makeCase('stereo one channel silent', 'marimbaA3', () => stereo(render(s), x => new Float64Array(x.length))),
+    // A spaced pair whose far microphone hears the strike 27 samples (0.56 ms) later: the plain
+    // average's comb null (1/(2τ) = 889 Hz) sits on the ×4 partial (874.2 Hz).
+    makeCase('stereo spaced pair, far microphone 0.56 ms later', 'marimbaA3', () => stereo(render(s), x => x.map((_, i) => (i >= 27 ? 0.9 * x[i - 27]! : 0)))),
     makeCase('header declares 10 s, holds 0.5 s', 'xylophoneC5', () => {
       const x = render(STRIKES.xylophoneC5, { durationS: 0.5 })
       return wav(x, 48000, 'pcm16', { declaredDataBytes: 10 * 48000 * 2 })
@@ -178,6 +199,8 @@ function levelCases(): ConditionCase[] {
     makeCase('xylophone C5 in a live room (T60 1 s, tail −15 dB)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5, { room: { t60S: 1, wetDb: -15 }, durationS: 2.5 }), r), undefined, 'none', 1),
     makeCase('a loud mallet burst (−6 dBFS, 15 ms)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5, { mallet: { levelDb: -6, durationS: 0.015 } }), r)),
     makeCase('background noise at −50 dBFS RMS', 'chimesC5', () => wav(render(STRIKES.chimesC5, { noiseDb: -50 }), r)),
+    makeCase('rumble under 30 Hz (air handling, a foot on the stand) at −30 dBFS RMS', 'marimbaC2', () => wav(withRumble(render(STRIKES.marimbaC2), r, -30), r)),
+    makeCase('rumble under 30 Hz at −30 dBFS RMS', 'vibraphoneF3', () => wav(withRumble(render(v), r, -30), r)),
   ]
 }
 
