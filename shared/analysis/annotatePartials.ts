@@ -36,7 +36,8 @@ const SEARCH_RATIO = 2 ** (5 / 1200) - 1
  * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)²), with
  * u_bound the Cramér–Rao bound at the pencil's measured amplitude, decay, span and noise and
  * Δ/√2 the standard deviation of the two readings; uncertaintyDecayPct likewise for the decay.
- * A warning is added where |Δ| exceeds k = 2 times the combined uncertainty of the two readings.
+ * The partials where |Δ| exceeds k = 2 times the combined uncertainty of the two readings are named
+ * in one warning, those the pencil could not read in another.
  */
 export function annotatePartials<P extends FftPartial>(
   signal: Float64Array,
@@ -48,7 +49,8 @@ export function annotatePartials<P extends FftPartial>(
   const endIndex = Math.min(settings.endIndex, signal.length)
   if (!(startIndex >= 0 && startIndex < endIndex)) throw new RangeError('annotatePartials needs a span inside the signal')
   const maxSpanS = settings.maxSpanS ?? 1
-  const warnings: string[] = []
+  const unchecked: string[] = []
+  const disagreeing: string[] = []
   const out = partials.map((p) => {
     checkWorkDeadline()
     const none = { ...p, crossCheckCents: null, uncertaintyCents: null, uncertaintyDecayPct: null }
@@ -71,7 +73,7 @@ export function annotatePartials<P extends FftPartial>(
       Number.isFinite(c.frequencyHz) && Number.isFinite(c.decayDbPerS) && Number.isFinite(c.frequencySdHz)
       && Math.abs(c.frequencyHz - p.frequencyHz) <= band.halfWidthHz && c.snrDb > 6) ?? []
     if (near.length === 0) {
-      warnings.push(`partial at ${p.frequencyHz.toFixed(2)} Hz could not be cross-checked by the high-resolution estimator`)
+      unchecked.push(`${p.frequencyHz.toFixed(2)} Hz`)
       return none
     }
     // Components closer than a resolution cell (2 / span) to the strongest one are one FFT
@@ -91,12 +93,22 @@ export function annotatePartials<P extends FftPartial>(
       : null
     const combined = boundCents * Math.sqrt(1 + FFT_VARIANCE_FACTOR)
     if (Math.abs(delta) > Math.max(WARN_FLOOR_CENTS, COVERAGE * combined)) {
-      warnings.push(
-        `partial at ${p.frequencyHz.toFixed(2)} Hz: the high-resolution estimate differs by ${delta.toFixed(2)} ¢, `
-        + `more than the two readings' combined uncertainty allows (±${Math.max(WARN_FLOOR_CENTS, COVERAGE * combined).toFixed(2)} ¢)`,
-      )
+      disagreeing.push(`${p.frequencyHz.toFixed(2)} Hz by ${delta.toFixed(2)} ¢ (±${Math.max(WARN_FLOOR_CENTS, COVERAGE * combined).toFixed(2)} ¢)`)
     }
     return { ...p, crossCheckCents: delta, uncertaintyCents, uncertaintyDecayPct }
   })
+  // One sentence for each kind, however many partials: a real strike has dozens, and the Bench
+  // shows each warning on its own line.
+  const warnings: string[] = []
+  if (disagreeing.length > 0) {
+    warnings.push(`${partialsPhrase(disagreeing.length)}, the high-resolution estimate differs from the reading by more than the two readings' combined uncertainty allows (its share is in the partial's uncertainty): ${disagreeing.join(', ')}`)
+  }
+  if (unchecked.length > 0) {
+    warnings.push(`${unchecked.length === 1 ? '1 partial' : `${unchecked.length} partials`} could not be cross-checked by the high-resolution estimator: ${unchecked.join(', ')}`)
+  }
   return { partials: out, warnings }
+}
+
+function partialsPhrase(count: number): string {
+  return count === 1 ? 'At 1 partial' : `At ${count} partials`
 }

@@ -46,6 +46,16 @@ describe('annotatePartials', () => {
     expect(out.warnings[0]).toContain('1048.32 Hz')
   })
 
+  it('names every partial of one kind in one warning (a real strike has dozens)', () => {
+    const signal = synthStrike(truth, { sampleRate, durationS: 2, noiseDb: -70, seed: 9 })
+    const misread = truth.map(t => reading(t.frequencyHz * 2 ** (3 / 1200), t.decayDbPerS))
+    const out = annotatePartials(signal, sampleRate, [...misread, reading(700, 20), reading(1700, 20)], { startIndex: 0, endIndex: signal.length })
+    expect(out.warnings).toHaveLength(2)
+    expect(out.warnings[0]).toMatch(new RegExp(`^At ${truth.length} partials, the high-resolution estimate differs`))
+    for (const p of misread) expect(out.warnings[0]).toContain(`${p.frequencyHz.toFixed(2)} Hz by -3.00 ¢`)
+    expect(out.warnings[1]).toBe('2 partials could not be cross-checked by the high-resolution estimator: 700.00 Hz, 1700.00 Hz')
+  })
+
   it('leaves the fields null, with a warning, where the pencil finds nothing', () => {
     const signal = synthStrike(truth, { sampleRate, durationS: 2, noiseDb: -70, seed: 9 })
     const out = annotatePartials(signal, sampleRate, [reading(700, 20)], { startIndex: 0, endIndex: signal.length })
