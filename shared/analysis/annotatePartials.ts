@@ -31,8 +31,8 @@ const SEARCH_RATIO = 2 ** (5 / 1200) - 1
  * Cross-check every FFT partial with the matrix pencil (estimateBand) over a span that ends
  * where the partial has sunk into the noise (its SNR + 10 dB of decay, at most `maxSpanS`), in
  * a band a few line-widths and resolution cells (and at least ±5 ¢) wide. The partial's second
- * reading is the power-weighted centroid of the pencil components within one resolution cell
- * (2 / span) of the strongest component in the band's passband.
+ * reading is the inverse-variance weighted mean of the pencil components within one resolution
+ * cell (2 / span) of the strongest component (by energy over the span) in the band's passband.
  * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)²), with
  * u_bound the Cramér–Rao bound at the pencil's measured amplitude, decay, span and noise and
  * Δ/√2 the standard deviation of the two readings; uncertaintyDecayPct likewise for the decay.
@@ -76,14 +76,17 @@ export function annotatePartials<P extends FftPartial>(
       unchecked.push(`${p.frequencyHz.toFixed(2)} Hz`)
       return none
     }
-    // Components closer than a resolution cell (2 / span) to the strongest one are one FFT
-    // peak (a beating pair, an envelope that is not a single exponential): compare the FFT
-    // with their power-weighted centroid, and carry the strongest one's bound.
-    const strongest = near.reduce((a, b) => (b.amplitude > a.amplitude ? b : a))
+    // Components closer than a resolution cell (2 / span) to the strongest one (by energy over
+    // the span: a transient of the attack or the room may start louder and be gone in 50 ms) are
+    // one FFT peak (a beating pair, an envelope that is not a single exponential): compare the FFT
+    // with their inverse-variance weighted mean (a pair of like decays weighs as its powers; a
+    // transient, whose frequency the span hardly fixes, barely counts), and carry the strongest one's bound.
+    const strongest = near.reduce((a, b) => (energyOver(b, usedS) > energyOver(a, usedS) ? b : a))
     const cell = near.filter(c => Math.abs(c.frequencyHz - strongest.frequencyHz) <= 2 / usedS)
-    const power = cell.reduce((sum, c) => sum + c.amplitude ** 2, 0)
-    const centroidHz = cell.reduce((sum, c) => sum + c.frequencyHz * c.amplitude ** 2, 0) / power
-    const centroidDecay = cell.reduce((sum, c) => sum + c.decayDbPerS * c.amplitude ** 2, 0) / power
+    const weightOf = (c: typeof strongest) => 1 / Math.max(c.frequencySdHz ** 2, Number.MIN_VALUE)
+    const weights = cell.reduce((sum, c) => sum + weightOf(c), 0)
+    const centroidHz = cell.reduce((sum, c) => sum + c.frequencyHz * weightOf(c), 0) / weights
+    const centroidDecay = cell.reduce((sum, c) => sum + c.decayDbPerS * weightOf(c), 0) / weights
     const delta = centsBetween(centroidHz, p.frequencyHz)
     const boundCents = (CENTS_PER_LOG * strongest.frequencySdHz) / p.frequencyHz
     const uncertaintyCents = Math.hypot(boundCents, delta / Math.SQRT2)
@@ -107,6 +110,13 @@ export function annotatePartials<P extends FftPartial>(
     warnings.push(`${unchecked.length === 1 ? '1 partial' : `${unchecked.length} partials`} could not be cross-checked by the high-resolution estimator: ${unchecked.join(', ')}`)
   }
   return { partials: out, warnings }
+}
+
+/** Energy of a damped component over `spanS` from its reference sample: a²·(1 − e^{−2αT}) / 2α, α in nepers/s. */
+function energyOver(c: { amplitude: number, decayDbPerS: number }, spanS: number): number {
+  const alpha = c.decayDbPerS / (20 / Math.LN10)
+  const x = 2 * alpha * spanS
+  return c.amplitude ** 2 * (Math.abs(x) < 1e-9 ? spanS : -Math.expm1(-x) / (2 * alpha))
 }
 
 function partialsPhrase(count: number): string {
