@@ -24,11 +24,18 @@ export interface BandPlanSettings {
 }
 
 /**
+ * Neighbours closer than this many main lobes are a pair the band cannot resolve. A
+ * Blackman–Harris main lobe is 8 bins wide, its sidelobes 92 dB down (Harris 1978): 6 bins
+ * apart, each peak and the bins beside it lie outside the other's main lobe.
+ */
+const PAIR_LOBES = 0.75
+
+/**
  * Multi-resolution layout: band 0 is the long window (chooseWindow) over the whole band
  * and span; then windows `bandWindowRatio` times shorter each, down to `shortestWindowS`,
  * each measuring only where it still resolves the partials — above 1.25 main lobes from DC
  * (as chooseWindow asks of the lowest partial); around every pair of neighbours (within one
- * list) closer than 1.25 main lobes it only adds what the slower bands missed (its
+ * list) closer than 0.75 main lobes (PAIR_LOBES) it only adds what the slower bands missed (its
  * `pairZonesHz`), so a vibrato family or a doublet high up does not take the fast bands away
  * from the short-lived partials below and beside it — with a hop of a quarter window over its first
  * `fastBandFrames` frames. Long windows where partials are low and close, short ones where
@@ -54,7 +61,7 @@ export function planBands(
     const pairs: [number, number][] = []
     for (const list of neighbourLists) {
       for (let i = 1; i < list.length; i++) {
-        if (list[i]! - list[i - 1]! < margin * lobeHz) pairs.push([list[i - 1]! - (margin * lobeHz) / 2, list[i]! + (margin * lobeHz) / 2])
+        if (list[i]! - list[i - 1]! < PAIR_LOBES * lobeHz) pairs.push([list[i - 1]! - (PAIR_LOBES * lobeHz) / 2, list[i]! + (PAIR_LOBES * lobeHz) / 2])
       }
     }
     if (ownFromHz >= 0.8 * range.maxHz) break

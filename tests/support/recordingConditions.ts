@@ -52,6 +52,9 @@ export const STRIKES = {
   xylophoneC5: { family: 'xylophone', targetHz: 523.25, ratios: [1, 3, 6], partials: [
     { frequencyHz: 523.4, amplitudeDb: -10, decayDbPerS: 40 }, { frequencyHz: 1572.1, amplitudeDb: -14, decayDbPerS: 200 }, { frequencyHz: 3180.5, amplitudeDb: -22, decayDbPerS: 600 },
   ], options: { sampleRate: 48000, durationS: 1.5, onsetS: 0.1, seed: 44, mallet: { levelDb: -12, durationS: 0.002 }, noiseDb: -80 } },
+  xylophoneF4: { family: 'xylophone', targetHz: 349.23, ratios: [1, 3, 6], partials: [
+    { frequencyHz: 349.23, amplitudeDb: -10, decayDbPerS: 30 }, { frequencyHz: 1049.8, amplitudeDb: -12, decayDbPerS: 220 }, { frequencyHz: 2099.6, amplitudeDb: -24, decayDbPerS: 500 },
+  ], options: { sampleRate: 44100, durationS: 1.5, onsetS: 0.3, seed: 3, mallet: { levelDb: -18, durationS: 0.004 }, room, noiseDb: -72 } },
   xylophoneC8: { family: 'xylophone', targetHz: 4186.01, ratios: [1, 3], partials: [
     { frequencyHz: 4186.9, amplitudeDb: -10, decayDbPerS: 80 }, { frequencyHz: 12571, amplitudeDb: -18, decayDbPerS: 300 },
   ], options: { sampleRate: 44100, durationS: 1, onsetS: 0.1, seed: 45, mallet: { levelDb: -14, durationS: 0.001 }, noiseDb: -80 } },
@@ -214,6 +217,8 @@ function familyCases(): ConditionCase[] {
       tremoloHz: rate,
     })),
     makeCase('xylophone C5 hard mallet (T60 0.3 s and 0.1 s overtones)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5), 48000, 'pcm24')),
+    // A ×6 of T60 0.12 s beside a room's tail, 1 050 Hz over the ×3: read within 1 ¢ with and without a target.
+    makeCase('xylophone F4 hard mallet in a room (×6 of T60 0.12 s)', 'xylophoneF4', () => wav(render(STRIKES.xylophoneF4), 44100, 'pcm24'), undefined, 'all', 1),
   ]
 }
 

@@ -37,6 +37,16 @@ describe('planBands (multi-resolution layout)', () => {
     }
   })
 
+  it('counts neighbours 6 main-lobe bins or more apart as resolved (a xylophone\'s ×3 and ×6 in the 8 ms window)', () => {
+    // source: Harris 1978 — a Blackman–Harris main lobe is 8 bins wide (±4) and its sidelobes 92 dB down,
+    // so two peaks 6 bins apart each lie, with the bins beside them, outside the other's main lobe.
+    const shortest = (list: number[]) => planBands(long, [list], 48000, { startIndex: 0, endIndex: 144000 }, { minHz: 20, maxHz: 20000 }, settings).at(-1)!
+    const binHz = 1 / shortest([]).windowS
+    expect(shortest([1047.7, 2095.4]).pairZonesHz).toEqual([]) // 8.4 bins apart
+    expect(shortest([1047.7, 1047.7 + 6.2 * binHz]).pairZonesHz).toEqual([])
+    expect(shortest([1047.7, 1047.7 + 5.8 * binHz]).pairZonesHz).toHaveLength(1)
+  })
+
   it('adds no fast band under a forced window (none shorter is wanted)', () => {
     expect(planBands(long, [], 48000, { startIndex: 0, endIndex: 144000 }, { minHz: 20, maxHz: 20000 }, { ...settings, shortestWindowS: Infinity })).toHaveLength(1)
   })
