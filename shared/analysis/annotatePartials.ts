@@ -49,8 +49,8 @@ export function annotatePartials<P extends FftPartial>(
   const endIndex = Math.min(settings.endIndex, signal.length)
   if (!(startIndex >= 0 && startIndex < endIndex)) throw new RangeError('annotatePartials needs a span inside the signal')
   const maxSpanS = settings.maxSpanS ?? 1
-  const unchecked: string[] = []
-  const disagreeing: string[] = []
+  const unchecked: [number, string][] = []
+  const disagreeing: [number, string][] = []
   const out = partials.map((p) => {
     checkWorkDeadline()
     const none = { ...p, crossCheckCents: null, uncertaintyCents: null, uncertaintyDecayPct: null }
@@ -73,7 +73,7 @@ export function annotatePartials<P extends FftPartial>(
       Number.isFinite(c.frequencyHz) && Number.isFinite(c.decayDbPerS) && Number.isFinite(c.frequencySdHz)
       && Math.abs(c.frequencyHz - p.frequencyHz) <= band.halfWidthHz && c.snrDb > 6) ?? []
     if (near.length === 0) {
-      unchecked.push(`${p.frequencyHz.toFixed(2)} Hz`)
+      unchecked.push([p.frequencyHz, `${p.frequencyHz.toFixed(2)} Hz`])
       return none
     }
     // Components closer than a resolution cell (2 / span) to the strongest one (by energy over
@@ -96,7 +96,7 @@ export function annotatePartials<P extends FftPartial>(
       : null
     const combined = boundCents * Math.sqrt(1 + FFT_VARIANCE_FACTOR)
     if (Math.abs(delta) > Math.max(WARN_FLOOR_CENTS, COVERAGE * combined)) {
-      disagreeing.push(`${p.frequencyHz.toFixed(2)} Hz by ${delta.toFixed(2)} ¢ (±${Math.max(WARN_FLOOR_CENTS, COVERAGE * combined).toFixed(2)} ¢)`)
+      disagreeing.push([p.frequencyHz, `${p.frequencyHz.toFixed(2)} Hz by ${delta.toFixed(2)} ¢ (±${Math.max(WARN_FLOOR_CENTS, COVERAGE * combined).toFixed(2)} ¢)`])
     }
     return { ...p, crossCheckCents: delta, uncertaintyCents, uncertaintyDecayPct }
   })
@@ -104,10 +104,10 @@ export function annotatePartials<P extends FftPartial>(
   // shows each warning on its own line.
   const warnings: string[] = []
   if (disagreeing.length > 0) {
-    warnings.push(`${partialsPhrase(disagreeing.length)}, the high-resolution estimate differs from the reading by more than the two readings' combined uncertainty allows (its share is in the partial's uncertainty): ${disagreeing.join(', ')}`)
+    warnings.push(`${partialsPhrase(disagreeing.length)}, the high-resolution estimate differs from the reading by more than the two readings' combined uncertainty allows (its share is in the partial's uncertainty): ${listed(disagreeing)}`)
   }
   if (unchecked.length > 0) {
-    warnings.push(`${unchecked.length === 1 ? '1 partial' : `${unchecked.length} partials`} could not be cross-checked by the high-resolution estimator: ${unchecked.join(', ')}`)
+    warnings.push(`${unchecked.length === 1 ? '1 partial' : `${unchecked.length} partials`} could not be cross-checked by the high-resolution estimator: ${listed(unchecked)}`)
   }
   return { partials: out, warnings }
 }
@@ -117,6 +117,14 @@ function energyOver(c: { amplitude: number, decayDbPerS: number }, spanS: number
   const alpha = c.decayDbPerS / (20 / Math.LN10)
   const x = 2 * alpha * spanS
   return c.amplitude ** 2 * (Math.abs(x) < 1e-9 ? spanS : -Math.expm1(-x) / (2 * alpha))
+}
+
+/** Partials named in one warning, lowest first; the rest are counted (each partial carries its own fields). */
+const NAMED_AT_MOST = 10
+
+function listed(items: readonly [number, string][]): string {
+  const named = [...items].sort((a, b) => a[0] - b[0]).slice(0, NAMED_AT_MOST).map(([, text]) => text).join(', ')
+  return items.length > NAMED_AT_MOST ? `${named} and ${items.length - NAMED_AT_MOST} more` : named
 }
 
 function partialsPhrase(count: number): string {

@@ -4,6 +4,9 @@ import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { BASE_URL, launch, screenshot, signInAs, type Page } from '../../support/browser'
 import { benchStrikeWav } from '../../../support/benchStrike'
+import { synthStrike } from '../../../support/synthStrike'
+import { writeWav } from '../../../support/writeWav'
+import { noteToFrequencyHz } from '../../../../shared/analysis/noteToFrequencyHz'
 import { createBenchSet, pieceOf } from '../../../support/benchSet'
 
 // source: the synthesis itself — the fake microphone plays a strike of C4 (A4 = 440 Hz)
@@ -135,6 +138,35 @@ describe('the Bench', () => {
     await page.getByTestId('upload-row').filter({ hasText: 'measured' }).nth(2).waitFor({ timeout: 40_000 })
     const after = await Promise.all(['C4', 'C#4', 'D#4'].map(n => pieceOf(BASE_URL, bench.token, bench.byNote(n).id)))
     after.forEach((p, i) => expect(p.strikeCount).toBe(before[i]!.strikeCount + 1))
+    await page.close()
+  })
+
+  it('folds the engine\'s notes on a troubled recording under one line, opened on request', async () => {
+    // A D4 strike with several things to say: driven into clipping, a DC offset, a second blow,
+    // and its second channel wired the other way round.
+    const f = noteToFrequencyHz('D4')
+    const bar = [{ frequencyHz: f, amplitudeDb: -8, decayDbPerS: 12 }, { frequencyHz: 4 * f, amplitudeDb: -18, decayDbPerS: 22 }]
+    const first = synthStrike(bar, { sampleRate: 48000, durationS: 3, onsetS: 0.3, noiseDb: -78, seed: 5 })
+    const second = synthStrike(bar, { sampleRate: 48000, durationS: 3, onsetS: 2.2, seed: 6 })
+    const left = first.map((v, i) => Math.max(-1, Math.min(1, 3 * (v + 0.5 * second[i]!) + 0.05)))
+    const form = new FormData()
+    form.append('file', new Blob([writeWav([left, left.map(v => -v)], 48000, 'pcm16')]), 'D4.wav')
+    const posted = await fetch(`${BASE_URL}/api/pieces/${bench.byNote('D4').id}/strikes`, { method: 'POST', headers: { authorization: `Bearer ${bench.benchToken}` }, body: form })
+    expect(posted.status).toBe(201)
+    const warnings = ((await posted.json()) as { analysis: { warnings: string[] } }).analysis.warnings
+    expect(warnings.length).toBeGreaterThan(3)
+
+    const page = await session.newPage()
+    await openBench(page, 'D4')
+    const summary = page.getByTestId('reading-notes-summary')
+    await summary.waitFor()
+    expect((await summary.innerText()).trim()).toBe(`${warnings.length} notes on this reading`)
+    const polarity = page.getByRole('alert').filter({ hasText: 'opposite polarity' })
+    expect(await polarity.isVisible()).toBe(false)
+    await summary.click()
+    await polarity.waitFor()
+    expect(await page.getByTestId('reading-notes').getByRole('alert').count()).toBe(warnings.length)
+    await screenshot(page, 'bench-reading-notes')
     await page.close()
   })
 

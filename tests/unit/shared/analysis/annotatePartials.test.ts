@@ -65,6 +65,9 @@ describe('annotatePartials', () => {
     expect(out.warnings[0]).toMatch(new RegExp(`^At ${truth.length} partials, the high-resolution estimate differs`))
     for (const p of misread) expect(out.warnings[0]).toContain(`${p.frequencyHz.toFixed(2)} Hz by -3.00 ¢`)
     expect(out.warnings[1]).toBe('2 partials could not be cross-checked by the high-resolution estimator: 700.00 Hz, 1700.00 Hz')
+    // Past ten, the lowest ten are named and the rest counted.
+    const many = annotatePartials(signal, sampleRate, Array.from({ length: 12 }, (_, k) => reading(7100 - 100 * k, 20)), { startIndex: 0, endIndex: signal.length })
+    expect(many.warnings).toEqual([`12 partials could not be cross-checked by the high-resolution estimator: ${Array.from({ length: 10 }, (_, k) => `${6000 + 100 * k}.00 Hz`).join(', ')} and 2 more`])
   })
 
   it('leaves the fields null, with a warning, where the pencil finds nothing', () => {
