@@ -2,11 +2,19 @@ import { MAIN_LOBE_BINS } from './chooseWindow'
 import type { TrackMeasurement } from './measureTrack'
 
 /**
+ * A faster reading this far or further under the slower one is not the same partial (a room's
+ * or the noise's fast-dying line in its skirt), dB: the same partial reads alike in both bands,
+ * or louder in the faster one when the slower window smears its decay.
+ */
+const SAME_PARTIAL_WITHIN_DB = 12
+
+/**
  * Merge the partials of the bands, slowest band first. A partial of a faster band that no
  * slower band holds is added (a short-lived partial the long window missed). Where both
  * hold it (within half the faster window's main lobe), the faster band's reading replaces
  * the slower one when the partial falls more than `maxDropPerWindowDb` within one slower
- * window: such a window smears the decay and so misreads decay and onset amplitude.
+ * window (such a window smears the decay and so misreads decay and onset amplitude) and
+ * the faster reading is no more than 12 dB under it (else it is another line in its skirt).
  * Only the faster partial nearest to a slower one may replace it: a pair the faster band
  * split inside its main lobe (a fast-dying ring 48 Hz under a steel note's fundamental in
  * a 75 ms window) must not put its weaker member in the place of the fundamental, nor
@@ -30,7 +38,8 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
         if (distance(i, fast) < reachHz && (nearest < 0 || distance(i, fast) < distance(nearest, fast))) nearest = i
       }
       if (nearest < 0) merged.push(fast)
-      else if (nearest < slowCount && holder[nearest] === fast && fast.decayDbPerS * merged[nearest]!.windowS > maxDropPerWindowDb) merged[nearest] = fast
+      else if (nearest < slowCount && holder[nearest] === fast && fast.decayDbPerS * merged[nearest]!.windowS > maxDropPerWindowDb
+        && fast.amplitudeDb >= merged[nearest]!.amplitudeDb - SAME_PARTIAL_WITHIN_DB) merged[nearest] = fast
     }
   }
   return merged

@@ -46,6 +46,9 @@ export const STRIKES = {
   marimbaC2: { family: 'marimba', targetHz: 65.41, ratios: [1, 4, 10], partials: [
     { frequencyHz: 65.43, amplitudeDb: -6, decayDbPerS: 6 }, { frequencyHz: 261.2, amplitudeDb: -16, decayDbPerS: 20 }, { frequencyHz: 652.9, amplitudeDb: -26, decayDbPerS: 45 },
   ], options: { sampleRate: 48000, durationS: 3, onsetS: 0.1, seed: 42, mallet: { levelDb: -22, durationS: 0.008 }, room, noiseDb: -80 } },
+  marimbaB5: { family: 'marimba', targetHz: 1014.5, ratios: [1, 4, 10], partials: [
+    { frequencyHz: 1012.43, amplitudeDb: -11.7, decayDbPerS: 7.1 }, { frequencyHz: 4073.33, amplitudeDb: -18.3, decayDbPerS: 26 }, { frequencyHz: 10160.31, amplitudeDb: -23.1, decayDbPerS: 38.7 },
+  ], options: { sampleRate: 48000, durationS: 2.4, onsetS: 0.209, seed: 67, mallet: { levelDb: -23, durationS: 0.0014 }, room: { t60S: 0.945, wetDb: -22.8 }, noiseDb: -74.5 } },
   vibraphoneF3: { family: 'vibraphone', targetHz: 174.61, ratios: [1, 4, 10], partials: [
     { frequencyHz: 174.65, amplitudeDb: -8, decayDbPerS: 3, tremolo: trem(8) }, { frequencyHz: 698.9, amplitudeDb: -20, decayDbPerS: 12, tremolo: trem(8) }, { frequencyHz: 1746.9, amplitudeDb: -30, decayDbPerS: 40, tremolo: trem(8) },
   ], options: { sampleRate: 48000, durationS: 3, onsetS: 0.1, seed: 43, mallet: { levelDb: -20, durationS: 0.004 }, room, noiseDb: -80 } },
@@ -217,6 +220,9 @@ function familyCases(): ConditionCase[] {
       tremoloHz: rate,
     })),
     makeCase('xylophone C5 hard mallet (T60 0.3 s and 0.1 s overtones)', 'xylophoneC5', () => wav(render(STRIKES.xylophoneC5), 48000, 'pcm24')),
+    // A room's fast-dying lines 30–60 Hz beside the fundamental and the ×10, 50 dB under them,
+    // once took their places in the merge of the bands (both were missed).
+    makeCase('marimba B5 in a room (T60 0.95 s, tail −23 dB)', 'marimbaB5', () => wav(render(STRIKES.marimbaB5), 48000, 'pcm24'), undefined, 'none'),
     // A ×6 of T60 0.12 s beside a room's tail, 1 050 Hz over the ×3: read within 1 ¢ with and without a target.
     makeCase('xylophone F4 hard mallet in a room (×6 of T60 0.12 s)', 'xylophoneF4', () => wav(render(STRIKES.xylophoneF4), 44100, 'pcm24'), undefined, 'all', 1),
   ]

@@ -60,6 +60,17 @@ describe('mergeBands', () => {
     // 5 dB/s × 0.2 s = 1 dB: the slow reading stands; 200 dB/s × 0.2 s = 40 dB: the fast one wins.
     expect(merged.map(p => [p.frequencyHz, p.windowS])).toEqual([[500, 0.2], [1500.2, 0.05], [3000, 0.05]])
   })
+
+  it('never lets a far weaker fast-dying line in a strong partial\'s skirt take its place', () => {
+    // A marimba bar at 1012.4 Hz (−11 dB, 7 dB/s) in a room: the 0.125 s band sees no more of it
+    // than a line 32 Hz above, 53 dB under it and dying at 56 dB/s (56 × 0.5 s = 28 dB > 6 dB).
+    const slow = [trackReading({ frequencyHz: 1012.4, amplitudeDb: -11.2, windowS: 0.5, decayDbPerS: 7 })]
+    const skirt = trackReading({ frequencyHz: 1044.0, amplitudeDb: -64.8, windowS: 0.125, decayDbPerS: 56.4 })
+    expect(mergeBands([slow, [skirt]], 6).map(p => p.frequencyHz)).toEqual([1012.4])
+    // The same partial read 10 dB louder by the faster window (its decay smeared by the slow one) still replaces it.
+    const same = trackReading({ frequencyHz: 1012.5, amplitudeDb: -1.2, windowS: 0.125, decayDbPerS: 56.4 })
+    expect(mergeBands([slow, [same]], 6).map(p => p.frequencyHz)).toEqual([1012.5])
+  })
 })
 
 describe('guardPartials (physical bounds)', () => {
