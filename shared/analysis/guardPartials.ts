@@ -17,6 +17,11 @@ export interface GuardedPartials {
   warnings: string[]
 }
 
+/** Whether a reading's decay over its track stays within what the track stood over the noise (plus 30 dB of fit slack). */
+export function decayShownBySpan(p: Pick<TrackMeasurement, 'decayDbPerS' | 'startS' | 'endS' | 'snrDb'>): boolean {
+  return p.decayDbPerS * (p.endS - p.startS) <= p.snrDb + 30
+}
+
 /**
  * Physical bounds of a partial of a strike: its onset amplitude cannot exceed the file's
  * own peak; it cannot grow (a slightly negative fitted rate, within `maxGrowthDbPerS`, is
@@ -44,7 +49,7 @@ export function guardPartials(partials: readonly TrackMeasurement[], bounds: Phy
     if (!(p.frequencyHz >= lowestHz && p.frequencyHz < bounds.sampleRate / 2)) counts.frequency++
     else if (!(p.amplitudeDb <= bounds.peakDb + bounds.peakMarginDb)) counts.amplitude++
     else if (p.decayDbPerS < -bounds.maxGrowthDbPerS) counts.growth++
-    else if (p.decayDbPerS > bounds.maxDecayDbPerS || p.decayDbPerS * (p.endS - p.startS) > p.snrDb + 30) counts.decay++
+    else if (p.decayDbPerS > bounds.maxDecayDbPerS || !decayShownBySpan(p)) counts.decay++
     else kept.push(p.decayDbPerS < 0 ? { ...p, decayDbPerS: 0, t60S: null } : p)
   }
   const warnings: string[] = []

@@ -41,18 +41,21 @@ export function measureAllBands(
     const settled = (points: TrackPoint[]) => {
       const frequencyHz = points[points.length >> 1]!.frequencyHz
       const held = merged.find(m => Math.abs(m.frequencyHz - frequencyHz) < reachHz)
-      if (held && inPairZone(frequencyHz, band.pairZonesHz)) {
-        // Held only by a slower partial of comparable level (heldBy), judged by the track's strongest frame.
+      if (!held) return false
+      const decayDbPerS = points.length < 2 ? null : -fitLine(points.map(p => p.timeS), points.map(p => p.amplitudeDb)).slope
+      if (inPairZone(frequencyHz, band.pairZonesHz)) {
+        // Held only by a slower partial of comparable level that its window does not smear
+        // (heldBy), judged by the track's strongest frame.
         let strongestDb = -Infinity
         for (const p of points) strongestDb = Math.max(strongestDb, p.amplitudeDb)
-        if (heldBy(merged, frequencyHz, strongestDb, reachHz)) return true
+        const fall = decayDbPerS === null ? undefined : { decayDbPerS, maxDropPerWindowDb: settings.maxDropPerWindowDb }
+        if (heldBy(merged, frequencyHz, strongestDb, reachHz, fall)) return true
       }
-      if (!held || points.length < 2) return false
-      const decayDbPerS = -fitLine(points.map(p => p.timeS), points.map(p => p.amplitudeDb)).slope
+      if (decayDbPerS === null) return false
       return decayDbPerS * held.windowS <= settings.maxDropPerWindowDb
     }
     const band_ = measureBand(signal, sampleRate, strike, band, settings, settled, bandsOf, floor)
-    band_.partials = dropHeldInPairZones(band_.partials, merged, band.pairZonesHz, reachHz)
+    band_.partials = dropHeldInPairZones(band_.partials, merged, band.pairZonesHz, reachHz, settings.maxDropPerWindowDb)
     measured.push(band_)
     merged = measured.length === 1 ? band_.partials : mergeBands([merged, band_.partials], settings.maxDropPerWindowDb)
   }

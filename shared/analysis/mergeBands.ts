@@ -1,4 +1,5 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
+import { decayShownBySpan } from './guardPartials'
 import type { TrackMeasurement } from './measureTrack'
 
 /**
@@ -14,7 +15,9 @@ const SAME_PARTIAL_WITHIN_DB = 12
  * hold it (within half the faster window's main lobe), the faster band's reading replaces
  * the slower one when the partial falls more than `maxDropPerWindowDb` within one slower
  * window (such a window smears the decay and so misreads decay and onset amplitude) and
- * the faster reading is no more than 12 dB under it (else it is another line in its skirt).
+ * the faster reading is no more than 12 dB under it (else it is another line in its skirt)
+ * and falls no further than its track could show (guardPartials would leave it out, and the
+ * partial with it).
  * Only the faster partial nearest to a slower one may replace it: a pair the faster band
  * split inside its main lobe (a fast-dying ring 48 Hz under a steel note's fundamental in
  * a 75 ms window) must not put its weaker member in the place of the fundamental, nor
@@ -39,7 +42,7 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
       }
       if (nearest < 0) merged.push(fast)
       else if (nearest < slowCount && holder[nearest] === fast && fast.decayDbPerS * merged[nearest]!.windowS > maxDropPerWindowDb
-        && fast.amplitudeDb >= merged[nearest]!.amplitudeDb - SAME_PARTIAL_WITHIN_DB) merged[nearest] = fast
+        && fast.amplitudeDb >= merged[nearest]!.amplitudeDb - SAME_PARTIAL_WITHIN_DB && decayShownBySpan(fast)) merged[nearest] = fast
     }
   }
   return merged

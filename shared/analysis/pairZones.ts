@@ -11,14 +11,27 @@ export function inPairZone(frequencyHz: number, zonesHz: readonly (readonly [num
  */
 export const PAIR_HELD_WITHIN_DB = 12
 
+/** A slower reading, and the window it was read in (s) where known. */
+export interface HeldReading { frequencyHz: number, amplitudeDb: number, windowS?: number }
+
+/** How fast the faster reading falls, and the most a slower window may see it fall and still read it (mergeBands' rule). */
+export interface FallLimit { decayDbPerS: number, maxDropPerWindowDb: number }
+
 /**
  * Whether a slower band's partial holds a faster reading at `frequencyHz` of `levelDb`: within
  * `reachHz` and not more than PAIR_HELD_WITHIN_DB weaker. A strong short-lived partial (a
  * xylophone's ×3) among a room's faint comb resonances, which the slow window reads as a pair
- * 40 dB under it, is not held by them.
+ * 40 dB under it, is not held by them. Nor, given `fall`, by a lone slower reading whose window
+ * it falls more than the limit within: that window smeared it (a ×3 of T60 0.2 s read 12–17 dB
+ * low at a third of its decay). Two slower readings of like level there (a pair the slower
+ * window resolved, a tabla's ringing modes 20 Hz apart) hold it whatever its fall.
  */
-export function heldBy(held: readonly { frequencyHz: number, amplitudeDb: number }[], frequencyHz: number, levelDb: number, reachHz: number): boolean {
-  return held.some(h => Math.abs(h.frequencyHz - frequencyHz) < reachHz && h.amplitudeDb >= levelDb - PAIR_HELD_WITHIN_DB)
+export function heldBy(held: readonly HeldReading[], frequencyHz: number, levelDb: number, reachHz: number, fall?: FallLimit): boolean {
+  const near = held.filter(h => Math.abs(h.frequencyHz - frequencyHz) < reachHz && h.amplitudeDb >= levelDb - PAIR_HELD_WITHIN_DB)
+  // Two slower readings there are a pair the slower window resolved: they hold it, however it falls.
+  if (near.length !== 1 || !fall) return near.length > 0
+  const [h] = near
+  return !(h!.windowS !== undefined && fall.decayDbPerS * h!.windowS > fall.maxDropPerWindowDb)
 }
 
 /**
@@ -26,12 +39,14 @@ export function heldBy(held: readonly { frequencyHz: number, amplitudeDb: number
  * resolve) that a slower band already holds within `reachHz` (heldBy): there the fast band would
  * read two partials as one, so it may only add what the slower bands missed.
  */
-export function dropHeldInPairZones<P extends { frequencyHz: number, amplitudeDb: number }>(
+export function dropHeldInPairZones<P extends { frequencyHz: number, amplitudeDb: number, decayDbPerS?: number }>(
   partials: readonly P[],
-  held: readonly { frequencyHz: number, amplitudeDb: number }[],
+  held: readonly HeldReading[],
   zonesHz: readonly (readonly [number, number])[],
   reachHz: number,
+  maxDropPerWindowDb?: number,
 ): P[] {
   if (zonesHz.length === 0) return [...partials]
-  return partials.filter(p => !inPairZone(p.frequencyHz, zonesHz) || !heldBy(held, p.frequencyHz, p.amplitudeDb, reachHz))
+  const fallOf = (p: P): FallLimit | undefined => (maxDropPerWindowDb !== undefined && p.decayDbPerS !== undefined ? { decayDbPerS: p.decayDbPerS, maxDropPerWindowDb } : undefined)
+  return partials.filter(p => !inPairZone(p.frequencyHz, zonesHz) || !heldBy(held, p.frequencyHz, p.amplitudeDb, reachHz, fallOf(p)))
 }

@@ -55,7 +55,7 @@ describe('planBands (multi-resolution layout)', () => {
 describe('mergeBands', () => {
   it('adds what only a fast band saw and lets it replace a reading its slow window smeared', () => {
     const slow = [trackReading({ frequencyHz: 500, windowS: 0.2, decayDbPerS: 5 }), trackReading({ frequencyHz: 1500, windowS: 0.2, decayDbPerS: 60 })]
-    const fast = [trackReading({ frequencyHz: 500.1, windowS: 0.05, decayDbPerS: 5.1 }), trackReading({ frequencyHz: 1500.2, windowS: 0.05, decayDbPerS: 200 }), trackReading({ frequencyHz: 3000, windowS: 0.05 })]
+    const fast = [trackReading({ frequencyHz: 500.1, windowS: 0.05, decayDbPerS: 5.1 }), trackReading({ frequencyHz: 1500.2, windowS: 0.05, decayDbPerS: 200, endS: 0.3 }), trackReading({ frequencyHz: 3000, windowS: 0.05 })]
     const merged = mergeBands([slow, fast], 6)
     // 5 dB/s × 0.2 s = 1 dB: the slow reading stands; 200 dB/s × 0.2 s = 40 dB: the fast one wins.
     expect(merged.map(p => [p.frequencyHz, p.windowS])).toEqual([[500, 0.2], [1500.2, 0.05], [3000, 0.05]])
@@ -68,8 +68,15 @@ describe('mergeBands', () => {
     const skirt = trackReading({ frequencyHz: 1044.0, amplitudeDb: -64.8, windowS: 0.125, decayDbPerS: 56.4 })
     expect(mergeBands([slow, [skirt]], 6).map(p => p.frequencyHz)).toEqual([1012.4])
     // The same partial read 10 dB louder by the faster window (its decay smeared by the slow one) still replaces it.
-    const same = trackReading({ frequencyHz: 1012.5, amplitudeDb: -1.2, windowS: 0.125, decayDbPerS: 56.4 })
+    const same = trackReading({ frequencyHz: 1012.5, amplitudeDb: -1.2, windowS: 0.125, decayDbPerS: 56.4, endS: 1 })
     expect(mergeBands([slow, [same]], 6).map(p => p.frequencyHz)).toEqual([1012.5])
+  })
+
+  it('never replaces a reading with one that falls further than its track could show (the guard would drop both)', () => {
+    const slow = [trackReading({ frequencyHz: 1145.2, amplitudeDb: -23.1, windowS: 0.1, decayDbPerS: 376, startS: 0.04, endS: 0.17, snrDb: 40 })]
+    // 2400 dB/s over 0.05 s = 120 dB, more than its 40 dB over the noise + 30 dB of slack.
+    const implausible = trackReading({ frequencyHz: 1144.9, amplitudeDb: -20, windowS: 0.025, decayDbPerS: 2400, startS: 0.02, endS: 0.07, snrDb: 40 })
+    expect(mergeBands([slow, [implausible]], 6).map(p => p.frequencyHz)).toEqual([1145.2])
   })
 })
 

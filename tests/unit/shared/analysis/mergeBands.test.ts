@@ -24,7 +24,7 @@ describe('mergeBands', () => {
 
   it('matches a fast reading to the nearest slow partial and merges bands in turn', () => {
     const slow = [trackReading({ frequencyHz: 400, windowS: 0.4 }), trackReading({ frequencyHz: 440, windowS: 0.4 })]
-    const mid = [trackReading({ frequencyHz: 436, windowS: 0.1, decayDbPerS: 80 })]
+    const mid = [trackReading({ frequencyHz: 436, windowS: 0.1, decayDbPerS: 80, endS: 0.6 })]
     const fast = [trackReading({ frequencyHz: 5000, windowS: 0.025 })]
     const merged = mergeBands([slow, mid, fast], maxDropPerWindowDb)
     expect(merged.map(p => p.frequencyHz)).toEqual([400, 436, 5000])

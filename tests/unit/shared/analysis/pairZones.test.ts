@@ -49,4 +49,18 @@ describe('pair zones of the fast bands', () => {
     expect(heldBy(resonances, third.frequencyHz, -39.4 + PAIR_HELD_WITHIN_DB, 64)).toBe(true)
     expect(heldBy(resonances, third.frequencyHz, -39.4 + PAIR_HELD_WITHIN_DB + 0.1, 64)).toBe(false)
   })
+
+  it('a lone slower reading whose window the fast reading falls more than 6 dB within does not hold it; a resolved pair does', () => {
+    // A xylophone ×3 (280 dB/s) in a room: the 0.104 s window read it at −33.9 dB, the 26 ms
+    // window at −28.2 dB; 280 dB/s × 0.104 s = 29 dB within the slower window (> 6 dB).
+    const smeared = [{ frequencyHz: 1683.2, amplitudeDb: -33.9, windowS: 0.104 }]
+    const fall = { decayDbPerS: 280, maxDropPerWindowDb: 6 }
+    expect(heldBy(smeared, 1683.5, -28.2, 153, fall)).toBe(false)
+    expect(heldBy(smeared, 1683.5, -28.2, 153)).toBe(true)
+    expect(heldBy(smeared, 1683.5, -28.2, 153, { decayDbPerS: 50, maxDropPerWindowDb: 6 })).toBe(true) // 5.2 dB: read whole
+    expect(dropHeldInPairZones([{ frequencyHz: 1683.5, amplitudeDb: -28.2, decayDbPerS: 280 }], smeared, [[1557, 1798]], 153, 6)).toHaveLength(1)
+    // Two slower readings of like level there (a tabla's ringing modes 20 Hz apart) hold it, however it falls.
+    const pair = [{ frequencyHz: 818.1, amplitudeDb: -50, windowS: 0.1 }, { frequencyHz: 837.9, amplitudeDb: -51, windowS: 0.1 }]
+    expect(heldBy(pair, 828, -45, 153, fall)).toBe(true)
+  })
 })
