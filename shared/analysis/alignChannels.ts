@@ -1,4 +1,4 @@
-import { centredEnergies, channelSigns, loudestChannel, type ChannelSign } from './channelSigns'
+import { signedChannels, type ChannelSign } from './channelSigns'
 import { slidingDotProducts } from './slidingDotProducts'
 
 /** How each channel enters the mono mix: its sign (channelSigns) and its delay behind the loudest channel, in samples. */
@@ -29,12 +29,11 @@ const DEFAULTS: AlignSettings = { maxLagS: 0.005, spanS: 0.3, minCorrelation: 0.
  * upper partials, not a low fundamental's period, decide it; the sign is that correlation's.
  */
 export function alignChannels(channels: readonly ArrayLike<number>[], sampleRate: number, settings: AlignSettings = DEFAULTS): ChannelAlignment {
-  const signs = channelSigns(channels)
+  const { signs, reference } = signedChannels(channels)
   const lags = channels.map(() => 0)
   const length = channels[0]!.length
   const maxLag = Math.round(settings.maxLagS * sampleRate)
-  const reference = loudestChannel(centredEnergies(channels).energies)
-  if (signs[reference] !== 1 || maxLag < 1) return { signs, lags }
+  if (maxLag < 1) return { signs, lags }
   const ref = channels[reference]!
   let peak = 0
   for (let i = 1; i < length; i++) if (Math.abs(ref[i]!) > Math.abs(ref[peak]!)) peak = i

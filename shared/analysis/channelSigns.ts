@@ -12,30 +12,36 @@ const DEAD_CHANNEL_DB = 40
  * sign of their correlation); a channel 40 dB or more under the reference is left out.
  */
 export function channelSigns(channels: readonly ArrayLike<number>[]): ChannelSign[] {
+  return signedChannels(channels).signs
+}
+
+/** channelSigns' signs and the loudest channel they refer to. */
+export function signedChannels(channels: readonly ArrayLike<number>[]): { signs: ChannelSign[], reference: number } {
   if (channels.length === 0) throw new RangeError('channelSigns needs at least one channel')
   const length = channels[0]!.length
   const { means, energies } = centredEnergies(channels)
   const reference = loudestChannel(energies)
   const ref = channels[reference]!
   const deadBelow = energies[reference]! * 10 ** (-DEAD_CHANNEL_DB / 10)
-  return channels.map((c, k): ChannelSign => {
+  const signs = channels.map((c, k): ChannelSign => {
     if (k === reference) return 1
     if (!(energies[k]! > deadBelow)) return 0
     let product = 0
     for (let i = 0; i < length; i++) product += (c[i]! - means[k]!) * (ref[i]! - means[reference]!)
     return product < 0 ? -1 : 1
   })
+  return { signs, reference }
 }
 
 /** Index of the loudest channel, given each channel's energy about its mean (the first of equals). */
-export function loudestChannel(energies: readonly number[]): number {
+function loudestChannel(energies: readonly number[]): number {
   let reference = 0
   for (let k = 1; k < energies.length; k++) if (energies[k]! > energies[reference]!) reference = k
   return reference
 }
 
 /** Each channel's mean and its energy about that mean. */
-export function centredEnergies(channels: readonly ArrayLike<number>[]): { means: number[], energies: number[] } {
+function centredEnergies(channels: readonly ArrayLike<number>[]): { means: number[], energies: number[] } {
   const length = channels[0]?.length ?? 0
   const means = channels.map((c) => {
     let s = 0

@@ -4,7 +4,7 @@ import { fitLine } from './fitLine'
 import type { TrackPoint } from './linkTracks'
 import { measureBand, type BandMeasurement, type BandSettings } from './measureBand'
 import type { TrackMeasurement } from './measureTrack'
-import { mergeBands } from './mergeBands'
+import { mergeBands, smearedWithin } from './mergeBands'
 import { dropHeldInPairZones, heldBy, inPairZone } from './pairZones'
 import { bandSource } from './bandSource'
 import type { AnalysisBand } from './planBands'
@@ -52,7 +52,7 @@ export function measureAllBands(
         if (heldBy(merged, frequencyHz, strongestDb, reachHz, fall)) return true
       }
       if (decayDbPerS === null) return false
-      return decayDbPerS * held.windowS <= settings.maxDropPerWindowDb
+      return !smearedWithin(decayDbPerS, held.windowS, settings.maxDropPerWindowDb)
     }
     const band_ = measureBand(signal, sampleRate, strike, band, settings, settled, bandsOf, floor)
     band_.partials = dropHeldInPairZones(band_.partials, merged, band.pairZonesHz, reachHz, settings.maxDropPerWindowDb)

@@ -9,6 +9,11 @@ import type { TrackMeasurement } from './measureTrack'
  */
 const SAME_PARTIAL_WITHIN_DB = 12
 
+/** Whether a reading falling at `decayDbPerS` falls more than `maxDropPerWindowDb` within a window of `windowS`: that window smears its decay and onset amplitude. */
+export function smearedWithin(decayDbPerS: number, windowS: number, maxDropPerWindowDb: number): boolean {
+  return decayDbPerS * windowS > maxDropPerWindowDb
+}
+
 /**
  * Merge the partials of the bands, slowest band first. A partial of a faster band that no
  * slower band holds is added (a short-lived partial the long window missed). Where both
@@ -41,7 +46,7 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
         if (distance(i, fast) < reachHz && (nearest < 0 || distance(i, fast) < distance(nearest, fast))) nearest = i
       }
       if (nearest < 0) merged.push(fast)
-      else if (nearest < slowCount && holder[nearest] === fast && fast.decayDbPerS * merged[nearest]!.windowS > maxDropPerWindowDb
+      else if (nearest < slowCount && holder[nearest] === fast && smearedWithin(fast.decayDbPerS, merged[nearest]!.windowS, maxDropPerWindowDb)
         && fast.amplitudeDb >= merged[nearest]!.amplitudeDb - SAME_PARTIAL_WITHIN_DB && decayShownBySpan(fast)) merged[nearest] = fast
     }
   }

@@ -1,3 +1,5 @@
+import { smearedWithin } from './mergeBands'
+
 /** Whether `frequencyHz` lies inside one of `zonesHz` (closed ranges, Hz). */
 export function inPairZone(frequencyHz: number, zonesHz: readonly (readonly [number, number])[]): boolean {
   for (const [lo, hi] of zonesHz) if (frequencyHz >= lo && frequencyHz <= hi) return true
@@ -31,7 +33,7 @@ export function heldBy(held: readonly HeldReading[], frequencyHz: number, levelD
   // Two slower readings there are a pair the slower window resolved: they hold it, however it falls.
   if (near.length !== 1 || !fall) return near.length > 0
   const [h] = near
-  return !(h!.windowS !== undefined && fall.decayDbPerS * h!.windowS > fall.maxDropPerWindowDb)
+  return !(h!.windowS !== undefined && smearedWithin(fall.decayDbPerS, h!.windowS, fall.maxDropPerWindowDb))
 }
 
 /**
