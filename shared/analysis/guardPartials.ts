@@ -23,9 +23,19 @@ export function decayShownBySpan(p: Pick<TrackMeasurement, 'decayDbPerS' | 'star
 }
 
 /**
+ * Whether a growing reading's rise over its track stays within the swing of its own measured
+ * modulation: a tremolo or a beat seen over less than a cycle or two tilts the fitted line
+ * either way, so the rise says nothing of the partial's decay.
+ */
+export function riseWithinModulation(p: Pick<TrackMeasurement, 'decayDbPerS' | 'startS' | 'endS' | 'modulationDepthDb'>): boolean {
+  return p.modulationDepthDb !== null && -p.decayDbPerS * (p.endS - p.startS) <= p.modulationDepthDb
+}
+
+/**
  * Physical bounds of a partial of a strike: its onset amplitude cannot exceed the file's
  * own peak; it cannot grow (a slightly negative fitted rate, within `maxGrowthDbPerS`, is
- * reported as 0 dB/s with no T60); its decay cannot be faster than `maxDecayDbPerS` nor
+ * reported as 0 dB/s with no T60; so is a faster one whose rise stays within its measured
+ * modulation's swing, riseWithinModulation, at the level the envelope swings about, with a warning naming it); its decay cannot be faster than `maxDecayDbPerS` nor
  * fall further over its track than the track stood over the noise (plus 30 dB of fit
  * slack); its frequency lies between `minFrequencyHz` (and clear of DC by half its
  * window's main lobe) and the Nyquist frequency. A reading outside is a failed
@@ -36,6 +46,7 @@ export function decayShownBySpan(p: Pick<TrackMeasurement, 'decayDbPerS' | 'star
 export function guardPartials(partials: readonly TrackMeasurement[], bounds: PhysicalBounds): GuardedPartials {
   const kept: TrackMeasurement[] = []
   const counts = { amplitude: 0, growth: 0, decay: 0, frequency: 0, extrapolated: 0 }
+  const swinging: TrackMeasurement[] = []
   for (const original of partials) {
     let p = original
     if (p.amplitudeDb > bounds.peakDb + bounds.peakMarginDb && p.strongestFrameDb <= bounds.peakDb + bounds.peakMarginDb) {
@@ -48,6 +59,12 @@ export function guardPartials(partials: readonly TrackMeasurement[], bounds: Phy
     const lowestHz = Math.max(bounds.minFrequencyHz, MAIN_LOBE_BINS / 2 / p.windowS)
     if (!(p.frequencyHz >= lowestHz && p.frequencyHz < bounds.sampleRate / 2)) counts.frequency++
     else if (!(p.amplitudeDb <= bounds.peakDb + bounds.peakMarginDb)) counts.amplitude++
+    else if (p.decayDbPerS < -bounds.maxGrowthDbPerS && riseWithinModulation(p)) {
+      // Its level swings by modulationDepthDb about a middle level; the strongest frame is near the top.
+      const level = Math.min(bounds.peakDb + bounds.peakMarginDb, p.strongestFrameDb - p.modulationDepthDb! / 2)
+      swinging.push(p)
+      kept.push({ ...p, decayDbPerS: 0, t60S: null, amplitudeDb: level })
+    }
     else if (p.decayDbPerS < -bounds.maxGrowthDbPerS) counts.growth++
     else if (p.decayDbPerS > bounds.maxDecayDbPerS || !decayShownBySpan(p)) counts.decay++
     else kept.push(p.decayDbPerS < 0 ? { ...p, decayDbPerS: 0, t60S: null } : p)
@@ -61,6 +78,10 @@ export function guardPartials(partials: readonly TrackMeasurement[], bounds: Phy
     warnings.push(`${counts.extrapolated} partial${counts.extrapolated === 1 ? '' : 's'} did not decay as one exponential from the onset; amplitude given at the strongest frame instead`)
   }
   say(counts.growth, 'level growing instead of decaying')
+  if (swinging.length > 0) {
+    const named = swinging.map(p => `${p.frequencyHz.toFixed(2)} Hz (over ${(p.endS - p.startS).toFixed(2)} s)`).join(', ')
+    warnings.push(`the decay of ${named} could not be read: the level swings with its modulation over the span measured, so it is given as 0 dB/s; a longer recording of the strike reads it`)
+  }
   say(counts.decay, 'decay faster than the recording can show')
   say(counts.frequency, 'frequency outside the band the recording holds (or too close to 0 Hz for its window)')
   return { kept, warnings }

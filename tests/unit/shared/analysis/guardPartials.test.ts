@@ -38,4 +38,20 @@ describe('guardPartials', () => {
     expect(kept[1]!.amplitudeDb).toBe(-12)
     expect(warnings.join(' ')).toMatch(/^1 partial did not decay as one exponential/)
   })
+
+  it('reports a reading whose rise stays within its modulation\'s swing as steady, at the level it swings about, and names it', () => {
+    // A tremolo of 5.9 dB depth seen over 0.33 s (under one 2.9 Hz cycle) tilts the fitted line
+    // up by 3.1 dB; a 2 dB swing cannot explain that rise, nor can a reading with no modulation.
+    const swinging = { frequencyHz: 381.12, decayDbPerS: -9.4, startS: 0.81, endS: 1.14, modulationHz: 2.9, modulationFrom: 'envelope' as const, strongestFrameDb: -8 }
+    const { kept, warnings } = guardPartials([
+      trackReading({ ...swinging, modulationDepthDb: 5.9 }),
+      trackReading({ ...swinging, frequencyHz: 700, modulationDepthDb: 2 }),
+      trackReading({ ...swinging, frequencyHz: 900, modulationDepthDb: null, modulationHz: null }),
+    ], bounds)
+    expect(kept).toHaveLength(1)
+    // source: the envelope swings ±depth/2 about its middle, so the middle is the strongest frame − 5.9/2 dB
+    expect(kept[0]).toMatchObject({ frequencyHz: 381.12, decayDbPerS: 0, t60S: null, amplitudeDb: -8 - 2.95 })
+    expect(warnings).toContain('the decay of 381.12 Hz (over 0.33 s) could not be read: the level swings with its modulation over the span measured, so it is given as 0 dB/s; a longer recording of the strike reads it')
+    expect(warnings).toContain('2 partial readings left out: level growing instead of decaying')
+  })
 })
