@@ -4,7 +4,7 @@ import { fitLine } from './fitLine'
 import type { TrackPoint } from './linkTracks'
 import { measureBand, type BandMeasurement, type BandSettings } from './measureBand'
 import type { TrackMeasurement } from './measureTrack'
-import { mergeBands, smearedWithin } from './mergeBands'
+import { mergeBands, SAME_PARTIAL_WITHIN_DB, smearedWithin } from './mergeBands'
 import { dropHeldInPairZones, heldBy, inPairZone } from './pairZones'
 import { bandSource } from './bandSource'
 import type { AnalysisBand } from './planBands'
@@ -40,14 +40,16 @@ export function measureAllBands(
     const reachHz = MAIN_LOBE_BINS / 2 / band.windowS
     const settled = (points: TrackPoint[]) => {
       const frequencyHz = points[points.length >> 1]!.frequencyHz
-      const held = merged.find(m => Math.abs(m.frequencyHz - frequencyHz) < reachHz)
+      const held = nearestWithin(merged, frequencyHz, reachHz)
       if (!held) return false
+      let strongestDb = -Infinity
+      for (const p of points) strongestDb = Math.max(strongestDb, p.amplitudeDb)
+      // A reading far under the track is another line (a room's, in the skirt of a short-lived partial).
+      if (held.amplitudeDb < strongestDb - SAME_PARTIAL_WITHIN_DB) return false
       const decayDbPerS = points.length < 2 ? null : -fitLine(points.map(p => p.timeS), points.map(p => p.amplitudeDb)).slope
       if (inPairZone(frequencyHz, band.pairZonesHz)) {
         // Held only by a slower partial of comparable level that its window does not smear
         // (heldBy), judged by the track's strongest frame.
-        let strongestDb = -Infinity
-        for (const p of points) strongestDb = Math.max(strongestDb, p.amplitudeDb)
         const fall = decayDbPerS === null ? undefined : { decayDbPerS, maxDropPerWindowDb: settings.maxDropPerWindowDb }
         if (heldBy(merged, frequencyHz, strongestDb, reachHz, fall)) return true
       }
@@ -60,4 +62,14 @@ export function measureAllBands(
     merged = measured.length === 1 ? band_.partials : mergeBands([merged, band_.partials], settings.maxDropPerWindowDb)
   }
   return { measured, merged }
+}
+
+/** The reading nearest to `frequencyHz` within `reachHz`, if any. */
+function nearestWithin(readings: readonly TrackMeasurement[], frequencyHz: number, reachHz: number): TrackMeasurement | undefined {
+  let best: TrackMeasurement | undefined
+  for (const m of readings) {
+    const d = Math.abs(m.frequencyHz - frequencyHz)
+    if (d < reachHz && (!best || d < Math.abs(best.frequencyHz - frequencyHz))) best = m
+  }
+  return best
 }

@@ -1,6 +1,7 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import { bandSource, type BandSource } from './bandSource'
 import { decayingWindowGain } from './decayingWindowGain'
+import { findDecayKnee } from './findDecayKnee'
 import { detectBeat } from './detectBeat'
 import { envelopeDepthDb } from './envelopeDepthDb'
 import { findClosePair } from './findClosePair'
@@ -80,10 +81,14 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   if (fitPoints.length < 3) fitPoints = points.filter(p => p.amplitudeDb - p.noiseFloorDb >= 6)
   if (fitPoints.length < 3) return []
 
-  const times = fitPoints.map(p => p.timeS)
   // Weights: the inverse noise variance of a frame's level (∝ 10^(SNR/10)), capped at
   // 40 dB over the floor — above that the decay model, not the noise, limits the fit.
-  const weights = fitPoints.map(p => 10 ** (Math.min(0, p.amplitudeDb - p.noiseFloorDb - 40) / 10))
+  const weightOf = (p: TrackPoint) => 10 ** (Math.min(0, p.amplitudeDb - p.noiseFloorDb - 40) / 10)
+  // A short-lived partial's own sound dies under a room's slower tail of it: its first stage is the partial.
+  const knee = findDecayKnee(fitPoints.map(p => p.timeS), fitPoints.map(p => p.amplitudeDb), fitPoints.map(weightOf))
+  if (knee !== null) fitPoints = fitPoints.slice(0, knee)
+  const times = fitPoints.map(p => p.timeS)
+  const weights = fitPoints.map(weightOf)
   const fit = fitLine(times, fitPoints.map(p => p.amplitudeDb), weights)
   const decayDbPerS = -fit.slope
   const frequencies = fitPoints.map(p => p.frequencyHz).sort((a, b) => a - b)
@@ -122,7 +127,8 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     t60S: decayDbPerS > 0 ? 60 / decayDbPerS : null,
     r2: fit.r2,
     startS: points[0]!.timeS,
-    endS: points[points.length - 1]!.timeS,
+    // Past a knee the track is the room's tail of the partial, not the partial.
+    endS: (knee === null ? points[points.length - 1]! : fitPoints[fitPoints.length - 1]!).timeS,
     stabilityCents,
     snrDb: bestSnr,
     frames: points.length,

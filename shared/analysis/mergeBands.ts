@@ -7,7 +7,7 @@ import type { TrackMeasurement } from './measureTrack'
  * or the noise's fast-dying line in its skirt), dB: the same partial reads alike in both bands,
  * or louder in the faster one when the slower window smears its decay.
  */
-const SAME_PARTIAL_WITHIN_DB = 12
+export const SAME_PARTIAL_WITHIN_DB = 12
 
 /** Whether a reading falling at `decayDbPerS` falls more than `maxDropPerWindowDb` within a window of `windowS`: that window smears its decay and onset amplitude. */
 export function smearedWithin(decayDbPerS: number, windowS: number, maxDropPerWindowDb: number): boolean {
@@ -23,6 +23,10 @@ export function smearedWithin(decayDbPerS: number, windowS: number, maxDropPerWi
  * the faster reading is no more than 12 dB under it (else it is another line in its skirt)
  * and falls no further than its track could show (guardPartials would leave it out, and the
  * partial with it).
+ * A faster reading 12 dB or more over the slower one is a partial that window misread (a
+ * short-lived ×6 whose slower track was fitted to the room's tail after it): it takes that
+ * reading's place when it lies within the slower window's own main lobe, and is added beside it
+ * otherwise (the slower reading is then another mode).
  * Only the faster partial nearest to a slower one may replace it: a pair the faster band
  * split inside its main lobe (a fast-dying ring 48 Hz under a steel note's fundamental in
  * a 75 ms window) must not put its weaker member in the place of the fundamental, nor
@@ -45,9 +49,17 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
       for (let i = 0; i < merged.length; i++) {
         if (distance(i, fast) < reachHz && (nearest < 0 || distance(i, fast) < distance(nearest, fast))) nearest = i
       }
-      if (nearest < 0) merged.push(fast)
-      else if (nearest < slowCount && holder[nearest] === fast && smearedWithin(fast.decayDbPerS, merged[nearest]!.windowS, maxDropPerWindowDb)
-        && fast.amplitudeDb >= merged[nearest]!.amplitudeDb - SAME_PARTIAL_WITHIN_DB && decayShownBySpan(fast)) merged[nearest] = fast
+      if (nearest < 0) {
+        merged.push(fast)
+        continue
+      }
+      const slow = merged[nearest]!
+      if (nearest >= slowCount || holder[nearest] !== fast || !decayShownBySpan(fast)) continue
+      if (fast.amplitudeDb > slow.amplitudeDb + SAME_PARTIAL_WITHIN_DB) {
+        if (distance(nearest, fast) < MAIN_LOBE_BINS / 2 / slow.windowS) merged[nearest] = fast
+        else merged.push(fast)
+      }
+      else if (smearedWithin(fast.decayDbPerS, slow.windowS, maxDropPerWindowDb) && fast.amplitudeDb >= slow.amplitudeDb - SAME_PARTIAL_WITHIN_DB) merged[nearest] = fast
     }
   }
   return merged
