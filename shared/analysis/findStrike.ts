@@ -30,7 +30,8 @@ const LEAD_IN_BELOW_PEAK_DB = 20
  * 20 dB of the loudest
  * (or the 10th percentile of all blocks when that is lower or there is no lead-in), the onset is
  * the first sample of the rise to the loudest block (the first sample over
- * max(4 × noise RMS, peak − 30 dB) from the block where the envelope left the floor),
+ * max(4 × noise RMS, peak − 30 dB) from the block where the envelope left the floor and the
+ * lead-in's level over 20 ms by 10 dB),
  * and the end is the last point where the smoothed envelope stands 6 dB over the floor.
  */
 export function findStrike(signal: Float64Array, sampleRate: number, settings: StrikeSettings): StrikeSpan {
@@ -55,8 +56,14 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   let noiseFloorDb = percentile(levels, 0.1)
   let firstLoud = 0
   while (levels[firstLoud]! < peakDb - LEAD_IN_BELOW_PEAK_DB) firstLoud++
-  if (firstLoud >= 15) noiseFloorDb = Math.min(noiseFloorDb, percentile(levels.subarray(0, firstLoud - 5), 0.5))
-  const riseDb = Math.max(noiseFloorDb + 10, peakDb - 40)
+  // The rise must also clear the lead-in's own level over 20 ms: 1 ms blocks of mains hum or
+  // rumble dip 20 dB at its zero crossings, and a floor read from those dips puts the onset in the hum.
+  let leadInDb = -Infinity
+  if (firstLoud >= 15) {
+    noiseFloorDb = Math.min(noiseFloorDb, percentile(levels.subarray(0, firstLoud - 5), 0.5))
+    leadInDb = percentile(smoothedLevels(energies.subarray(0, firstLoud - 5), FLOOR_BLOCKS), 0.5)
+  }
+  const riseDb = Math.max(noiseFloorDb + 10, leadInDb + 10, peakDb - 40)
 
   // Walk back from the loudest block to where the envelope left the floor. A low partial
   // dips at its zero crossings within a block, so only a run of 20 quiet blocks (20 ms)
@@ -93,6 +100,21 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   const endIndex = Math.min(signal.length, (last + 1) * block)
   const startIndex = Math.min(endIndex, onsetIndex + Math.round(settings.attackSkipS * sampleRate))
   return { onsetIndex, startIndex, endIndex, noiseFloorDb, peakDb, peakIndex: peakBlock * block }
+}
+
+/** Blocks averaged for the lead-in's level: a period of 50 Hz mains. */
+const FLOOR_BLOCKS = 20
+
+/** Level of the mean energy of each block and the `span − 1` before it (fewer at the start), dB. */
+function smoothedLevels(energies: Float64Array, span: number): Float64Array {
+  const out = new Float64Array(energies.length)
+  let sum = 0
+  for (let b = 0; b < energies.length; b++) {
+    sum += energies[b]!
+    if (b >= span) sum -= energies[b - span]!
+    out[b] = 10 * Math.log10(Math.max(sum, 0) / Math.min(b + 1, span) + 1e-30)
+  }
+  return out
 }
 
 function percentile(values: Float64Array, q: number): number {
