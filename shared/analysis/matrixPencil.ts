@@ -1,6 +1,6 @@
-import { EigenvalueDecomposition, Matrix } from 'ml-matrix'
 import { complexPowers } from './complexPowers'
 import { hermitianEigen } from './hermitianEigen'
+import { realEigenvalues } from './realEigenvalues'
 import type { ComplexSignal } from './mixDownBand'
 import { selectModelOrder } from './selectModelOrder'
 import { solveNormalEquations } from './solveNormalEquations'
@@ -40,8 +40,8 @@ export interface PencilSettings {
  * W₁⁺W₂ are the poles z_k. Amplitudes c_k follow by least squares on the Vandermonde matrix.
  *
  * YᴴY is decomposed as the complex Hermitian matrix it is (hermitianEigen); the rest of the
- * complex algebra runs on ml-matrix through the real embedding φ(A) = [[Re A, −Im A],
- * [Im A, Re A]], which keeps products, inverses and singular values (each twice). Its
+ * complex algebra runs through the real embedding φ(A) = [[Re A, −Im A],
+ * [Im A, Re A]], which keeps products, inverses and singular values (each twice; eigenvalues by realEigenvalues). Its
  * eigenvalues come in pairs z, z̄; multiplying by i first (in the subspace's own
  * coordinates) and keeping the upper half-plane picks the true z, valid for |ν| < ¼ —
  * mixDownBand keeps its passband there.
@@ -134,19 +134,17 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
       for (let j = 0; j < width; j++) rotate[i * width + j]! += bottom * basis[r * width + j]! - top * basis[(cols + r) * width + j]!
     }
   }
-  const product = Array.from({ length: width }, () => new Float64Array(width))
+  const product = new Float64Array(width * width)
   for (let i = 0; i < width; i++) {
     for (let j = 0; j < width; j++) {
       let sum = 0
       for (let k = 0; k < width; k++) sum += rotate[i * width + k]! * shift[k * width + j]!
-      product[i]![j] = sum
+      product[i * width + j] = sum
     }
   }
-  const evd = new EigenvalueDecomposition(new Matrix(product))
-  // As typed arrays: ml-matrix's plain arrays hold small integers or doubles by turns, which
-  // sends compiled code here back to the interpreter again and again.
-  const imaginary = Float64Array.from(evd.imaginaryEigenvalues)
-  const candidates = Array.from(Float64Array.from(evd.realEigenvalues), (re, k) => ({ re, im: imaginary[k]! }))
+  // Our own QR iteration, with a limit on its sweeps (realEigenvalues): a library's without one never returned on one band.
+  const eigenvalues = realEigenvalues(product, width)
+  const candidates = Array.from(eigenvalues.re, (re, k) => ({ re, im: eigenvalues.im[k]! }))
     .sort((a, b) => b.im - a.im)
     .slice(0, order)
   // z = λ / i.
