@@ -1,5 +1,6 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import type { StrikeSpan } from './findStrike'
+import { findDecayKnee } from './findDecayKnee'
 import { fitLine } from './fitLine'
 import type { TrackPoint } from './linkTracks'
 import { measureBand, type BandMeasurement, type BandSettings } from './measureBand'
@@ -46,7 +47,7 @@ export function measureAllBands(
       for (const p of points) strongestDb = Math.max(strongestDb, p.amplitudeDb)
       // A reading far under the track is another line (a room's, in the skirt of a short-lived partial).
       if (held.amplitudeDb < strongestDb - SAME_PARTIAL_WITHIN_DB) return false
-      const decayDbPerS = points.length < 2 ? null : -fitLine(points.map(p => p.timeS), points.map(p => p.amplitudeDb)).slope
+      const decayDbPerS = points.length < 2 ? null : firstStageDecay(points)
       if (inPairZone(frequencyHz, band.pairZonesHz)) {
         // Held only by a slower partial of comparable level that its window does not smear
         // (heldBy), judged by the track's strongest frame.
@@ -72,4 +73,12 @@ function nearestWithin(readings: readonly TrackMeasurement[], frequencyHz: numbe
     if (d < reachHz && (!best || d < Math.abs(best.frequencyHz - frequencyHz))) best = m
   }
   return best
+}
+
+/** Decay of a track's frame levels by a straight line, dB/s, over its first stage when it has a knee (findDecayKnee: a room's slower tail after it). */
+function firstStageDecay(points: readonly TrackPoint[]): number {
+  const times = points.map(p => p.timeS)
+  const levels = points.map(p => p.amplitudeDb)
+  const knee = findDecayKnee(times, levels, points.map(() => 1))
+  return -fitLine(knee === null ? times : times.slice(0, knee), knee === null ? levels : levels.slice(0, knee)).slope
 }

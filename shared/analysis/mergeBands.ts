@@ -27,7 +27,7 @@ export function smearedWithin(decayDbPerS: number, windowS: number, maxDropPerWi
  * short-lived ×6 whose slower track was fitted to the room's tail after it): it takes that
  * reading's place when it lies within the slower window's own main lobe, and is added beside it
  * otherwise (the slower reading is then another mode).
- * Only the faster partial nearest to a slower one may replace it: a pair the faster band
+ * Only the faster partial nearest to a slower one (of those not 12 dB or more under it) may replace it: a pair the faster band
  * split inside its main lobe (a fast-dying ring 48 Hz under a steel note's fundamental in
  * a 75 ms window) must not put its weaker member in the place of the fundamental, nor
  * leave the fundamental out because the ring took its place first.
@@ -38,10 +38,15 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
     const fastBand = bands[b]!
     const slowCount = merged.length
     const distance = (i: number, fast: TrackMeasurement) => Math.abs(merged[i]!.frequencyHz - fast.frequencyHz)
-    // The faster partial nearest to each slower one: the only one that can be the same partial.
+    // The faster partial nearest to each slower one, of those not 12 dB or more under it (another
+    // line, however near: a room's faint line 0.5 Hz nearer than a xylophone's ×6): the only one
+    // that can be the same partial.
     const holder: (TrackMeasurement | undefined)[] = []
     for (let i = 0; i < slowCount; i++) {
-      for (const fast of fastBand) if (!holder[i] || distance(i, fast) < distance(i, holder[i]!)) holder[i] = fast
+      for (const fast of fastBand) {
+        if (fast.amplitudeDb <= merged[i]!.amplitudeDb - SAME_PARTIAL_WITHIN_DB) continue
+        if (!holder[i] || distance(i, fast) < distance(i, holder[i]!)) holder[i] = fast
+      }
     }
     for (const fast of fastBand) {
       const reachHz = MAIN_LOBE_BINS / 2 / fast.windowS

@@ -64,6 +64,10 @@ export const STRIKES = {
   xylophoneA4: { family: 'xylophone', targetHz: 476.96, ratios: [1, 3, 6], partials: [
     { frequencyHz: 476.12, amplitudeDb: -7.62, decayDbPerS: 43.7 }, { frequencyHz: 1425.41, amplitudeDb: -18.75, decayDbPerS: 189.6 }, { frequencyHz: 2867.58, amplitudeDb: -25.8, decayDbPerS: 556.3 },
   ], options: { sampleRate: 96000, durationS: 2.508, onsetS: 0.551, seed: 50, mallet: { levelDb: -22.3, durationS: 0.008 }, room: { t60S: 1.134, wetDb: -20.66 }, noiseDb: -83.5 } },
+  // 96 kHz in a room (T60 0.79 s, tail −20 dB), heard by a spaced pair: the ×6 (T60 0.105 s) dies under the room within 40 ms.
+  xylophoneB5: { family: 'xylophone', targetHz: 1014.07, ratios: [1, 3, 6], partials: [
+    { frequencyHz: 1014.4, amplitudeDb: -6.03, decayDbPerS: 57.4 }, { frequencyHz: 3042.72, amplitudeDb: -16.91, decayDbPerS: 292.9 }, { frequencyHz: 6074.99, amplitudeDb: -24.9, decayDbPerS: 570.4 },
+  ], options: { sampleRate: 96000, durationS: 3.606, onsetS: 0.51, seed: 4, mallet: { levelDb: -20.8, durationS: 0.0062 }, room: { t60S: 0.793, wetDb: -19.96 }, noiseDb: -80.3 } },
   xylophoneF4: { family: 'xylophone', targetHz: 349.23, ratios: [1, 3, 6], partials: [
     { frequencyHz: 349.23, amplitudeDb: -10, decayDbPerS: 30 }, { frequencyHz: 1049.8, amplitudeDb: -12, decayDbPerS: 220 }, { frequencyHz: 2099.6, amplitudeDb: -24, decayDbPerS: 500 },
   ], options: { sampleRate: 44100, durationS: 1.5, onsetS: 0.3, seed: 3, mallet: { levelDb: -18, durationS: 0.004 }, room, noiseDb: -72 } },
@@ -238,6 +242,13 @@ function familyCases(): ConditionCase[] {
     // The 30 ms band's track of the ×6 ran on into the room's tail and was fitted to it (−33 dB, 3 ¢ off); the
     // 8 ms band's reading was taken for that line and not measured. Read from its own first 40 ms: 1.4 ¢, 0.6 dB.
     makeCase('xylophone A4 at 96 kHz in a live room (×6 of T60 0.11 s)', 'xylophoneA4', () => wav(render(STRIKES.xylophoneA4), 96000, 'pcm24'), undefined, 'all', 2),
+    // The far microphone 54 samples (0.56 ms) later. The slow bands read only the room's lines beside the ×6; a faint
+    // line 0.5 Hz nearer to them than the 24.5 ms band's reading of it kept that reading out, and the 8 ms band's
+    // track, its level line drawn through the room's tail, counted as held: the ×6 was missed (a −39 dB line, 3 ¢ off).
+    makeCase('xylophone B5 at 96 kHz in a room on a spaced pair (×6 of T60 0.1 s)', 'xylophoneB5', () => {
+      const x = render(STRIKES.xylophoneB5)
+      return writeWav([x, x.map((_, i) => (i >= 54 ? 0.8 * x[i - 54]! : 0))], 96000, 'pcm24')
+    }, undefined, 'decay', 1),
     // A ×6 of T60 0.12 s beside a room's tail, 1 050 Hz over the ×3: read within 1 ¢ with and without a target.
     makeCase('xylophone F4 hard mallet in a room (×6 of T60 0.12 s)', 'xylophoneF4', () => wav(render(STRIKES.xylophoneF4), 44100, 'pcm24'), undefined, 'all', 1),
   ]

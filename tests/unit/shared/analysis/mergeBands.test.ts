@@ -78,4 +78,15 @@ describe('mergeBands: a faster reading far louder than the slower one', () => {
     const merged = mergeBands([slowAt(2600), [fast(560)]], maxDropPerWindowDb)
     expect(merged.map(p => p.frequencyHz)).toEqual([2600, 2865.2])
   })
+
+  it('lets a faint line nearer to the slower reading stand neither for it nor in the way', () => {
+    // A xylophone ×6 at 96 kHz on a spaced pair in a room: the 98 ms band read only the room's lines
+    // (−72 dB); the 24.5 ms band read the ×6 (−21 dB) 0.5 Hz further from them than a faint line (−94 dB).
+    const slow = [trackReading({ frequencyHz: 6064.73, amplitudeDb: -72.3, decayDbPerS: 37, windowS: 0.098 })]
+    const faint = trackReading({ frequencyHz: 6072.76, amplitudeDb: -93.7, decayDbPerS: 53, windowS: 0.0245 })
+    const partial = trackReading({ frequencyHz: 6073.29, amplitudeDb: -21.2, decayDbPerS: 718, windowS: 0.0245, startS: 0.527, endS: 0.558 })
+    for (const fast of [[faint, partial], [partial, faint]]) {
+      expect(mergeBands([slow, fast], maxDropPerWindowDb).map(p => p.frequencyHz)).toEqual([6073.29])
+    }
+  })
 })
