@@ -64,7 +64,8 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
         if (distance(nearest, fast) < MAIN_LOBE_BINS / 2 / slow.windowS) merged[nearest] = fast
         else merged.push(fast)
       }
-      else if (smearedWithin(fast.decayDbPerS, slow.windowS, maxDropPerWindowDb) && fast.amplitudeDb >= slow.amplitudeDb - SAME_PARTIAL_WITHIN_DB) merged[nearest] = fast
+      // (The holder is never 12 dB or more under the slower reading: that is checked where it is chosen.)
+      else if (smearedWithin(fast.decayDbPerS, slow.windowS, maxDropPerWindowDb)) merged[nearest] = fast
     }
   }
   return merged
