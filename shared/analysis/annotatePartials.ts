@@ -1,6 +1,6 @@
 import { checkWorkDeadline } from './workDeadline'
 import { centsBetween } from './centsBetween'
-import { estimateBand, type BandEstimate } from './estimateBand'
+import { estimateBand } from './estimateBand'
 import type { FftPartial, MeasuredPartial } from './types'
 
 export interface AnnotateSettings {
@@ -61,14 +61,8 @@ export function annotatePartials<P extends FftPartial>(
     const lineWidthHz = decay / (20 / Math.LN10) / (2 * Math.PI)
     const halfWidthHz = Math.min(0.45 * p.frequencyHz, 0.45 * (sampleRate / 2 - p.frequencyHz), Math.max(2, 4 / usedS, 3 * lineWidthHz, p.frequencyHz * SEARCH_RATIO))
     if (!(halfWidthHz > 0) || end - startIndex < 64) return none
-    let band: BandEstimate | null = null
-    try {
-      band = estimateBand(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, targetSamples: 32, maxOrder: 4 })
-    }
-    catch {
-      // A degenerate band (e.g. digital silence: a singular system) leaves the partial unchecked.
-      band = null
-    }
+    // A band the estimator cannot read (digital silence) leaves the partial unchecked.
+    const band = estimateBand(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, targetSamples: 32, maxOrder: 4 })
     const near = band?.components.filter(c =>
       Number.isFinite(c.frequencyHz) && Number.isFinite(c.decayDbPerS) && Number.isFinite(c.frequencySdHz)
       && Math.abs(c.frequencyHz - p.frequencyHz) <= band.halfWidthHz && c.snrDb > 6) ?? []

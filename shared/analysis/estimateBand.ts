@@ -1,6 +1,6 @@
 import { dampedSinusoidCrb } from './dampedSinusoidCrb'
-import { matrixPencil } from './matrixPencil'
-import { mixDownBand } from './mixDownBand'
+import { matrixPencil, type ExponentialFit } from './matrixPencil'
+import { mixDownBand, type BandSignal } from './mixDownBand'
 import { phasorTable } from './phasorTable'
 import { refineExponentials } from './refineExponentials'
 
@@ -63,7 +63,8 @@ const PASSBAND = 1 / 8
  * to frequency (Hz) and decay (dB/s); its amplitude is corrected for the filter's gain at
  * the pole and referred to `referenceIndex`; its uncertainty is the Cramér–Rao bound
  * (dampedSinusoidCrb) evaluated at the measured amplitude, decay, length and residual noise.
- * Returns null when the span is too short for eight band samples.
+ * Returns null when the span is too short for eight band samples, and when the band cannot
+ * be read (fitBand); bad arguments throw.
  */
 export function estimateBand(signal: Float64Array, sampleRate: number, centerHz: number, settings: BandSettings): BandEstimate | null {
   const { startIndex, endIndex, halfWidthHz } = settings
@@ -83,11 +84,8 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
   const band = mixDownBand(signal, sampleRate, centerHz, { startIndex, endIndex: end, factor, passbandFraction: PASSBAND })
   const samples = band.re.length
   if (samples < 8) return null
-  const fit = refineExponentials(band, matrixPencil(band, {
-    order: settings.order,
-    minOrder: settings.minOrder,
-    maxOrder: Math.min(settings.maxOrder ?? 6, Math.floor(samples / 4)),
-  }))
+  const fit = fitBand(band, settings.order, settings.minOrder, Math.min(settings.maxOrder ?? 6, Math.floor(samples / 4)))
+  if (!fit) return null
   const order = fit.frequencyCycles.length
   const noiseRms = fit.residualRms * Math.sqrt(samples / Math.max(1, samples - 2 * order))
   const bandRateHz = sampleRate / factor
@@ -98,8 +96,9 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
   const phasors = { cos: new Float64Array(delay + 1), sin: new Float64Array(delay + 1) }
   for (let k = 0; k < order; k++) {
     const nu = fit.frequencyCycles[k]!
-    if (Math.abs(nu) > 0.25) continue
     const damping = fit.dampingNepers[k]!
+    // A component of no amplitude or no finite damping is no reading (and has no bound).
+    if (Math.abs(nu) > 0.25 || !(fit.amplitude[k]! > 0) || !Number.isFinite(damping)) continue
     // Filter gain at the pole, per input sample: H = Σ h[j]·u^{j − c}, u = e^{−δ/D + 2πiν/D}.
     const dampingPerSample = damping / factor
     const omegaOffset = (2 * Math.PI * nu) / factor
@@ -139,6 +138,20 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
     samples,
     spanS: (samples * factor) / sampleRate,
     noiseRms,
+  }
+}
+
+/**
+ * The pencil's fit refined by least squares, or null for a band the numerics cannot read:
+ * digital silence makes the amplitudes' system singular, and an eigenvalue iteration may not
+ * settle (realEigenvalues). Every caller treats such a band as holding nothing, so the rule is here.
+ */
+function fitBand(band: BandSignal, order: number | undefined, minOrder: number | undefined, maxOrder: number): ExponentialFit | null {
+  try {
+    return refineExponentials(band, matrixPencil(band, { order, minOrder, maxOrder }))
+  }
+  catch {
+    return null
   }
 }
 

@@ -6,6 +6,7 @@ import type { TrackPoint } from './linkTracks'
 import { measureBand, type BandMeasurement, type BandSettings } from './measureBand'
 import type { TrackMeasurement } from './measureTrack'
 import { mergeBands, SAME_PARTIAL_WITHIN_DB, smearedWithin } from './mergeBands'
+import { nearestReading } from './nearestReading'
 import { dropHeldInPairZones, heldBy, inPairZone } from './pairZones'
 import { bandSource } from './bandSource'
 import type { AnalysisBand } from './planBands'
@@ -41,8 +42,9 @@ export function measureAllBands(
     const reachHz = MAIN_LOBE_BINS / 2 / band.windowS
     const settled = (points: TrackPoint[]) => {
       const frequencyHz = points[points.length >> 1]!.frequencyHz
-      const held = nearestWithin(merged, frequencyHz, reachHz)
-      if (!held) return false
+      const index = nearestReading(merged, frequencyHz, reachHz)
+      if (index < 0) return false
+      const held = merged[index]!
       let strongestDb = -Infinity
       for (const p of points) strongestDb = Math.max(strongestDb, p.amplitudeDb)
       // A reading far under the track is another line (a room's, in the skirt of a short-lived partial).
@@ -63,16 +65,6 @@ export function measureAllBands(
     merged = measured.length === 1 ? band_.partials : mergeBands([merged, band_.partials], settings.maxDropPerWindowDb)
   }
   return { measured, merged }
-}
-
-/** The reading nearest to `frequencyHz` within `reachHz`, if any. */
-function nearestWithin(readings: readonly TrackMeasurement[], frequencyHz: number, reachHz: number): TrackMeasurement | undefined {
-  let best: TrackMeasurement | undefined
-  for (const m of readings) {
-    const d = Math.abs(m.frequencyHz - frequencyHz)
-    if (d < reachHz && (!best || d < Math.abs(best.frequencyHz - frequencyHz))) best = m
-  }
-  return best
 }
 
 /** Decay of a track's frame levels by a straight line, dB/s, over its first stage when it has a knee (findDecayKnee: a room's slower tail after it). */

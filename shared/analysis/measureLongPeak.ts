@@ -3,7 +3,7 @@ import { centsBetween } from './centsBetween'
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import { decayingWindowGain } from './decayingWindowGain'
 import { basebandDtft } from './basebandDtft'
-import { estimateBand, type BandEstimate } from './estimateBand'
+import { estimateBand } from './estimateBand'
 import { fitLine } from './fitLine'
 import { refinePeak } from './refinePeak'
 import type { MeasuredPartial } from './types'
@@ -48,14 +48,7 @@ export function measureLongPeak(signal: Float64Array, sampleRate: number, freque
   if (!(frequencyHz > 0 && frequencyHz < sampleRate / 2)) throw new RangeError('measureLongPeak needs a frequency inside the recording\'s band')
   if (!(length >= 64 && startIndex >= 0 && startIndex + length <= signal.length)) throw new RangeError('measureLongPeak needs a window inside the signal')
   const peak = refinePeak(windowed, frequencyHz)
-  let band: BandEstimate | null = null
-  try {
-    band = estimateBand(signal, sampleRate, peak.frequencyHz, { startIndex, endIndex: startIndex + length, halfWidthHz: span.halfWidthHz, referenceIndex: onsetIndex })
-  }
-  catch {
-    // A degenerate band (a singular system) gives no second reading.
-    band = null
-  }
+  const band = estimateBand(signal, sampleRate, peak.frequencyHz, { startIndex, endIndex: startIndex + length, halfWidthHz: span.halfWidthHz, referenceIndex: onsetIndex })
   const reachHz = (MAIN_LOBE_BINS * sampleRate) / length / 4
   const near = band?.components.filter(c => Math.abs(c.frequencyHz - peak.frequencyHz) <= reachHz
     && Number.isFinite(c.decayDbPerS) && Number.isFinite(c.frequencySdHz)) ?? []

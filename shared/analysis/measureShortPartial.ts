@@ -47,21 +47,14 @@ export function measureShortPartial(signal: Float64Array, sampleRate: number, fr
   const searchHz = settings.searchHz ?? 3 / spanS
   // Line width of a 600 dB/s partial: 600 / 8.69 / 2π ≈ 11 Hz; keep it well inside the passband.
   const halfWidthHz = Math.min(0.45 * frequencyHz, 0.45 * (sampleRate / 2 - frequencyHz), Math.max(2 * searchHz, 40))
-  let band: ReturnType<typeof estimateBand> = null
-  try {
-    band = estimateBand(signal, sampleRate, frequencyHz, {
-      startIndex,
-      endIndex,
-      halfWidthHz,
-      targetSamples: 48,
-      maxOrder: 6,
-      referenceIndex: settings.referenceIndex,
-    })
-  }
-  catch {
-    // A band the estimator cannot read (a singular system, an eigenvalue iteration that does not settle) holds no short partial.
-    return null
-  }
+  const band = estimateBand(signal, sampleRate, frequencyHz, {
+    startIndex,
+    endIndex,
+    halfWidthHz,
+    targetSamples: 48,
+    maxOrder: 6,
+    referenceIndex: settings.referenceIndex,
+  })
   if (!band) return null
   const near = band.components.filter(c => Math.abs(c.frequencyHz - frequencyHz) <= searchHz && c.snrDb > 6)
   if (near.length === 0) return null

@@ -1,6 +1,7 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import { decayShownBySpan } from './guardPartials'
 import type { TrackMeasurement } from './measureTrack'
+import { nearestReading } from './nearestReading'
 
 /**
  * A faster reading this far or further under the slower one is not the same partial (a room's
@@ -50,10 +51,7 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
     }
     for (const fast of fastBand) {
       const reachHz = MAIN_LOBE_BINS / 2 / fast.windowS
-      let nearest = -1
-      for (let i = 0; i < merged.length; i++) {
-        if (distance(i, fast) < reachHz && (nearest < 0 || distance(i, fast) < distance(nearest, fast))) nearest = i
-      }
+      const nearest = nearestReading(merged, fast.frequencyHz, reachHz)
       if (nearest < 0) {
         merged.push(fast)
         continue

@@ -97,14 +97,7 @@ export function splitDoublets<P extends DoubletCandidate>(
     const spanS = Math.min(MAX_SPAN_S, Math.max(0.1, (Math.min(p.snrDb, 70) + 10) / decay))
     const end = Math.min(endIndex, startIndex + Math.round(spanS * sampleRate))
     if (end - startIndex < 256) return null
-    let pair: ReturnType<typeof separateDoublet> = null
-    try {
-      pair = separateDoublet(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, referenceIndex: onsetIndex })
-    }
-    catch {
-      // A degenerate band (digital silence: a singular system) is no doublet.
-      return null
-    }
+    const pair = separateDoublet(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, referenceIndex: onsetIndex })
     if (!pair) return null
     const [a, b] = pair
     const usedS = (end - startIndex) / sampleRate

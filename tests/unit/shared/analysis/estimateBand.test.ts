@@ -86,4 +86,10 @@ describe('estimateBand', () => {
     expect(() => estimateBand(signal, sampleRate, 1000, { startIndex: 0, endIndex: 4000, halfWidthHz: 0 })).toThrow(RangeError)
     expect(() => estimateBand(signal, sampleRate, 30000, { startIndex: 0, endIndex: 4000, halfWidthHz: 5 })).toThrow(RangeError)
   })
+
+  it('returns null, not an error, for a band it cannot read (digital silence: a singular system)', () => {
+    const silence = new Float64Array(48000)
+    expect(estimateBand(silence, sampleRate, 1000, { startIndex: 0, endIndex: silence.length, halfWidthHz: 10 })).toBeNull()
+    expect(estimateBand(silence, sampleRate, 1000, { startIndex: 0, endIndex: silence.length, halfWidthHz: 10, minOrder: 2 })).toBeNull()
+  })
 })
