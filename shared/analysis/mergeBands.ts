@@ -28,43 +28,65 @@ export function smearedWithin(decayDbPerS: number, windowS: number, maxDropPerWi
  * short-lived ×6 whose slower track was fitted to the room's tail after it): it takes that
  * reading's place when it lies within the slower window's own main lobe, and is added beside it
  * otherwise (the slower reading is then another mode).
- * Only the faster partial nearest to a slower one (of those not 12 dB or more under it) may replace it: a pair the faster band
+ * Only the faster reading that holds a slower one (holderOf) may replace it: a pair the faster band
  * split inside its main lobe (a fast-dying ring 48 Hz under a steel note's fundamental in
  * a 75 ms window) must not put its weaker member in the place of the fundamental, nor
- * leave the fundamental out because the ring took its place first.
+ * leave the fundamental out because the ring took its place first. A faster reading is matched
+ * to the nearest reading within its reach; where that is a faint line 12 dB or more under it,
+ * to the nearest slower reading it misread instead, and the other misreadings of it go.
  */
 export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindowDb: number): TrackMeasurement[] {
-  const merged = [...(bands[0] ?? [])]
+  let merged = [...(bands[0] ?? [])]
   for (let b = 1; b < bands.length; b++) {
     const fastBand = bands[b]!
     const slowCount = merged.length
-    const distance = (i: number, fast: TrackMeasurement) => Math.abs(merged[i]!.frequencyHz - fast.frequencyHz)
-    // The faster partial nearest to each slower one, of those not 12 dB or more under it (another
-    // line, however near: a room's faint line 0.5 Hz nearer than a xylophone's ×6): the only one
-    // that can be the same partial.
-    const holder: (TrackMeasurement | undefined)[] = []
-    for (let i = 0; i < slowCount; i++) {
-      for (const fast of fastBand) {
-        if (fast.amplitudeDb <= merged[i]!.amplitudeDb - SAME_PARTIAL_WITHIN_DB) continue
-        if (!holder[i] || distance(i, fast) < distance(i, holder[i]!)) holder[i] = fast
-      }
-    }
+    const holders = fastBand.length === 0 ? [] : merged.map(slow => holderOf(slow, fastBand))
+    const holder = (i: number) => holders[i]?.fast
+    // Slower readings of a partial whose faster reading took another's place: more misreadings of it.
+    const ghosts = new Set<number>()
     for (const fast of fastBand) {
       const reachHz = MAIN_LOBE_BINS / 2 / fast.windowS
-      const nearest = nearestReading(merged, fast.frequencyHz, reachHz)
+      // The nearest reading, unless it is a faint line in this one's skirt and a misreading of this
+      // partial lies within reach: then that misreading.
+      const closest = nearestReading(merged, fast.frequencyHz, reachHz)
+      const faint = closest >= 0 && merged[closest]!.amplitudeDb <= fast.amplitudeDb - SAME_PARTIAL_WITHIN_DB
+      const misread = faint ? nearestReading(merged, fast.frequencyHz, reachHz, i => i < slowCount && holder(i) === fast && holders[i]!.misread) : -1
+      const nearest = misread >= 0 ? misread : closest
       if (nearest < 0) {
         merged.push(fast)
         continue
       }
       const slow = merged[nearest]!
-      if (nearest >= slowCount || holder[nearest] !== fast || !decayShownBySpan(fast)) continue
-      if (fast.amplitudeDb > slow.amplitudeDb + SAME_PARTIAL_WITHIN_DB) {
-        if (distance(nearest, fast) < MAIN_LOBE_BINS / 2 / slow.windowS) merged[nearest] = fast
-        else merged.push(fast)
+      if (nearest >= slowCount || holder(nearest) !== fast || !decayShownBySpan(fast)) continue
+      if (holders[nearest]!.misread) {
+        merged[nearest] = fast
+        for (let i = 0; i < slowCount; i++) if (i !== nearest && holder(i) === fast && holders[i]!.misread) ghosts.add(i)
       }
+      else if (fast.amplitudeDb > slow.amplitudeDb + SAME_PARTIAL_WITHIN_DB) merged.push(fast)
       // (The holder is never 12 dB or more under the slower reading: that is checked where it is chosen.)
       else if (smearedWithin(fast.decayDbPerS, slow.windowS, maxDropPerWindowDb)) merged[nearest] = fast
     }
+    if (ghosts.size > 0) merged = merged.filter((_, i) => !ghosts.has(i))
   }
   return merged
+}
+
+/**
+ * The faster reading that can be the same partial as `slow`, the only one that may take its
+ * place: the strongest of those 12 dB or more over it inside its window's main lobe (a partial
+ * that window misread, however near a faint line lies), else the nearest of those not 12 dB or
+ * more under it (another line, however near: a room's faint line 0.5 Hz nearer than a
+ * xylophone's ×6). `misread`: the holder is 12 dB or more over it, inside its main lobe.
+ */
+function holderOf(slow: TrackMeasurement, fastBand: readonly TrackMeasurement[]): { fast: TrackMeasurement, misread: boolean } | undefined {
+  const lobeHz = MAIN_LOBE_BINS / 2 / slow.windowS
+  let louder: TrackMeasurement | undefined
+  let nearest: TrackMeasurement | undefined
+  for (const fast of fastBand) {
+    const distanceHz = Math.abs(fast.frequencyHz - slow.frequencyHz)
+    if (fast.amplitudeDb > slow.amplitudeDb + SAME_PARTIAL_WITHIN_DB && distanceHz < lobeHz && (!louder || fast.amplitudeDb > louder.amplitudeDb)) louder = fast
+    if (fast.amplitudeDb > slow.amplitudeDb - SAME_PARTIAL_WITHIN_DB && (!nearest || distanceHz < Math.abs(nearest.frequencyHz - slow.frequencyHz))) nearest = fast
+  }
+  if (louder) return { fast: louder, misread: true }
+  return nearest && { fast: nearest, misread: false }
 }

@@ -89,4 +89,22 @@ describe('mergeBands: a faster reading far louder than the slower one', () => {
       expect(mergeBands([slow, fast], maxDropPerWindowDb).map(p => p.frequencyHz)).toEqual([6073.29])
     }
   })
+  it('takes the place of the nearest reading it misread, and the other misreadings of it go', () => {
+    // A xylophone ×6 (6 457.7 Hz, −22.3 dB, 473 dB/s) at 96 kHz on a spaced pair in a room: the
+    // 30 ms band read a growing faint line 9 Hz from it (−87.9 dB) and a smeared reading 48 Hz
+    // under it (−66.5 dB); the 8 ms band read the ×6 beside two faint lines, one of them nearer
+    // to the −66.5 dB reading. source: Harris (1978), half main lobe 4 / 0.03 s = 133 Hz.
+    const slow = [
+      trackReading({ frequencyHz: 6410.74, amplitudeDb: -66.5, decayDbPerS: 192.6, windowS: 0.03 }),
+      trackReading({ frequencyHz: 6449.63, amplitudeDb: -87.9, decayDbPerS: -40.4, windowS: 0.03 }),
+    ]
+    const partial = trackReading({ frequencyHz: 6458.76, amplitudeDb: -23.7, decayDbPerS: 460.6, windowS: 0.008, startS: 0.08, endS: 0.2 })
+    const faint = [
+      trackReading({ frequencyHz: 6448.95, amplitudeDb: -81.6, decayDbPerS: 3.4, windowS: 0.008 }),
+      trackReading({ frequencyHz: 6455.81, amplitudeDb: -70.9, decayDbPerS: 25.7, windowS: 0.008 }),
+    ]
+    for (const fast of [[partial, ...faint], [...faint, partial]]) {
+      expect(mergeBands([slow, fast], maxDropPerWindowDb).map(p => p.frequencyHz)).toEqual([6458.76])
+    }
+  })
 })
