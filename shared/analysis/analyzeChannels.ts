@@ -8,6 +8,7 @@ import { correctPartialsHz } from '../calibration/correctPartialsHz'
 import { crossCheckPartials } from './crossCheckPartials'
 import { ENGINE_SETTINGS as S } from './engineSettings'
 import { expectedPartials } from './expectedPartials'
+import { findMainsHum, mainsHumWarning } from './findMainsHum'
 import { fundamentalWithoutTarget } from './fundamentalWithoutTarget'
 import { locateStrike } from './locateStrike'
 import { measureFftPartials } from './measureFftPartials'
@@ -75,6 +76,7 @@ function measureChannels(
       ? [`${source.pcmBits}-bit audio: partials more than ${fft.dynamicRangeDb} dB under the strongest are not reported (the format's own quantisation error)`]
       : []),
     ...(partials.length === 0 ? ['no partials found above the noise floor'] : []),
+    ...nonNull(mainsHumWarning(findMainsHum(partials))),
   ]
   const assembled = assembleResult(partials, warnings, {
     sampleRate, channels: channels.length, samples: mono.length, strike, plan, measured: fft.measured, attackSkipS, dynamicRangeDb: fft.dynamicRangeDb,
@@ -84,4 +86,8 @@ function measureChannels(
   return roundResult(target && template
     ? applyTemplate(result, partials, target, template, opts.temperatureC ?? null)
     : { ...result, fundamentalHz: fundamentalWithoutTarget(partials)?.frequencyHz ?? null })
+}
+
+function nonNull<T>(value: T | null): T[] {
+  return value === null ? [] : [value]
 }

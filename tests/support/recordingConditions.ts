@@ -213,8 +213,8 @@ function levelCases(): ConditionCase[] {
     makeCase('hard-clipped at 0 dBFS (+6 dB over)', 'marimbaA3', () => wav(scaledToPeakDb(render(m), 6), r), /clipped samples/, 'none'),
     makeCase('hard-clipped at 0 dBFS (+6 dB over)', 'vibraphoneF3', () => wav(scaledToPeakDb(render(v), 6), r), /clipped samples/, 'none'),
     makeCase('DC offset of 0.2 full scale', 'marimbaA3', () => wav(render(m).map(x => x + 0.2), r), /DC offset/),
-    makeCase('mains hum 50 Hz + harmonics at −40 dBFS', 'marimbaC2', () => wav(render(STRIKES.marimbaC2, { hum: { frequencyHz: 50, levelDb: -40 } }), r)),
-    makeCase('mains hum 60 Hz + harmonics at −40 dBFS', 'vibraphoneF3', () => wav(render(v, { hum: { frequencyHz: 60, levelDb: -40 } }), r)),
+    makeCase('mains hum 50 Hz + harmonics at −40 dBFS', 'marimbaC2', () => wav(render(STRIKES.marimbaC2, { hum: { frequencyHz: 50, levelDb: -40 } }), r), /^50\.00 Hz and 100\.00 Hz are mains hum/),
+    makeCase('mains hum 60 Hz + harmonics at −40 dBFS', 'vibraphoneF3', () => wav(render(v, { hum: { frequencyHz: 60, levelDb: -40 } }), r), /^60\.00 Hz and 120\.00 Hz are mains hum/),
     makeCase('a live room (T60 1.5 s, tail −12 dB)', 'marimbaA3', () => wav(render(m, { room: { t60S: 1.5, wetDb: -12 } }), r), undefined, 'none'),
     // A room's comb resonances beside a short-lived partial pull its reading: the ×6 (T60 0.1 s) is read from
     // the 25 ms before the room's tail of it takes over, 1.6 ¢ off, and its uncertainty says ±2.6 ¢.

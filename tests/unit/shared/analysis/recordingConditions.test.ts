@@ -103,6 +103,13 @@ describe('recording conditions: every case with and without a target', () => {
     })
   }
 
+  it('names mains hum only where the file has it', () => {
+    for (const r of runs) {
+      const said = [...r.without.warnings, ...r.withTarget.warnings].some(w => w.includes('are mains hum'))
+      expect(said, r.c.id).toBe(r.c.id.startsWith('mains hum'))
+    }
+  })
+
   it('reads every WAV encoding written (8/16/24/32-bit PCM, 32/64-bit float, extensible) at its declared size', () => {
     for (const r of runs.filter(k => k.c.id.startsWith('format ') && !k.c.id.includes('FLAC'))) {
       const header = readWavHeader(r.bytes)
