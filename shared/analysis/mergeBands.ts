@@ -74,7 +74,8 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
 /**
  * The faster reading that can be the same partial as `slow`, the only one that may take its
  * place: the strongest of those 12 dB or more over it inside its window's main lobe (a partial
- * that window misread, however near a faint line lies), else the nearest of those not 12 dB or
+ * that window misread, however near a faint line lies) whose onset amplitude stands no more than
+ * 12 dB over its own strongest frame, else the nearest of those not 12 dB or
  * more under it (another line, however near: a room's faint line 0.5 Hz nearer than a
  * xylophone's ×6). `misread`: the holder is 12 dB or more over it, inside its main lobe.
  */
@@ -84,7 +85,10 @@ function holderOf(slow: TrackMeasurement, fastBand: readonly TrackMeasurement[])
   let nearest: TrackMeasurement | undefined
   for (const fast of fastBand) {
     const distanceHz = Math.abs(fast.frequencyHz - slow.frequencyHz)
-    if (fast.amplitudeDb > slow.amplitudeDb + SAME_PARTIAL_WITHIN_DB && distanceHz < lobeHz && (!louder || fast.amplitudeDb > louder.amplitudeDb)) louder = fast
+    // Louder as seen: an onset amplitude far over every frame of its track is a line extrapolated back to the blow
+    // (a fast component split off a faint track), not a partial the slower window missed.
+    const seen = fast.amplitudeDb - fast.strongestFrameDb <= SAME_PARTIAL_WITHIN_DB
+    if (seen && fast.amplitudeDb > slow.amplitudeDb + SAME_PARTIAL_WITHIN_DB && distanceHz < lobeHz && (!louder || fast.amplitudeDb > louder.amplitudeDb)) louder = fast
     if (fast.amplitudeDb > slow.amplitudeDb - SAME_PARTIAL_WITHIN_DB && (!nearest || distanceHz < Math.abs(nearest.frequencyHz - slow.frequencyHz))) nearest = fast
   }
   if (louder) return { fast: louder, misread: true }

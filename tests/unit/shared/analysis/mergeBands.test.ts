@@ -107,4 +107,17 @@ describe('mergeBands: a faster reading far louder than the slower one', () => {
       expect(mergeBands([slow, fast], maxDropPerWindowDb).map(p => p.frequencyHz)).toEqual([6458.76])
     }
   })
+  it('does not take a line extrapolated back to the blow, far over every frame of its track, for a louder partial', () => {
+    // A tubular bell C5 near 5.64 kHz: the 31 ms band split its faint track (strongest frame −77.6 dB)
+    // into two lines, one of them 243.6 dB/s and −37.7 dB at the onset, 40 dB over anything the
+    // track showed; the 125 ms band read −68.5 dB. The nearer line (88.7 dB/s: 11 dB within the slow
+    // window) replaces the slow reading; the extrapolated one stands for nothing.
+    const slow = [trackReading({ frequencyHz: 5638.5, amplitudeDb: -68.5, decayDbPerS: 92.2, strongestFrameDb: -68, windowS: 0.125 })]
+    const track = { strongestFrameDb: -77.6, windowS: 0.0313, startS: 0.1, endS: 0.311 }
+    const near = trackReading({ frequencyHz: 5638.83, amplitudeDb: -68.1, decayDbPerS: 88.7, ...track })
+    const extrapolated = trackReading({ frequencyHz: 5656.58, amplitudeDb: -37.7, decayDbPerS: 243.6, ...track })
+    for (const fast of [[near, extrapolated], [extrapolated, near]]) {
+      expect(mergeBands([slow, fast], maxDropPerWindowDb).map(p => p.frequencyHz)).toEqual([5638.83])
+    }
+  })
 })
