@@ -40,8 +40,10 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
   for (let b = 1; b < bands.length; b++) {
     const fastBand = bands[b]!
     const slowCount = merged.length
-    const holders = fastBand.length === 0 ? [] : merged.map(slow => holderOf(slow, fastBand))
+    const holders = merged.map(slow => holderOf(slow, fastBand))
     const holder = (i: number) => holders[i]?.fast
+    // A slower reading this faster one holds as a misreading of its partial.
+    const misreadBy = (i: number, fast: TrackMeasurement) => i < slowCount && holder(i) === fast && holders[i]!.misread
     // Slower readings of a partial whose faster reading took another's place: more misreadings of it.
     const ghosts = new Set<number>()
     for (const fast of fastBand) {
@@ -50,7 +52,7 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
       // partial lies within reach: then that misreading.
       const closest = nearestReading(merged, fast.frequencyHz, reachHz)
       const faint = closest >= 0 && merged[closest]!.amplitudeDb <= fast.amplitudeDb - SAME_PARTIAL_WITHIN_DB
-      const misread = faint ? nearestReading(merged, fast.frequencyHz, reachHz, i => i < slowCount && holder(i) === fast && holders[i]!.misread) : -1
+      const misread = faint ? nearestReading(merged, fast.frequencyHz, reachHz, i => misreadBy(i, fast)) : -1
       const nearest = misread >= 0 ? misread : closest
       if (nearest < 0) {
         merged.push(fast)
@@ -58,9 +60,9 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
       }
       const slow = merged[nearest]!
       if (nearest >= slowCount || holder(nearest) !== fast || !decayShownBySpan(fast)) continue
-      if (holders[nearest]!.misread) {
+      if (misreadBy(nearest, fast)) {
         merged[nearest] = fast
-        for (let i = 0; i < slowCount; i++) if (i !== nearest && holder(i) === fast && holders[i]!.misread) ghosts.add(i)
+        for (let i = 0; i < slowCount; i++) if (i !== nearest && misreadBy(i, fast)) ghosts.add(i)
       }
       else if (fast.amplitudeDb > slow.amplitudeDb + SAME_PARTIAL_WITHIN_DB) merged.push(fast)
       // (The holder is never 12 dB or more under the slower reading: that is checked where it is chosen.)
