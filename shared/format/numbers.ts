@@ -19,6 +19,19 @@ export function formatNumber(value: number | null | undefined, unit: string, dig
   return `${text} ${unit}`
 }
 
+/**
+ * Longest T60 worth a figure, s: a strike recorded for a few seconds falls less than
+ * 0.6 dB/s · span there, which it cannot tell from a line that does not decay (hum).
+ */
+export const LONGEST_SHOWN_T60_S = 100
+
+/** A T60 as a figure, "over 100 s" beyond LONGEST_SHOWN_T60_S, "—" when not decaying. */
+export function formatT60(t60S: number | null | undefined, digits = 2): string {
+  if (t60S === null || t60S === undefined || !(t60S > 0)) return '—'
+  if (t60S > LONGEST_SHOWN_T60_S) return `over ${LONGEST_SHOWN_T60_S} s`
+  return formatNumber(t60S, 's', digits)
+}
+
 /** The state a matched partial is shown in: within its band, sharp or flat outside it, or missing. */
 export function partialState(match: { within: boolean, missing: boolean, cents: number | null }): PartialState {
   if (match.missing || match.cents === null) return 'missing'

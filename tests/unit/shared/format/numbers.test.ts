@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { formatCents, formatHz, formatNumber, partialState } from '../../../../shared/format/numbers'
+import { formatCents, formatHz, formatNumber, formatT60, partialState } from '../../../../shared/format/numbers'
 
 describe('formatting', () => {
   it('writes signed cents with a true minus sign and the unit', () => {
@@ -10,6 +10,15 @@ describe('formatting', () => {
     expect(formatCents(null)).toBe('—')
     expect(formatHz(261.6256)).toBe('261.63 Hz')
     expect(formatNumber(-2.5, '°C')).toBe('−2.5 °C')
+  })
+
+  it('gives a T60 as a figure only where a strike recording can show it', () => {
+    // source: T60 = 60 / decay rate in dB/s (definition of the reverberation time, ISO 3382-1:2009, 3.5).
+    expect(formatT60(60 / 7.5)).toBe('8.00 s')
+    expect(formatT60(60 / 0.75)).toBe('80.00 s')
+    // A hum line read at 0.0006 dB/s would otherwise show a T60 of 100 000 s.
+    expect(formatT60(60 / 0.0006)).toBe('over 100 s')
+    expect(formatT60(null)).toBe('—')
   })
 
   it('tells within, sharp, flat and missing apart', () => {
