@@ -3,6 +3,20 @@ import { windowLayout } from './windowLayout'
 /** Null-to-null main-lobe width of the 4-term Blackman–Harris window, in bins (Harris 1978). */
 export const MAIN_LOBE_BINS = 8
 
+/** A window's main lobe is this much narrower than the spacing or the lowest partial it must resolve. */
+const LOBE_MARGIN = 1.25
+/** The longest window is this fraction of the span (frames enough for a decay fit). */
+const WINDOWS_PER_SPAN = 3
+
+/**
+ * Span after the strike, s, over which chooseWindow's longest window tells a partial at
+ * `frequencyHz` from 0 Hz (a whole main lobe, with the margin, between them).
+ */
+export function spanNeededS(frequencyHz: number): number {
+  if (!(frequencyHz > 0)) throw new RangeError('spanNeededS needs a positive frequency')
+  return (WINDOWS_PER_SPAN * LOBE_MARGIN * MAIN_LOBE_BINS) / frequencyHz
+}
+
 /** Analysis window and frame layout, in samples and in seconds. */
 export interface WindowChoice {
   windowLength: number
@@ -38,13 +52,12 @@ export interface WindowNeeds {
  */
 export function chooseWindow(needs: WindowNeeds, sampleRate: number): WindowChoice {
   if (!(sampleRate > 0) || !(needs.spanS > 0)) throw new RangeError('chooseWindow needs a positive rate and span')
-  const margin = 1.25
   const needed = Math.max(
-    (margin * MAIN_LOBE_BINS) / needs.spacingHz,
-    (margin * MAIN_LOBE_BINS) / needs.lowestHz,
+    (LOBE_MARGIN * MAIN_LOBE_BINS) / needs.spacingHz,
+    (LOBE_MARGIN * MAIN_LOBE_BINS) / needs.lowestHz,
     0.03,
   )
-  const longest = Math.min(0.5, needs.spanS / 3)
+  const longest = Math.min(0.5, needs.spanS / WINDOWS_PER_SPAN)
   // Never shorter than the hop (span / 100), so consecutive frames always overlap or touch.
   const windowS = needs.windowS ?? Math.min(Math.max(needed, needs.spanS / 100), longest)
   const windowLength = Math.max(64, Math.min(Math.round(windowS * sampleRate), Math.floor(needs.spanS * sampleRate)))

@@ -1,4 +1,4 @@
-import { MAIN_LOBE_BINS } from './chooseWindow'
+import { MAIN_LOBE_BINS, spanNeededS } from './chooseWindow'
 import type { TrackMeasurement } from './measureTrack'
 
 export interface PhysicalBounds {
@@ -7,6 +7,8 @@ export interface PhysicalBounds {
   peakMarginDb: number
   sampleRate: number
   minFrequencyHz: number
+  /** Span analysed after the strike, s (a short one limits the window, and so the lowest partial). */
+  spanS: number
   maxDecayDbPerS: number
   maxGrowthDbPerS: number
 }
@@ -38,7 +40,8 @@ export function riseWithinModulation(p: Pick<TrackMeasurement, 'decayDbPerS' | '
  * modulation's swing, riseWithinModulation, at the level the envelope swings about, with a warning naming it); its decay cannot be faster than `maxDecayDbPerS` nor
  * fall further over its track than the track stood over the noise (plus 30 dB of fit
  * slack); its frequency lies between `minFrequencyHz` (and clear of DC by half its
- * window's main lobe) and the Nyquist frequency. A reading outside is a failed
+ * window's main lobe) and the Nyquist frequency; a reading too close to DC only because the
+ * recording was too short for a longer window (spanNeededS) is named, with the length needed. A reading outside is a failed
  * measurement, so it is left out — with a warning — rather than reported. One exception:
  * an onset amplitude over the peak whose strongest frame lies within it is an envelope
  * that was not one exponential from the onset; its strongest frame's level is reported.
@@ -47,6 +50,7 @@ export function guardPartials(partials: readonly TrackMeasurement[], bounds: Phy
   const kept: TrackMeasurement[] = []
   const counts = { amplitude: 0, growth: 0, decay: 0, frequency: 0, extrapolated: 0 }
   const swinging: TrackMeasurement[] = []
+  const tooLowForSpan: number[] = []
   for (const original of partials) {
     let p = original
     if (p.amplitudeDb > bounds.peakDb + bounds.peakMarginDb && p.strongestFrameDb <= bounds.peakDb + bounds.peakMarginDb) {
@@ -57,7 +61,8 @@ export function guardPartials(partials: readonly TrackMeasurement[], bounds: Phy
       counts.extrapolated++
     }
     const lowestHz = Math.max(bounds.minFrequencyHz, MAIN_LOBE_BINS / 2 / p.windowS)
-    if (!(p.frequencyHz >= lowestHz && p.frequencyHz < bounds.sampleRate / 2)) counts.frequency++
+    if (p.frequencyHz >= bounds.minFrequencyHz && p.frequencyHz < lowestHz && spanNeededS(p.frequencyHz) > bounds.spanS) tooLowForSpan.push(p.frequencyHz)
+    else if (!(p.frequencyHz >= lowestHz && p.frequencyHz < bounds.sampleRate / 2)) counts.frequency++
     else if (!(p.amplitudeDb <= bounds.peakDb + bounds.peakMarginDb)) counts.amplitude++
     else if (p.decayDbPerS < -bounds.maxGrowthDbPerS && riseWithinModulation(p)) {
       // Its level swings by modulationDepthDb about a middle level; the strongest frame is near the top.
@@ -84,5 +89,14 @@ export function guardPartials(partials: readonly TrackMeasurement[], bounds: Phy
   }
   say(counts.decay, 'decay faster than the recording can show')
   say(counts.frequency, 'frequency outside the band the recording holds (or too close to 0 Hz for its window)')
+  if (tooLowForSpan.length > 0) warnings.push(tooShortToMeasure(tooLowForSpan, bounds.spanS))
   return { kept, warnings }
+}
+
+/** The readings a longer recording would measure, and how long it must be. */
+function tooShortToMeasure(frequenciesHz: readonly number[], spanS: number): string {
+  const sorted = [...frequenciesHz].sort((a, b) => a - b)
+  const named = sorted.slice(0, 3).map(f => `${f.toFixed(2)} Hz`).join(', ') + (sorted.length > 3 ? ` and ${sorted.length - 3} more` : '')
+  const neededS = Math.ceil(spanNeededS(sorted[0]!) * 10) / 10
+  return `${named} ${sorted.length === 1 ? 'is' : 'are'} in the recording but could not be measured: the ${spanS.toFixed(2)} s after the strike is too short to tell so low a partial from 0 Hz; record at least ${neededS.toFixed(1)} s after the strike`
 }

@@ -40,6 +40,7 @@ export function measureFftPartials(
     peakMarginDb: S.peakMarginDb,
     sampleRate,
     minFrequencyHz: plan.range.minHz,
+    spanS: (strike.endIndex - strike.startIndex) / sampleRate,
     maxDecayDbPerS: S.maxDecayDbPerS,
     maxGrowthDbPerS: S.maxGrowthDbPerS,
   }

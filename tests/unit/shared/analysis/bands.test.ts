@@ -81,7 +81,7 @@ describe('mergeBands', () => {
 })
 
 describe('guardPartials (physical bounds)', () => {
-  const bounds: PhysicalBounds = { peakDb: -6, peakMarginDb: 1, sampleRate: 48000, minFrequencyHz: 20, maxDecayDbPerS: 6000, maxGrowthDbPerS: 1 }
+  const bounds: PhysicalBounds = { peakDb: -6, peakMarginDb: 1, sampleRate: 48000, minFrequencyHz: 20, spanS: 4, maxDecayDbPerS: 6000, maxGrowthDbPerS: 1 }
 
   it('leaves out amplitudes above the file\'s peak, growth, impossible decays and frequencies outside the band', () => {
     const { kept, warnings } = guardPartials([

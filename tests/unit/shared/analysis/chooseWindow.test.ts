@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { chooseWindow, MAIN_LOBE_BINS } from '../../../../shared/analysis/chooseWindow'
+import { chooseWindow, MAIN_LOBE_BINS, spanNeededS } from '../../../../shared/analysis/chooseWindow'
 
 describe('chooseWindow', () => {
   it('uses the Blackman–Harris main lobe width', () => {
@@ -38,5 +38,16 @@ describe('chooseWindow', () => {
     expect(chooseWindow({ spacingHz: 5, lowestHz: 50, spanS: 3, windowS: 0.1 }, 48000).windowLength).toBe(4800)
     expect(() => chooseWindow({ spacingHz: 5, lowestHz: 50, spanS: 0 }, 48000)).toThrow(RangeError)
     expect(() => chooseWindow({ spacingHz: 5, lowestHz: 50, spanS: 1 }, 0)).toThrow(RangeError)
+  })
+
+  it('names the span after which the longest window resolves a low partial from 0 Hz', () => {
+    // source: Harris (1978), Blackman–Harris main lobe 8 bins = 8 / T Hz; with the 25 % margin a
+    // 61 Hz partial needs T = 10 / 61 = 0.164 s, and that window is a third of the span: 0.492 s.
+    expect(spanNeededS(61)).toBeCloseTo(30 / 61, 12)
+    const enough = chooseWindow({ spacingHz: 1000, lowestHz: 61, spanS: spanNeededS(61) }, 48000)
+    expect(enough.windowS).toBeCloseTo(10 / 61, 4)
+    const short = chooseWindow({ spacingHz: 1000, lowestHz: 61, spanS: 0.9 * spanNeededS(61) }, 48000)
+    expect(short.windowS).toBeLessThan(0.95 * (10 / 61))
+    expect(() => spanNeededS(0)).toThrow(RangeError)
   })
 })

@@ -4,7 +4,7 @@ import { reportFloor } from '../../../../shared/analysis/reportFloor'
 import { trackReading } from '../../../support/partials'
 
 describe('reportFloor', () => {
-  const bounds: PhysicalBounds = { peakDb: -6, peakMarginDb: 1, sampleRate: 48000, minFrequencyHz: 20, maxDecayDbPerS: 6000, maxGrowthDbPerS: 1 }
+  const bounds: PhysicalBounds = { peakDb: -6, peakMarginDb: 1, sampleRate: 48000, minFrequencyHz: 20, spanS: 4, maxDecayDbPerS: 6000, maxGrowthDbPerS: 1 }
 
   it('knows no floor before the first reading', () => {
     expect(reportFloor(bounds, 80).levelDb()).toBe(-Infinity)
