@@ -4,7 +4,7 @@ import { measureTrack, type TrackMeasurement } from './measureTrack'
 import type { ModulationSettings } from './measureModulation'
 import type { AnalysisBand } from './planBands'
 import type { BandSource } from './bandSource'
-import { shortTimePeaks } from './shortTimePeaks'
+import { shortTimePeaks, type SpectrumFrame } from './shortTimePeaks'
 import type { StrikeSpan } from './findStrike'
 import type { ReportFloor } from './reportFloor'
 
@@ -28,6 +28,8 @@ export interface BandSettings {
 /** Partials of one band, with the tracking settings that were used. */
 export interface BandMeasurement {
   partials: TrackMeasurement[]
+  /** The band's short-time spectra (their peaks), frame by frame. */
+  frames: SpectrumFrame[]
   trackJumpCents: number
   minTrackFrames: number
 }
@@ -95,5 +97,5 @@ export function measureBand(
     floor?.note(readings[i].filter(p => p.frequencyHz >= band.ownFromHz))
   }
   const partials = readings.flat().filter(p => p.frequencyHz >= band.ownFromHz)
-  return { partials, trackJumpCents, minTrackFrames }
+  return { partials, frames: spectra, trackJumpCents, minTrackFrames }
 }

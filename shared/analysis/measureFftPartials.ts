@@ -4,6 +4,7 @@ import { dropSpuriousPartials } from './dropSpuriousPartials'
 import { ENGINE_SETTINGS as S } from './engineSettings'
 import type { StrikeSpan } from './findStrike'
 import { guardPartials } from './guardPartials'
+import { lookForGlide } from './lookForGlide'
 import { measureAllBands } from './measureAllBands'
 import { quantisationRangeDb } from './quantisationRangeDb'
 import type { BandMeasurement } from './measureBand'
@@ -56,5 +57,6 @@ export function measureFftPartials(
   const seenDb = (m: TrackMeasurement) => level.lossy ? Math.min(m.amplitudeDb, m.strongestFrameDb) : m.amplitudeDb
   const honest = dropSpuriousPartials(dropDuplicates(dropSidebands(guarded.kept.filter(m => seenDb(m) >= minAmplitudeDb))), { strongestDb, ...S.spurious })
   const partials = honest.kept.map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }): DoubletCandidate => p)
-  return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: [...guarded.warnings, ...honest.warnings] }
+  const glide = lookForGlide(mono, sampleRate, strike, { frames: measured[0]!.frames, windowS: plan.bands[0]!.windowS }, partials.map(p => p.frequencyHz))
+  return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: [...guarded.warnings, ...honest.warnings, ...(glide ? [glide] : [])] }
 }

@@ -11,7 +11,7 @@ describe('assembleResult', () => {
     const x = synthStrike([{ frequencyHz: 440, amplitudeDb: -6, decayDbPerS: 10 }], { sampleRate, durationS: 2, onsetS: 0.1, noiseDb: -80, seed: 8 })
     const strike = findStrike(x, sampleRate, { attackSkipS: 0.005 })
     const plan = planAnalysis(x, sampleRate, strike, null, undefined)
-    const measured = [{ partials: [], trackJumpCents: 12, minTrackFrames: 6 }]
+    const measured = [{ partials: [], frames: [], trackJumpCents: 12, minTrackFrames: 6 }]
     const warnings = ['a warning']
     const result = assembleResult([], warnings, { sampleRate, channels: 2, samples: x.length, strike, plan, measured, attackSkipS: 0.005, dynamicRangeDb: 80 })
     expect(result).toMatchObject({

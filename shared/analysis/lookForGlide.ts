@@ -1,0 +1,49 @@
+import { MAIN_LOBE_BINS } from './chooseWindow'
+import { ENGINE_SETTINGS as S } from './engineSettings'
+import { findPitchGlide, pitchGlideWarning } from './findPitchGlide'
+import type { StrikeSpan } from './findStrike'
+import { nextPowerOfTwo } from './nextPowerOfTwo'
+import { shortTimePeaks, type SpectrumFrame } from './shortTimePeaks'
+
+/** The look for a glide: a window short enough to follow a drum's glide, long enough to hold 60 Hz clear of 0 Hz, s. */
+const GLIDE_WINDOW_S = 0.08
+/** Frames per window (a glide of a few semitones in 0.1 s moves under 150 cents a frame). */
+const GLIDE_FRAMES_PER_WINDOW = 4
+/** How long after the strike it looks, s. */
+const GLIDE_LOOK_S = 1.5
+
+/**
+ * The sentence for a strike whose loudest sound glides in pitch (findPitchGlide), or null.
+ * The long window's frames are first asked: when its loudest peak is reported and holds
+ * its pitch there, nothing more is done; otherwise the first 1.5 s are looked at again with
+ * a 0.08 s window, which follows a glide the long window's frames step over.
+ */
+export function lookForGlide(
+  mono: Float64Array,
+  sampleRate: number,
+  strike: StrikeSpan,
+  long: { frames: readonly SpectrumFrame[], windowS: number },
+  reportedHz: readonly number[],
+): string | null {
+  let loudest = { frequencyHz: 0, amplitudeDb: -Infinity }
+  for (const frame of long.frames) for (const peak of frame.peaks) if (peak.amplitudeDb > loudest.amplitudeDb) loudest = peak
+  if (loudest.amplitudeDb === -Infinity) return null
+  const reachHz = MAIN_LOBE_BINS / 2 / long.windowS
+  const reported = reportedHz.some(f => Math.abs(f - loudest.frequencyHz) <= reachHz)
+  if (reported && !findPitchGlide(long.frames)) return null
+  const windowLength = Math.round(GLIDE_WINDOW_S * sampleRate)
+  const endIndex = Math.min(strike.endIndex, strike.startIndex + Math.round(GLIDE_LOOK_S * sampleRate))
+  if (endIndex - strike.startIndex < 2 * windowLength) return null
+  const frames = shortTimePeaks(mono, sampleRate, {
+    windowLength,
+    fftSize: nextPowerOfTwo(2 * windowLength),
+    hop: Math.round(windowLength / GLIDE_FRAMES_PER_WINDOW),
+    startIndex: strike.startIndex,
+    endIndex,
+    peakThresholdDb: S.peakThresholdDb,
+    noiseMarginDb: S.noiseMarginDb,
+    minFrequencyHz: 20,
+    maxFrequencyHz: Math.min(20000, 0.475 * sampleRate),
+  })
+  return pitchGlideWarning(findPitchGlide(frames), reportedHz)
+}
