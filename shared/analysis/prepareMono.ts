@@ -31,7 +31,7 @@ export function prepareMono(channels: readonly ArrayLike<number>[], sampleRate: 
     throw new AnalysisError(422, 'silent', 'The recording is silent; no strike can be heard in it.')
   }
   const warnings: string[] = []
-  if (levels.clippedSamples > 0) warnings.push(`clipped samples: ${levels.clippedSamples}`)
+  if (levels.clippedSamples > 0) warnings.push(`clipped samples: ${levels.clippedSamples} (the recording hit full scale, so levels read low and clipping adds lines of its own): turn the input gain down and strike again`)
   const { signs, lags } = channels.length > 1 ? alignChannels(channels, sampleRate) : { signs: undefined, lags: undefined }
   signs?.forEach((sign, k) => {
     if (sign === -1) warnings.push(`channel ${k + 1} is in opposite polarity to the loudest channel; it was inverted before mixing`)

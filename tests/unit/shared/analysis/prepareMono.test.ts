@@ -15,7 +15,7 @@ describe('prepareMono', () => {
   })
 
   it('counts clipped samples', () => {
-    expect(prepareMono([tone(0, 1.2).map(v => Math.max(-1, Math.min(1, v)))], sampleRate).warnings[0]).toMatch(/^clipped samples: \d+$/)
+    expect(prepareMono([tone(0, 1.2).map(v => Math.max(-1, Math.min(1, v)))], sampleRate).warnings[0]).toMatch(/^clipped samples: \d+ \(the recording hit full scale.*turn the input gain down and strike again$/)
   })
 
   it('refuses silence, damaged samples and recordings outside the limits with plain sentences', () => {
