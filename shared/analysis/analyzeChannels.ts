@@ -8,7 +8,6 @@ import { correctPartialsHz } from '../calibration/correctPartialsHz'
 import { crossCheckPartials } from './crossCheckPartials'
 import { ENGINE_SETTINGS as S } from './engineSettings'
 import { expectedPartials } from './expectedPartials'
-import { findMainsHum, mainsHumWarning } from './findMainsHum'
 import { fundamentalWithoutTarget } from './fundamentalWithoutTarget'
 import { locateStrike } from './locateStrike'
 import { measureFftPartials } from './measureFftPartials'
@@ -64,21 +63,19 @@ function measureChannels(
   const withShort = addShortPartials(mono, sampleRate, withLong.partials, expected, strike, level)
   // The clock correction comes before matching, so cents and verdicts are on the reference's scale.
   const partials = opts.clockOffsetPpm === undefined ? withShort.partials : correctPartialsHz(withShort.partials, opts.clockOffsetPpm)
-  const warnings = [
+  // About the recording itself and what to do about it first; then how the measurement went.
+  const advice = [
     ...prepared.warnings,
     ...located.warnings,
-    ...fft.warnings,
-    ...checked.warnings,
-    ...withLong.warnings,
-    ...withShort.warnings,
     ...(source.lossy ? [`lossy audio format: partials more than ${fft.dynamicRangeDb} dB under the strongest are not reported`] : []),
     ...(!source.lossy && fft.dynamicRangeDb < S.peakThresholdDb
       ? [`${source.pcmBits}-bit audio: partials more than ${fft.dynamicRangeDb} dB under the strongest are not reported (the format's own quantisation error)`]
       : []),
     ...(partials.length === 0 ? ['no partials found above the noise floor'] : []),
-    ...nonNull(mainsHumWarning(findMainsHum(partials))),
+    ...fft.advice,
   ]
-  const assembled = assembleResult(partials, warnings, {
+  const warnings = [...advice, ...fft.warnings, ...checked.warnings, ...withLong.warnings, ...withShort.warnings]
+  const assembled = assembleResult(partials, { warnings, advice }, {
     sampleRate, channels: channels.length, samples: mono.length, strike, plan, measured: fft.measured, attackSkipS, dynamicRangeDb: fft.dynamicRangeDb,
   })
   const result = opts.clockOffsetPpm === undefined ? assembled : { ...assembled, parameters: { ...assembled.parameters, clockOffsetPpm: opts.clockOffsetPpm } }
@@ -86,8 +83,4 @@ function measureChannels(
   return roundResult(target && template
     ? applyTemplate(result, partials, target, template, opts.temperatureC ?? null)
     : { ...result, fundamentalHz: fundamentalWithoutTarget(partials)?.frequencyHz ?? null })
-}
-
-function nonNull<T>(value: T | null): T[] {
-  return value === null ? [] : [value]
 }

@@ -16,6 +16,9 @@ export async function analyzeStrike(bytes: Uint8Array, options: AnalyzeOptions =
   const decoded = await decodeAudio(bytes)
   const result = await analyzeChannels(decoded.channelData, decoded.sampleRate, opts, { lossy: isLossy(detectContainer(bytes)), pcmBits: decoded.pcmBits })
   // What decoding found about the file itself (e.g. a truncated WAV) comes first.
-  if (decoded.warnings.length > 0) result.warnings = [...decoded.warnings, ...result.warnings]
+  if (decoded.warnings.length > 0) {
+    result.warnings = [...decoded.warnings, ...result.warnings]
+    result.advice = [...decoded.warnings, ...result.advice]
+  }
   return result
 }

@@ -21,7 +21,7 @@ export interface ResultContext {
  * The result before the template is applied: the file, the span, the partials, the
  * warnings and the parameters that reproduce the analysis; no target, verdict or guidance.
  */
-export function assembleResult(partials: MeasuredPartial[], warnings: string[], context: ResultContext): AnalysisResult {
+export function assembleResult(partials: MeasuredPartial[], notes: Pick<AnalysisResult, 'warnings' | 'advice'>, context: ResultContext): AnalysisResult {
   const { sampleRate, strike, plan } = context
   return {
     engineVersion: ENGINE_VERSION,
@@ -35,7 +35,8 @@ export function assembleResult(partials: MeasuredPartial[], warnings: string[], 
     partials,
     verdict: null,
     guidance: [],
-    warnings,
+    warnings: notes.warnings,
+    advice: notes.advice,
     parameters: analysisParameters(plan.bands, context.measured, sampleRate, {
       attackSkipS: context.attackSkipS,
       dynamicRangeDb: context.dynamicRangeDb,

@@ -12,6 +12,8 @@ export interface SpuriousSettings {
   /** A reading this far under the strongest partial must stand `faintMinSnrDb` over the noise, dB. */
   faintBelowDb: number
   faintMinSnrDb: number
+  /** Mains hum's lines among the readings (findMainsHum), Hz: left out as steady lines, but named elsewhere, so not counted here. */
+  humLinesHz?: readonly number[]
 }
 
 /** Partials worth reporting, and one plain line per kind left out. */
@@ -50,7 +52,9 @@ export function dropSpuriousPartials(partials: readonly TrackMeasurement[], sett
     const binHz = 1 / p.windowS
     const vibratoHz = p.modulationFrom === 'sidebands' ? Math.SQRT2 * (p.modulationHz ?? 0) : 0
     if (spreadHz > Math.max((MAIN_LOBE_BINS / 4) * binHz, vibratoHz)) wandering++
-    else if (p.decayDbPerS < settings.steadyDecayDbPerS && p.r2 < settings.steadyR2 && p.amplitudeDb < settings.strongestDb - settings.steadyBelowDb) steady++
+    else if (p.decayDbPerS < settings.steadyDecayDbPerS && p.r2 < settings.steadyR2 && p.amplitudeDb < settings.strongestDb - settings.steadyBelowDb) {
+      if (!settings.humLinesHz?.includes(p.frequencyHz)) steady++
+    }
     else if (p.amplitudeDb < settings.strongestDb - settings.faintBelowDb && p.snrDb < settings.faintMinSnrDb) faint++
     else kept.push(p)
   }

@@ -13,10 +13,11 @@ export interface PhysicalBounds {
   maxGrowthDbPerS: number
 }
 
-/** Partials inside the bounds, and one plain line per kind of reading left out. */
+/** Partials inside the bounds, one plain line per kind of reading left out, and what a better recording would need. */
 export interface GuardedPartials {
   kept: TrackMeasurement[]
   warnings: string[]
+  advice: string[]
 }
 
 /** Whether a reading's decay over its track stays within what the track stood over the noise (plus 30 dB of fit slack). */
@@ -89,8 +90,8 @@ export function guardPartials(partials: readonly TrackMeasurement[], bounds: Phy
   }
   say(counts.decay, 'decay faster than the recording can show')
   say(counts.frequency, 'frequency outside the band the recording holds (or too close to 0 Hz for its window)')
-  if (tooLowForSpan.length > 0) warnings.push(tooShortToMeasure(tooLowForSpan, bounds.spanS))
-  return { kept, warnings }
+  const advice = tooLowForSpan.length > 0 ? [tooShortToMeasure(tooLowForSpan, bounds.spanS)] : []
+  return { kept, warnings, advice }
 }
 
 /** The readings a longer recording would measure, and how long it must be. */

@@ -3,6 +3,7 @@ import { dropSidebands } from './dropSidebands'
 import { dropSpuriousPartials } from './dropSpuriousPartials'
 import { ENGINE_SETTINGS as S } from './engineSettings'
 import type { StrikeSpan } from './findStrike'
+import { findMainsHum, mainsHumWarning } from './findMainsHum'
 import { guardPartials } from './guardPartials'
 import { lookForGlide } from './lookForGlide'
 import { measureAllBands } from './measureAllBands'
@@ -21,6 +22,8 @@ export interface FftPartials {
   minAmplitudeDb: number
   dynamicRangeDb: number
   warnings: string[]
+  /** What the recording would need, or what the benchmaker should know of it (a glide, a span too short). */
+  advice: string[]
 }
 
 /**
@@ -55,8 +58,11 @@ export function measureFftPartials(
   // A codec's noise rises in the quiet tail; read back to the blow at its own fast decay it
   // would pass for a loud partial, so a lossy file's readings are judged where they were seen.
   const seenDb = (m: TrackMeasurement) => level.lossy ? Math.min(m.amplitudeDb, m.strongestFrameDb) : m.amplitudeDb
-  const honest = dropSpuriousPartials(dropDuplicates(dropSidebands(guarded.kept.filter(m => seenDb(m) >= minAmplitudeDb))), { strongestDb, ...S.spurious })
+  const candidates = dropDuplicates(dropSidebands(guarded.kept.filter(m => seenDb(m) >= minAmplitudeDb)))
+  // Hum is named whether or not its lines are left out as steady lines far under the strike.
+  const hum = findMainsHum(candidates)
+  const honest = dropSpuriousPartials(candidates, { strongestDb, ...S.spurious, humLinesHz: hum?.linesHz })
   const partials = honest.kept.map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }): DoubletCandidate => p)
   const glide = lookForGlide(mono, sampleRate, strike, { frames: measured[0]!.frames, windowS: plan.bands[0]!.windowS }, partials.map(p => p.frequencyHz))
-  return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: [...guarded.warnings, ...honest.warnings, ...(glide ? [glide] : [])] }
+  return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: [...guarded.warnings, ...honest.warnings], advice: [...guarded.advice, ...[mainsHumWarning(hum), glide].filter(w => w !== null)] }
 }

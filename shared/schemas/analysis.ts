@@ -130,6 +130,12 @@ export const AnalysisResultSchema = z.object({
   verdict: VerdictSchema.nullable(),
   guidance: z.array(z.string()),
   warnings: z.array(z.string()),
+  /**
+   * The warnings about the recording itself and what to do about it (clipping, a second blow,
+   * hum, a glide, a recording too short…), in their order: the Bench shows these open and folds
+   * the rest, which are about how the measurement went. Empty in results that predate it.
+   */
+  advice: z.array(z.string()).default([]),
   parameters: AnalysisParametersSchema,
 })
 

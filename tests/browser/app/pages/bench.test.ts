@@ -141,7 +141,7 @@ describe('the Bench', () => {
     await page.close()
   })
 
-  it('folds the engine\'s notes on a troubled recording under one line, opened on request', async () => {
+  it('shows what to do about a troubled recording and folds the notes on the measurement under one line', async () => {
     // A D4 strike with several things to say: driven into clipping, a DC offset, a second blow,
     // and its second channel wired the other way round.
     const f = noteToFrequencyHz('D4')
@@ -153,19 +153,26 @@ describe('the Bench', () => {
     form.append('file', new Blob([writeWav([left, left.map(v => -v)], 48000, 'pcm16')]), 'D4.wav')
     const posted = await fetch(`${BASE_URL}/api/pieces/${bench.byNote('D4').id}/strikes`, { method: 'POST', headers: { authorization: `Bearer ${bench.benchToken}` }, body: form })
     expect(posted.status).toBe(201)
-    const warnings = ((await posted.json()) as { analysis: { warnings: string[] } }).analysis.warnings
-    expect(warnings.length).toBeGreaterThan(3)
+    const { warnings, advice } = ((await posted.json()) as { analysis: { warnings: string[], advice: string[] } }).analysis
+    expect(advice.some(w => w.includes('opposite polarity'))).toBe(true)
+    expect(advice.some(w => w.startsWith('clipped samples'))).toBe(true)
+    const rest = warnings.filter(w => !advice.includes(w))
+    expect(rest.length).toBeGreaterThan(0)
 
     const page = await session.newPage()
     await openBench(page, 'D4')
-    const summary = page.getByTestId('reading-notes-summary')
-    await summary.waitFor()
-    expect((await summary.innerText()).trim()).toBe(`${warnings.length} notes on this reading`)
+    // What to do about the recording is in view at once.
     const polarity = page.getByRole('alert').filter({ hasText: 'opposite polarity' })
-    expect(await polarity.isVisible()).toBe(false)
-    await summary.click()
     await polarity.waitFor()
-    expect(await page.getByTestId('reading-notes').getByRole('alert').count()).toBe(warnings.length)
+    expect(await page.getByTestId('reading-advice').getByRole('alert').count()).toBe(advice.length)
+    // How the measurement went folds under one line, opened on request.
+    const summary = page.getByTestId('reading-notes-summary')
+    expect((await summary.innerText()).trim()).toBe(`${rest.length} more note${rest.length === 1 ? '' : 's'} on how this reading was measured`)
+    const technical = page.getByTestId('reading-notes').getByRole('alert').first()
+    expect(await technical.isVisible()).toBe(false)
+    await summary.click()
+    await technical.waitFor()
+    expect(await page.getByTestId('reading-notes').getByRole('alert').count()).toBe(rest.length)
     await screenshot(page, 'bench-reading-notes')
     await page.close()
   })

@@ -28,6 +28,20 @@ describe('analyzeChannels', () => {
     expect(result.verdict).toBe('incomplete')
   }, 60_000)
 
+  it('puts what concerns the recording first and also lists it as advice; how the measurement went after', () => {
+    // Driven into clipping (×3, limited at full scale) with 60 Hz mains hum and its 2nd harmonic
+    // at −40 dBFS (source: IEC 60038:2009, a 60 Hz supply).
+    const hum = (n: number) => 0.01 * (Math.sin((2 * Math.PI * 60 * n) / sampleRate) + Math.sin((2 * Math.PI * 120 * n) / sampleRate))
+    const troubled = left.map((v, n) => Math.max(-1, Math.min(1, 3 * v + hum(n))))
+    const result = analyzeChannels([troubled], sampleRate, {})
+    expect(result.advice.some(w => w.startsWith('clipped samples'))).toBe(true)
+    expect(result.advice.some(w => w.includes('mains hum'))).toBe(true)
+    expect(result.warnings.slice(0, result.advice.length)).toEqual(result.advice)
+    // The clean strike has nothing to say about its recording.
+    const clean = analyzeChannels([left], sampleRate, {})
+    expect(clean.advice).toEqual([])
+  }, 60_000)
+
   it('reports the fundamental from the partials without a target, with no verdict', () => {
     const result = analyzeChannels([left], sampleRate, {})
     // source: the synthesised truth

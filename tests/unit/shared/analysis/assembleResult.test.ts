@@ -12,10 +12,10 @@ describe('assembleResult', () => {
     const strike = findStrike(x, sampleRate, { attackSkipS: 0.005 })
     const plan = planAnalysis(x, sampleRate, strike, null, undefined)
     const measured = [{ partials: [], frames: [], trackJumpCents: 12, minTrackFrames: 6 }]
-    const warnings = ['a warning']
-    const result = assembleResult([], warnings, { sampleRate, channels: 2, samples: x.length, strike, plan, measured, attackSkipS: 0.005, dynamicRangeDb: 80 })
+    const notes = { warnings: ['clipped samples: 3', 'a technical note'], advice: ['clipped samples: 3'] }
+    const result = assembleResult([], notes, { sampleRate, channels: 2, samples: x.length, strike, plan, measured, attackSkipS: 0.005, dynamicRangeDb: 80 })
     expect(result).toMatchObject({
-      engineVersion: ENGINE_VERSION, sampleRate, channels: 2, durationS: 2, fundamentalHz: null, verdict: null, guidance: [], warnings: ['a warning'],
+      engineVersion: ENGINE_VERSION, sampleRate, channels: 2, durationS: 2, fundamentalHz: null, verdict: null, guidance: [], warnings: ['clipped samples: 3', 'a technical note'], advice: ['clipped samples: 3'],
     })
     expect(result.onsetS).toBe(strike.onsetIndex / sampleRate)
     expect(result.analysisStartS).toBe(strike.startIndex / sampleRate)

@@ -51,4 +51,14 @@ describe('dropSpuriousPartials', () => {
     expect(out.kept).toEqual([strongSteady])
     expect(out.warnings).toHaveLength(2)
   })
+
+  it('leaves out hum\'s lines as steady lines but does not count them where the hum is named', () => {
+    // 50 Hz mains and its 3rd harmonic (source: IEC 60038:2009, a 50 Hz supply) and a fan's 37 Hz whine.
+    const line = (frequencyHz: number) => partial({ frequencyHz, amplitudeDb: -70, decayDbPerS: 0.1, r2: 0.02 })
+    const strike = partial({ frequencyHz: 523.3, amplitudeDb: -10, decayDbPerS: 9, r2: 0.99 })
+    const out = dropSpuriousPartials([line(50), line(150), line(37), strike], { ...settings, humLinesHz: [50, 150] })
+    expect(out.kept).toEqual([strike])
+    expect(out.warnings).toEqual(['1 steady line far under the strike not reported (hum or a recording artefact, not a decaying mode)'])
+    expect(dropSpuriousPartials([line(50), line(150), strike], { ...settings, humLinesHz: [50, 150] }).warnings).toEqual([])
+  })
 })
