@@ -58,7 +58,7 @@ function measureChannels(
   const plan = planAnalysis(mono, sampleRate, strike, expected.expectedHz, opts.windowS)
   const fft = measureFftPartials(mono, sampleRate, strike, plan, { peakDb, lossy: source.lossy === true, pcmBits: source.pcmBits ?? null })
   const level = { peakDb, peakMarginDb: S.peakMarginDb, minAmplitudeDb: fft.minAmplitudeDb }
-  const checked = crossCheckPartials(mono, sampleRate, fft.partials, strike, level)
+  const checked = crossCheckPartials(mono, sampleRate, fft.partials, strike, level, fft.glide)
   const withLong = addLongLookPartials(mono, sampleRate, checked.partials, strike, plan, level)
   const withShort = addShortPartials(mono, sampleRate, withLong.partials, expected, strike, level)
   // The clock correction comes before matching, so cents and verdicts are on the reference's scale.

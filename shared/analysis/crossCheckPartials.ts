@@ -1,4 +1,5 @@
 import { annotatePartials } from './annotatePartials'
+import type { PitchGlide } from './findPitchGlide'
 import type { StrikeSpan } from './findStrike'
 import { splitDoublets, type DoubletCandidate } from './splitDoublets'
 import type { MeasuredPartial } from './types'
@@ -21,9 +22,11 @@ export function crossCheckPartials(
   fftPartials: readonly DoubletCandidate[],
   strike: StrikeSpan,
   level: { peakDb: number, peakMarginDb: number, minAmplitudeDb: number },
+  /** Where the loudest sound glides (findPitchGlide): no doublet is split off there. */
+  glide: PitchGlide | null = null,
 ): CrossCheckedPartials {
   const doublets = splitDoublets(mono, sampleRate, fftPartials, {
-    startIndex: strike.startIndex, endIndex: mono.length, onsetIndex: strike.onsetIndex, ...level,
+    startIndex: strike.startIndex, endIndex: mono.length, onsetIndex: strike.onsetIndex, ...level, glide,
   })
   const annotated = annotatePartials(mono, sampleRate, doublets.single, { startIndex: strike.startIndex, endIndex: mono.length })
   const partials: MeasuredPartial[] = [

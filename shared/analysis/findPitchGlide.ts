@@ -70,6 +70,31 @@ export function findPitchGlide(frames: readonly SpectrumFrame[], settings: Pitch
   return { fromHz: median[0]!, toHz: median[median.length - 1]!, highestHz, lowestHz, startS: path[0]!.timeS, endS: path[path.length - 1]!.timeS }
 }
 
+/** How far past a glide's course a reading still lies on it, as a frequency ratio (50 ¢: its ends are 3-frame medians). */
+const COURSE_MARGIN = 2 ** (50 / 1200)
+
+/** Whether a reading lies on a glide's course (between its lowest and highest pitch, 50 ¢ either side). */
+export function onGlideCourse(glide: PitchGlide | null, frequencyHz: number): boolean {
+  return glide !== null && frequencyHz >= glide.lowestHz / COURSE_MARGIN && frequencyHz <= glide.highestHz * COURSE_MARGIN
+}
+
+/**
+ * Readings that one track gave as a close pair (modulationFrom 'pair') on a glide's course are
+ * the glide read as two decaying components, not two modes: only the one nearest where the
+ * glide settles stays, as a single reading (no beat, no pair's modulation).
+ */
+export function dropPairsOnGlide<P extends { frequencyHz: number, beatHz: number | null, modulationHz: number | null, modulationDepthDb: number | null, modulationFrom: string | null }>(
+  partials: readonly P[],
+  glide: PitchGlide | null,
+): P[] {
+  const paired = partials.filter(p => p.modulationFrom === 'pair' && onGlideCourse(glide, p.frequencyHz))
+  if (!glide || paired.length < 2) return [...partials]
+  const settled = paired.reduce((a, b) => (Math.abs(centsBetween(b.frequencyHz, glide.toHz)) < Math.abs(centsBetween(a.frequencyHz, glide.toHz)) ? b : a))
+  return partials
+    .filter(p => p === settled || !paired.includes(p))
+    .map(p => (p === settled ? { ...p, beatHz: null, modulationHz: null, modulationDepthDb: null, modulationFrom: null } : p))
+}
+
 /** The Bench's sentence for a glide, saying whether a reported partial holds where it settles, or only averages the glide. */
 export function pitchGlideWarning(glide: PitchGlide | null, reportedHz: readonly number[]): string | null {
   if (!glide) return null

@@ -1,6 +1,6 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import { ENGINE_SETTINGS as S } from './engineSettings'
-import { findPitchGlide, pitchGlideWarning } from './findPitchGlide'
+import { findPitchGlide, type PitchGlide } from './findPitchGlide'
 import type { StrikeSpan } from './findStrike'
 import { nextPowerOfTwo } from './nextPowerOfTwo'
 import { shortTimePeaks, type SpectrumFrame } from './shortTimePeaks'
@@ -13,7 +13,7 @@ const GLIDE_FRAMES_PER_WINDOW = 4
 const GLIDE_LOOK_S = 1.5
 
 /**
- * The sentence for a strike whose loudest sound glides in pitch (findPitchGlide), or null.
+ * Where the strike's loudest sound glides in pitch (findPitchGlide), or null.
  * The long window's frames are first asked: when its loudest peak is reported and holds
  * its pitch there, nothing more is done; otherwise the first 1.5 s are looked at again with
  * a 0.08 s window, which follows a glide the long window's frames step over.
@@ -24,7 +24,7 @@ export function lookForGlide(
   strike: StrikeSpan,
   long: { frames: readonly SpectrumFrame[], windowS: number },
   reportedHz: readonly number[],
-): string | null {
+): PitchGlide | null {
   let loudest = { frequencyHz: 0, amplitudeDb: -Infinity }
   for (const frame of long.frames) for (const peak of frame.peaks) if (peak.amplitudeDb > loudest.amplitudeDb) loudest = peak
   if (loudest.amplitudeDb === -Infinity) return null
@@ -45,5 +45,5 @@ export function lookForGlide(
     minFrequencyHz: 20,
     maxFrequencyHz: Math.min(20000, 0.475 * sampleRate),
   })
-  return pitchGlideWarning(findPitchGlide(frames), reportedHz)
+  return findPitchGlide(frames)
 }

@@ -6,6 +6,7 @@ import type { StrikeSpan } from './findStrike'
 import { findMainsHum, mainsHumWarning } from './findMainsHum'
 import { guardPartials } from './guardPartials'
 import { lookForGlide } from './lookForGlide'
+import { dropPairsOnGlide, pitchGlideWarning, type PitchGlide } from './findPitchGlide'
 import { measureAllBands } from './measureAllBands'
 import { quantisationRangeDb } from './quantisationRangeDb'
 import type { BandMeasurement } from './measureBand'
@@ -24,6 +25,8 @@ export interface FftPartials {
   warnings: string[]
   /** What the recording would need, or what the benchmaker should know of it (a glide, a span too short). */
   advice: string[]
+  /** Where the loudest sound glides in pitch, if it does. */
+  glide: PitchGlide | null
 }
 
 /**
@@ -62,7 +65,9 @@ export function measureFftPartials(
   // Hum is named whether or not its lines are left out as steady lines far under the strike.
   const hum = findMainsHum(candidates)
   const honest = dropSpuriousPartials(candidates, { strongestDb, ...S.spurious, humLinesHz: hum?.linesHz })
-  const partials = honest.kept.map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }): DoubletCandidate => p)
-  const glide = lookForGlide(mono, sampleRate, strike, { frames: measured[0]!.frames, windowS: plan.bands[0]!.windowS }, partials.map(p => p.frequencyHz))
-  return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: [...guarded.warnings, ...honest.warnings], advice: [...guarded.advice, ...[mainsHumWarning(hum), glide].filter(w => w !== null)] }
+  const read = honest.kept.map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }): DoubletCandidate => p)
+  const glide = lookForGlide(mono, sampleRate, strike, { frames: measured[0]!.frames, windowS: plan.bands[0]!.windowS }, read.map(p => p.frequencyHz))
+  const partials = dropPairsOnGlide(read, glide)
+  const glideWarning = pitchGlideWarning(glide, partials.map(p => p.frequencyHz))
+  return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: [...guarded.warnings, ...honest.warnings], advice: [...guarded.advice, ...[mainsHumWarning(hum), glideWarning].filter(w => w !== null)], glide }
 }

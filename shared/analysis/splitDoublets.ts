@@ -1,3 +1,4 @@
+import { onGlideCourse, type PitchGlide } from './findPitchGlide'
 import { checkWorkDeadline } from './workDeadline'
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import type { TrackMeasurement } from './measureTrack'
@@ -19,6 +20,8 @@ export interface DoubletSplitSettings {
   peakMarginDb: number
   /** Floor of the reported range, dB re full scale: both components must reach it. */
   minAmplitudeDb: number
+  /** Where the strike's loudest sound glides (findPitchGlide): a glide read as two decaying components is no doublet. */
+  glide?: PitchGlide | null
 }
 
 export interface SplitDoublets<P extends DoubletCandidate> {
@@ -60,7 +63,8 @@ const SAME_RATE_SHARE = 0.05
  * attack transient beside a partial is no doublet), the component with most of the energy
  * (∝ A²/decay) decays as the FFT track did (within 60 %), and the gap is not the rate of a tremolo whose sidebands the
  * FFT path found on this partial or, within 5 %, on any other (a 2 Hz tremolo's upper sideband of a vibraphone's ×4
- * was split off as a doublet partner at −12 dB), nor a pair it already resolved. The two beat at their difference
+ * was split off as a doublet partner at −12 dB), nor a pair it already resolved; nor is a partial on the course of a pitch
+ * glide (findPitchGlide: a pitch that moves reads as two decaying components, not two modes). The two beat at their difference
  * (`beatHz`, `modulationHz`, depth 20·log10((A₁ + A₂)/|A₁ − A₂|)).
  */
 export function splitDoublets<P extends DoubletCandidate>(
@@ -82,7 +86,7 @@ export function splitDoublets<P extends DoubletCandidate>(
     .map(q => q.modulationHz!)
   for (const p of partials) {
     checkWorkDeadline()
-    const split = p.modulationFrom === 'pair' || p.snrDb < MIN_SNR_DB || p.amplitudeDb < floorDb ? null : splitOne(p)
+    const split = p.modulationFrom === 'pair' || p.snrDb < MIN_SNR_DB || p.amplitudeDb < floorDb || onGlideCourse(settings.glide ?? null, p.frequencyHz) ? null : splitOne(p)
     if (split) pairs.push(...split)
     else single.push(p)
   }

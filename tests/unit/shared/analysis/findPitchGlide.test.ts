@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { findPitchGlide, pitchGlideWarning } from '../../../../shared/analysis/findPitchGlide'
+import { dropPairsOnGlide, findPitchGlide, onGlideCourse, pitchGlideWarning } from '../../../../shared/analysis/findPitchGlide'
 import type { SpectrumFrame } from '../../../../shared/analysis/shortTimePeaks'
 
 /** Frames every 20 ms holding one peak per (frequency, level) pair the function gives for the time. */
@@ -40,5 +40,26 @@ describe('findPitchGlide', () => {
     // Up and back down (a tabla's bass head pressed while it rings) names the turn.
     expect(pitchGlideWarning({ ...glide, fromHz: 102.6, highestHz: 137.1, lowestHz: 102.6, toHz: 124.5 }, [])).toMatch(/from 102\.6 Hz to 137\.1 Hz to 124\.5 Hz/)
     expect(pitchGlideWarning(null, [])).toBeNull()
+  })
+
+  it('keeps of a pair one track gave on the glide\'s course only the reading where it settles', () => {
+    // A tom struck hard, as read with a timpani template: its fundamental's track, gliding from
+    // 108 Hz to 90 Hz, came back as a "pair" at 91.41 Hz and 97.70 Hz (6.29 Hz apart); the 97.70 Hz
+    // component (onset −3.6 dB, decaying 70 dB/s) is the glide's start, not a second mode.
+    const glide = { fromHz: 108.4, toHz: 90.0, highestHz: 108.4, lowestHz: 90.0, startS: 0.04, endS: 0.82 }
+    const pair = { beatHz: 6.29, modulationHz: 6.29, modulationDepthDb: 17.7, modulationFrom: 'pair' as const }
+    const settled = { frequencyHz: 91.41, ...pair }
+    const start = { frequencyHz: 97.7, ...pair }
+    const mode = { frequencyHz: 133.51, beatHz: null, modulationHz: null, modulationDepthDb: null, modulationFrom: null }
+    expect(dropPairsOnGlide([settled, start, mode], glide)).toEqual([{ frequencyHz: 91.41, beatHz: null, modulationHz: null, modulationDepthDb: null, modulationFrom: null }, mode])
+    // No glide, or a pair off its course (a bell's doublet up at 880 Hz): left as read.
+    expect(dropPairsOnGlide([settled, start, mode], null)).toEqual([settled, start, mode])
+    const doublet = [{ ...settled, frequencyHz: 880.2 }, { ...start, frequencyHz: 881.5 }]
+    expect(dropPairsOnGlide(doublet, glide)).toEqual(doublet)
+    // The course reaches 50 cents past either end (source: 2^(50/1200) = 1.0293).
+    expect(onGlideCourse(glide, 111.5)).toBe(true)
+    expect(onGlideCourse(glide, 112)).toBe(false)
+    expect(onGlideCourse(glide, 87.5)).toBe(true)
+    expect(onGlideCourse(null, 100)).toBe(false)
   })
 })

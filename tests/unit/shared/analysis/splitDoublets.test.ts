@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { analyzeSamples } from '../../../../shared/analysis/index'
+import { splitDoublets } from '../../../../shared/analysis/splitDoublets'
 import { synthStrike, type SynthPartial } from '../../../../shared/synthesis/synthStrike'
+import { trackReading } from '../../../support/partials'
 
 const sampleRate = 44100
 const onsetS = 0.05
@@ -48,5 +50,22 @@ describe('doublets through the pipeline', () => {
       expect(near, `seed ${seed}`).toHaveLength(1)
       expect(near[0]!.crossCheckCents).not.toBeNull()
     }
+  }, 30_000)
+})
+
+describe('splitDoublets', () => {
+  it('splits no pair on the course of a pitch glide', () => {
+    // The bell pair 0.8 Hz apart above, as the FFT path gives it (one reading inside one main lobe).
+    const [a, b] = doublets[0]!.parts
+    const signal = synthStrike([a, b], { sampleRate, durationS: 3 + onsetS, onsetS, noiseDb: -75, seed: 1 })
+    const { refineSpanS: _span, strongestFrameDb: _frame, ...reading } = trackReading({ frequencyHz: 880.35, amplitudeDb: -8.5, decayDbPerS: 3.4, snrDb: 60, windowS: 0.5 })
+    const onsetIndex = Math.round(onsetS * sampleRate)
+    const settings = { startIndex: onsetIndex + 220, endIndex: signal.length, onsetIndex, peakDb: 0, peakMarginDb: 1, minAmplitudeDb: -80 }
+    expect(splitDoublets(signal, sampleRate, [reading], settings).pairs).toHaveLength(2)
+    // Had the strike's loudest sound glided from 900 Hz down to 870 Hz, a pair there is that glide read as two components.
+    const glide = { fromHz: 900, toHz: 870, highestHz: 900, lowestHz: 870, startS: 0.06, endS: 0.8 }
+    const onGlide = splitDoublets(signal, sampleRate, [reading], { ...settings, glide })
+    expect(onGlide.pairs).toEqual([])
+    expect(onGlide.single).toEqual([reading])
   }, 30_000)
 })
