@@ -9,13 +9,17 @@ import { shortTimePeaks, type SpectrumFrame } from './shortTimePeaks'
 const GLIDE_WINDOW_S = 0.08
 /** Frames per window (a glide of a few semitones in 0.1 s moves under 150 cents a frame). */
 const GLIDE_FRAMES_PER_WINDOW = 4
+/** A reading whose frames spread more than this about it (RMS, cents) may be a glide the long frames step over. */
+const UNSTEADY_CENTS = 20
 /** How long after the strike it looks, s. */
 const GLIDE_LOOK_S = 1.5
 
 /**
  * Where the strike's loudest sound glides in pitch (findPitchGlide), or null.
- * The long window's frames are first asked: when its loudest peak is reported and holds
- * its pitch there, nothing more is done; otherwise the first 1.5 s are looked at again with
+ * The long window's frames are first asked: when its loudest peak is reported, its reading's
+ * frames spread no more than 20 ¢ (a struck bar's or bell's loudest partial mostly spreads a few
+ * cents; where more, the second look costs a few ms and findPitchGlide decides) and the long
+ * frames show no glide, nothing more is done; otherwise the first 1.5 s are looked at again with
  * a 0.08 s window, which follows a glide the long window's frames step over.
  */
 export function lookForGlide(
@@ -23,14 +27,14 @@ export function lookForGlide(
   sampleRate: number,
   strike: StrikeSpan,
   long: { frames: readonly SpectrumFrame[], windowS: number },
-  reportedHz: readonly number[],
+  reported: readonly { frequencyHz: number, stabilityCents: number }[],
 ): PitchGlide | null {
   let loudest = { frequencyHz: 0, amplitudeDb: -Infinity }
   for (const frame of long.frames) for (const peak of frame.peaks) if (peak.amplitudeDb > loudest.amplitudeDb) loudest = peak
   if (loudest.amplitudeDb === -Infinity) return null
   const reachHz = MAIN_LOBE_BINS / 2 / long.windowS
-  const reported = reportedHz.some(f => Math.abs(f - loudest.frequencyHz) <= reachHz)
-  if (reported && !findPitchGlide(long.frames)) return null
+  const held = reported.find(p => Math.abs(p.frequencyHz - loudest.frequencyHz) <= reachHz)
+  if (held && held.stabilityCents <= UNSTEADY_CENTS && !findPitchGlide(long.frames)) return null
   const windowLength = Math.round(GLIDE_WINDOW_S * sampleRate)
   const endIndex = Math.min(strike.endIndex, strike.startIndex + Math.round(GLIDE_LOOK_S * sampleRate))
   if (endIndex - strike.startIndex < 2 * windowLength) return null

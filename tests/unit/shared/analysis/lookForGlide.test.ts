@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { analyzeChannels } from '../../../../shared/analysis/analyzeChannels'
+import { lookForGlide } from '../../../../shared/analysis/lookForGlide'
 import { seededRandom } from '../../../support/seededRandom'
 
 const RATE = 48000
@@ -48,5 +49,21 @@ describe('lookForGlide (through analyzeChannels)', () => {
     expect(result.warnings.join(' ')).not.toMatch(/glides in pitch/)
     // source: the synthesis above, a steady 98.4 Hz
     expect(result.partials.some(p => Math.abs(p.frequencyHz - 98.4) < 0.01)).toBe(true)
+  })
+
+  it('looks again where the loudest reading is reported but its frames spread, as a glide the long frames stepped over does', () => {
+    // A bass head pressed at the blow and let go: 121 Hz easing to 91 Hz over 0.3 s (a tabla's
+    // bass stroke, common practice). The long window's one frame saw only where it settles.
+    const signal = glidingStroke(t => 91 + 30 * Math.exp(-t / 0.1))
+    const onsetIndex = Math.round(0.05 * RATE)
+    const strike = { onsetIndex, startIndex: onsetIndex + 240, endIndex: signal.length, noiseFloorDb: -80, peakDb: -3, peakIndex: onsetIndex + 500 }
+    const long = { frames: [{ timeS: 0.3, peaks: [{ frequencyHz: 91.3, amplitudeDb: -4, noiseFloorDb: -90, phaseRad: 0 }] }], windowS: 0.46 }
+    // Its frames spread 22 cents about it (RMS): looked at again, the glide is found.
+    const glide = lookForGlide(signal, RATE, strike, long, [{ frequencyHz: 91.3, stabilityCents: 22 }])
+    expect(glide).not.toBeNull()
+    expect(glide!.highestHz).toBeGreaterThan(110)
+    expect(glide!.toHz).toBeLessThan(95)
+    // A steady reading there is not looked at again (a struck bar's frames mostly spread a few cents).
+    expect(lookForGlide(signal, RATE, strike, long, [{ frequencyHz: 91.3, stabilityCents: 0.4 }])).toBeNull()
   })
 })
