@@ -1,5 +1,5 @@
 import { centsBetween } from './centsBetween'
-import type { SpectrumFrame } from './shortTimePeaks'
+import type { SpectralPeak, SpectrumFrame } from './shortTimePeaks'
 
 export interface PitchGlideSettings {
   /** Largest step from one frame to the next the path follows, cents. */
@@ -36,17 +36,9 @@ const DEFAULTS: PitchGlideSettings = { maxStepCents: 150, spanDb: 30, minGlideCe
  * and no single partial stands for that sound. Null when the loudest sound holds still.
  */
 export function findPitchGlide(frames: readonly SpectrumFrame[], settings: PitchGlideSettings = DEFAULTS): PitchGlide | null {
-  let startFrame = -1
-  let start = { frequencyHz: 0, amplitudeDb: -Infinity }
-  frames.forEach((frame, i) => {
-    for (const peak of frame.peaks) {
-      if (peak.amplitudeDb > start.amplitudeDb) {
-        start = peak
-        startFrame = i
-      }
-    }
-  })
-  if (startFrame < 0) return null
+  const loudest = loudestPeak(frames)
+  if (!loudest) return null
+  const { peak: start, frame: startFrame } = loudest
   const path = [{ timeS: frames[startFrame]!.timeS, frequencyHz: start.frequencyHz, amplitudeDb: start.amplitudeDb }]
   for (let i = startFrame + 1; i < frames.length; i++) {
     const last = path[path.length - 1]!
@@ -68,6 +60,15 @@ export function findPitchGlide(frames: readonly SpectrumFrame[], settings: Pitch
   const lowestHz = Math.min(...median)
   if (centsBetween(highestHz, lowestHz) < settings.minGlideCents) return null
   return { fromHz: median[0]!, toHz: median[median.length - 1]!, highestHz, lowestHz, startS: path[0]!.timeS, endS: path[path.length - 1]!.timeS }
+}
+
+/** The strongest spectral peak over all the frames (the strike's loudest sound) and its frame's index, or null when there is none. */
+export function loudestPeak(frames: readonly SpectrumFrame[]): { peak: SpectralPeak, frame: number } | null {
+  let loudest: { peak: SpectralPeak, frame: number } | null = null
+  frames.forEach((frame, i) => {
+    for (const peak of frame.peaks) if (!loudest || peak.amplitudeDb > loudest.peak.amplitudeDb) loudest = { peak, frame: i }
+  })
+  return loudest
 }
 
 /** How far past a glide's course a reading still lies on it, as a frequency ratio (50 ¢: its ends are 3-frame medians). */
@@ -100,12 +101,11 @@ export function pitchGlideWarning(glide: PitchGlide | null, reportedHz: readonly
   if (!glide) return null
   const hz = (f: number) => `${f.toFixed(1)} Hz`
   const via = [glide.highestHz, glide.lowestHz].filter(f => Math.abs(centsBetween(f, glide.fromHz)) >= 50 && Math.abs(centsBetween(f, glide.toHz)) >= 50)
-  const course = [hz(glide.fromHz), ...via.map(f => `${hz(f)}`), hz(glide.toHz)].join(' to ')
+  const course = [hz(glide.fromHz), ...via.map(hz), hz(glide.toHz)].join(' to ')
   const head = `The loudest sound of the strike glides in pitch, from ${course} over ${(glide.endS - glide.startS).toFixed(2)} s (as a drum head does when struck hard or pressed while it rings)`
-  const near = (a: number, b: number) => Math.abs(centsBetween(a, b)) <= 50
-  const settled = reportedHz.find(f => near(f, glide.toHz))
+  const settled = reportedHz.find(f => Math.abs(centsBetween(f, glide.toHz)) <= 50)
   if (settled !== undefined) return `${head}; it is reported where it settles, at ${hz(settled)}`
-  const midway = reportedHz.find(f => (f >= glide.lowestHz && f <= glide.highestHz) || near(f, glide.lowestHz) || near(f, glide.highestHz))
+  const midway = reportedHz.find(f => onGlideCourse(glide, f))
   if (midway !== undefined) return `${head}; the reading at ${hz(midway)} is an average over the glide, not a pitch the piece holds. Strike again, not too hard, and let it ring free`
   return `${head}, and is not reported: it holds no single pitch to measure. Strike again, not too hard, and let it ring free`
 }

@@ -1,6 +1,6 @@
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import { ENGINE_SETTINGS as S } from './engineSettings'
-import { findPitchGlide, type PitchGlide } from './findPitchGlide'
+import { findPitchGlide, loudestPeak, type PitchGlide } from './findPitchGlide'
 import type { StrikeSpan } from './findStrike'
 import { nextPowerOfTwo } from './nextPowerOfTwo'
 import { shortTimePeaks, type SpectrumFrame } from './shortTimePeaks'
@@ -28,10 +28,11 @@ export function lookForGlide(
   strike: StrikeSpan,
   long: { frames: readonly SpectrumFrame[], windowS: number },
   reported: readonly { frequencyHz: number, stabilityCents: number }[],
+  /** Frequencies the analysis covers, Hz (planAnalysis). */
+  range: { minHz: number, maxHz: number },
 ): PitchGlide | null {
-  let loudest = { frequencyHz: 0, amplitudeDb: -Infinity }
-  for (const frame of long.frames) for (const peak of frame.peaks) if (peak.amplitudeDb > loudest.amplitudeDb) loudest = peak
-  if (loudest.amplitudeDb === -Infinity) return null
+  const loudest = loudestPeak(long.frames)?.peak
+  if (!loudest) return null
   const reachHz = MAIN_LOBE_BINS / 2 / long.windowS
   const held = reported.find(p => Math.abs(p.frequencyHz - loudest.frequencyHz) <= reachHz)
   if (held && held.stabilityCents <= UNSTEADY_CENTS && !findPitchGlide(long.frames)) return null
@@ -46,8 +47,8 @@ export function lookForGlide(
     endIndex,
     peakThresholdDb: S.peakThresholdDb,
     noiseMarginDb: S.noiseMarginDb,
-    minFrequencyHz: 20,
-    maxFrequencyHz: Math.min(20000, 0.475 * sampleRate),
+    minFrequencyHz: range.minHz,
+    maxFrequencyHz: range.maxHz,
   })
   return findPitchGlide(frames)
 }

@@ -66,7 +66,7 @@ export function measureFftPartials(
   const hum = findMainsHum(candidates)
   const honest = dropSpuriousPartials(candidates, { strongestDb, ...S.spurious, humLinesHz: hum?.linesHz })
   const read = honest.kept.map(({ refineSpanS: _span, strongestFrameDb: _frame, ...p }): DoubletCandidate => p)
-  const glide = lookForGlide(mono, sampleRate, strike, { frames: measured[0]!.frames, windowS: plan.bands[0]!.windowS }, read)
+  const glide = lookForGlide(mono, sampleRate, strike, { frames: measured[0]!.frames, windowS: plan.bands[0]!.windowS }, read, plan.range)
   const partials = dropPairsOnGlide(read, glide)
   const glideWarning = pitchGlideWarning(glide, partials.map(p => p.frequencyHz))
   return { partials, measured, minAmplitudeDb, dynamicRangeDb, warnings: [...guarded.warnings, ...honest.warnings], advice: [...guarded.advice, ...[mainsHumWarning(hum), glideWarning].filter(w => w !== null)], glide }

@@ -59,11 +59,12 @@ describe('lookForGlide (through analyzeChannels)', () => {
     const strike = { onsetIndex, startIndex: onsetIndex + 240, endIndex: signal.length, noiseFloorDb: -80, peakDb: -3, peakIndex: onsetIndex + 500 }
     const long = { frames: [{ timeS: 0.3, peaks: [{ frequencyHz: 91.3, amplitudeDb: -4, noiseFloorDb: -90, phaseRad: 0 }] }], windowS: 0.46 }
     // Its frames spread 22 cents about it (RMS): looked at again, the glide is found.
-    const glide = lookForGlide(signal, RATE, strike, long, [{ frequencyHz: 91.3, stabilityCents: 22 }])
+    const range = { minHz: 20, maxHz: 20000 }
+    const glide = lookForGlide(signal, RATE, strike, long, [{ frequencyHz: 91.3, stabilityCents: 22 }], range)
     expect(glide).not.toBeNull()
     expect(glide!.highestHz).toBeGreaterThan(110)
     expect(glide!.toHz).toBeLessThan(95)
     // A steady reading there is not looked at again (a struck bar's frames mostly spread a few cents).
-    expect(lookForGlide(signal, RATE, strike, long, [{ frequencyHz: 91.3, stabilityCents: 0.4 }])).toBeNull()
+    expect(lookForGlide(signal, RATE, strike, long, [{ frequencyHz: 91.3, stabilityCents: 0.4 }], range)).toBeNull()
   })
 })
