@@ -1,3 +1,4 @@
+import { findEarlierSound } from './findEarlierSound'
 import { findSecondStrike } from './findSecondStrike'
 import { findStrike, type StrikeSpan } from './findStrike'
 
@@ -11,7 +12,8 @@ export interface LocatedStrike {
  * The strike's span in a mono recording (findStrike), with two fall-backs: a sound that
  * never falls to a quiet background is analysed from its first loud moment to the end
  * (with a warning), a second blow later in the file ends the span just before it (with a
- * warning: its sound would add to the first strike's decay), and the span is never shorter
+ * warning: its sound would add to the first strike's decay), an earlier blow or loud sound passed
+ * over for the louder strike is named (findEarlierSound), and the span is never shorter
  * than `minSpanS`.
  */
 export function locateStrike(
@@ -25,7 +27,9 @@ export function locateStrike(
   // The rise to the loudest moment may hold a blow of its own (a light tap, then the real
   // strike): the strike is the last blow before the loudest moment. A tremolo's or a beat's
   // swell is no blow, so the strike keeps the onset where the sound first rose.
+  let passedOver: number | null = null
   for (let blow = laterBlow(mono, sampleRate, found, onsetIndex); blow !== null; blow = laterBlow(mono, sampleRate, found, onsetIndex)) {
+    passedOver ??= onsetIndex
     onsetIndex = blow
     startIndex = Math.min(endIndex, blow + Math.round(settings.attackSkipS * sampleRate))
   }
@@ -33,11 +37,17 @@ export function locateStrike(
     // No quiet part to tell the strike from: the sound rings through the whole recording
     // (or there is no strike at all). Take the first loud sample as onset, analyse to the end.
     warnings.push('the sound never falls to a quiet background in this recording; analysed from its first loud moment to the end')
+    passedOver = null
     const loud = 10 ** ((found.peakDb - 30) / 20)
     onsetIndex = 0
     while (onsetIndex < mono.length - 1 && Math.abs(mono[onsetIndex]!) <= loud) onsetIndex++
     startIndex = Math.min(mono.length, onsetIndex + Math.round(settings.attackSkipS * sampleRate))
     endIndex = mono.length
+  }
+  // Said, because the earlier sound still rings under the strike and the benchmaker may have meant the first blow.
+  const earlier = passedOver ?? findEarlierSound(mono, sampleRate, onsetIndex, found.peakDb)
+  if (earlier !== null) {
+    warnings.push(`an earlier blow or loud sound at ${(earlier / sampleRate).toFixed(2)} s was left out: the strike measured is the loudest, at ${(onsetIndex / sampleRate).toFixed(2)} s, and what still rings of the earlier one lies under it; record one strike per take`)
   }
   const second = findSecondStrike(mono, sampleRate, { onsetIndex, fromIndex: startIndex, toIndex: endIndex })
   if (second !== null) {

@@ -41,7 +41,7 @@ export function prepareMono(channels: readonly ArrayLike<number>[], sampleRate: 
   let mean = 0
   for (let i = 0; i < mono.length; i++) mean += mono[i]!
   mean /= mono.length
-  if (Math.abs(mean) > 0.01) warnings.push(`DC offset: ${mean.toFixed(3)} of full scale (removed before analysis)`)
+  if (Math.abs(mean) > 0.01) warnings.push(`DC offset: ${mean.toFixed(3)} of full scale (removed before analysis, so the reading is unaffected; it takes that much headroom from the strike and usually comes from the audio interface's input: check it, or try another input)`)
   for (let i = 0; i < mono.length; i++) mono[i]! -= mean
   return { mono, peak: levels.peak, warnings }
 }

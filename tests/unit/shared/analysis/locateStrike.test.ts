@@ -62,11 +62,23 @@ describe('a second strike in the same file', () => {
     }, 60_000)
   }
 
-  it('measures a blow louder than what is left of the first from its own onset, with no cut', () => {
+  it('measures a blow louder than what is left of the first from its own onset, with no cut, and names the first', () => {
     const { strike, warnings } = locateStrike(twice(1.1, 1), sampleRate, settings)
     // source: the synthesised second onset at 1.1 s (the first has fallen 10 dB by then).
     expect(strike.onsetIndex / sampleRate).toBeCloseTo(1.1, 3)
-    expect(warnings).toEqual([])
+    expect(warnings).toEqual([
+      'an earlier blow or loud sound at 0.10 s was left out: the strike measured is the loudest, at 1.10 s, and what still rings of the earlier one lies under it; record one strike per take',
+    ])
+  }, 60_000)
+
+  it('names an earlier strike that died away before a louder one', () => {
+    const first = synthStrike(bar, { sampleRate, durationS: 8, onsetS: 0.3, noiseDb: -85, seed: 9 })
+    const second = synthStrike(bar, { sampleRate, durationS: 8, onsetS: 5.5 })
+    const { strike, warnings } = locateStrike(first.map((v, i) => v + 1.2 * second[i]!), sampleRate, settings)
+    // source: the synthesised onsets at 0.3 s and 5.5 s (the first has fallen 52 dB by then).
+    expect(strike.onsetIndex / sampleRate).toBeCloseTo(5.5, 2)
+    expect(warnings).toHaveLength(1)
+    expect(warnings[0]).toMatch(/^an earlier blow or loud sound at 0\.30 s was left out: the strike measured is the loudest, at 5\.50 s/)
   }, 60_000)
 
   it('takes the strike from its first rise when a deep slow tremolo swells louder later', async () => {
