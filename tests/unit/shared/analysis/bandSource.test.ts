@@ -45,6 +45,32 @@ describe('bandSource', () => {
     expect(full.centerHz).toBe(0)
   })
 
+  it('gives each source its own signal\'s bands when two are used in turn (the transform\'s buffers are shared, never mixed up)', () => {
+    const other = new Float64Array(100_000).map((_, n) => Math.cos(2 * Math.PI * (1900 / sampleRate) * n + 0.3))
+    const alone = (x: Float64Array, frequencyHz: number, alignIndex: number) => {
+      const bands = bandSource(x, sampleRate)
+      bands(frequencyHz, 20, 1000, 0, 131072 * 17 / 6)
+      return bands(frequencyHz, 20, 1000, alignIndex)
+    }
+    const expected = [alone(signal, 700, 5003), alone(other, 1900, 811)]
+    const a = bandSource(signal, sampleRate)
+    const b = bandSource(other, sampleRate)
+    a(700, 20, 1000, 0, 131072 * 17 / 6)
+    b(1900, 20, 1000, 0, 131072 * 17 / 6)
+    // a's first decimated band, then b's (b takes the buffers over), then a's again on a new alignment.
+    a(700, 20, 1000, 0)
+    const fromB = b(1900, 20, 1000, 811)
+    const fromA = a(700, 20, 1000, 5003)
+    for (const [got, want] of [[fromA, expected[0]!], [fromB, expected[1]!]] as const) {
+      // source: a unit cosine mixed down is a phasor of magnitude ½ (away from the signal's two ends).
+      const middle = got.re.length >> 1
+      expect(Math.hypot(got.re[middle]!, got.im[middle]!)).toBeCloseTo(0.5, 2)
+      expect(got.firstIndex).toBe(want.firstIndex)
+      expect(Array.from(got.re)).toEqual(Array.from(want.re))
+      expect(Array.from(got.im)).toEqual(Array.from(want.im))
+    }
+  })
+
   it('refuses a negative half-width', () => {
     expect(() => bandSource(signal, sampleRate)(700, -1, 10)).toThrow(RangeError)
   })
