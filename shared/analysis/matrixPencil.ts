@@ -3,6 +3,7 @@ import { hermitianEigen } from './hermitianEigen'
 import { realEigenvalues } from './realEigenvalues'
 import type { ComplexSignal } from './mixDownBand'
 import { selectModelOrder } from './selectModelOrder'
+import { solveComplexLeastSquares } from './solveComplexLeastSquares'
 import { solveNormalEquations } from './solveNormalEquations'
 
 /** Damped complex exponentials y[m] ≈ Σ_k c_k · z_kᵐ, z_k = e^{−δ_k + 2πi ν_k}, sorted by ν. */
@@ -152,31 +153,31 @@ export function matrixPencil(signal: ComplexSignal, settings: PencilSettings = {
   return fitAmplitudes(signal, poles, singularValues)
 }
 
-/** Least-squares amplitudes for known poles (Vandermonde system in the real embedding). */
+/** Least-squares amplitudes for known poles (the complex Vandermonde system). */
 function fitAmplitudes(signal: ComplexSignal, poles: { re: number, im: number }[], singularValues: Float64Array): ExponentialFit {
   const n = signal.re.length
   const k = poles.length
-  const vandermonde = new Float64Array(2 * n * 2 * k)
-  const cols = 2 * k
+  const vandermonde = { re: new Float64Array(n * k), im: new Float64Array(n * k) }
   const powers = { re: new Float64Array(n), im: new Float64Array(n) }
   for (let p = 0; p < k; p++) {
     const { re: zr, im: zi } = complexPowers(poles[p]!.re, poles[p]!.im, n, powers)
     for (let m = 0; m < n; m++) {
-      vandermonde[m * cols + p] = zr[m]!
-      vandermonde[m * cols + k + p] = -zi[m]!
-      vandermonde[(n + m) * cols + p] = zi[m]!
-      vandermonde[(n + m) * cols + k + p] = zr[m]!
+      vandermonde.re[m * k + p] = zr[m]!
+      vandermonde.im[m * k + p] = zi[m]!
     }
   }
-  const rhs = new Float64Array(2 * n)
-  rhs.set(signal.re)
-  rhs.set(signal.im, n)
-  const c = solveNormalEquations(vandermonde, 2 * n, cols, rhs)
+  const c = solveComplexLeastSquares(vandermonde, n, k, signal)
   let residual = 0
-  for (let r = 0; r < 2 * n; r++) {
-    let fitted = 0
-    for (let j = 0; j < cols; j++) fitted += vandermonde[r * cols + j]! * c[j]!
-    residual += (rhs[r]! - fitted) ** 2
+  for (let m = 0; m < n; m++) {
+    let fitRe = 0
+    let fitIm = 0
+    for (let p = 0; p < k; p++) {
+      const vr = vandermonde.re[m * k + p]!
+      const vi = vandermonde.im[m * k + p]!
+      fitRe += vr * c.re[p]! - vi * c.im[p]!
+      fitIm += vr * c.im[p]! + vi * c.re[p]!
+    }
+    residual += (signal.re[m]! - fitRe) ** 2 + (signal.im[m]! - fitIm) ** 2
   }
   const order = poles.map((z, p) => ({ z, p, nu: Math.atan2(z.im, z.re) / (2 * Math.PI) })).sort((a, b) => a.nu - b.nu)
   const fit: ExponentialFit = {
@@ -188,8 +189,8 @@ function fitAmplitudes(signal: ComplexSignal, poles: { re: number, im: number }[
     residualRms: Math.sqrt(residual / n),
   }
   order.forEach(({ z, p, nu }, i) => {
-    const cr = c[p]!
-    const ci = c[k + p]!
+    const cr = c.re[p]!
+    const ci = c.im[p]!
     fit.frequencyCycles[i] = nu
     fit.dampingNepers[i] = -Math.log(Math.hypot(z.re, z.im))
     fit.amplitude[i] = Math.hypot(cr, ci)

@@ -1,7 +1,7 @@
 import { complexPowers } from './complexPowers'
 import type { ExponentialFit } from './matrixPencil'
 import type { ComplexSignal } from './mixDownBand'
-import { solveNormalEquations } from './solveNormalEquations'
+import { solveComplexLeastSquares } from './solveComplexLeastSquares'
 
 export interface RefineSettings {
   /** Most Gauss–Newton steps (default 4). */
@@ -12,8 +12,8 @@ export interface RefineSettings {
  * Least-squares refinement of damped exponentials y[m] ≈ Σ c_k·e^{p_k m},
  * p_k = −δ_k + 2πiν_k, started from the matrix pencil's estimate: Gauss–Newton steps on
  * all c_k and p_k together (the model is complex-analytic, so each step is one complex
- * least-squares solve with the Jacobian [e^{p_k m} | c_k·m·e^{p_k m}], done in the real
- * embedding by its normal equations), halving a step that does not lower the residual. In white Gaussian noise the
+ * least-squares solve with the Jacobian [e^{p_k m} | c_k·m·e^{p_k m}], by
+ * solveComplexLeastSquares), halving a step that does not lower the residual. In white Gaussian noise the
  * least-squares fit is the maximum-likelihood estimate, which reaches the Cramér–Rao bound
  * at high SNR (Kay, Fundamentals of Statistical Signal Processing I, 1993, §7.5); the
  * pencil alone does not for the damping (Hua & Sarkar 1990, §V).
@@ -31,14 +31,13 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
     pIm: Float64Array.from(start.frequencyCycles, nu => 2 * Math.PI * nu),
   }
   // Buffers reused across iterations and step halvings: the powers e^{p m}, two residuals
-  // (the current one and a trial), the Jacobian and the right-hand side.
+  // (the current one, which is the right-hand side, and a trial) and the Jacobian.
   const powers: ComplexSignal = { re: new Float64Array(n), im: new Float64Array(n) }
   let current = residual(signal, params, powers, { re: new Float64Array(n), im: new Float64Array(n), sumSq: 0 })
   let spare: Residual = { re: new Float64Array(n), im: new Float64Array(n), sumSq: 0 }
-  // Columns: Δc (re part k, im part k), Δp (re part k, im part k), as φ(J), row by row.
-  const cols = 4 * k
-  const jacobian = new Float64Array(2 * n * cols)
-  const rhs = new Float64Array(2 * n)
+  // Columns Δc_k, then Δp_k, of the complex Jacobian, row by row; the right-hand side is the residual.
+  const cols = 2 * k
+  const jacobian = { re: new Float64Array(n * cols), im: new Float64Array(n * cols) }
   for (let it = 0; it < iterations; it++) {
     for (let q = 0; q < k; q++) {
       const cr = params.cRe[q]!
@@ -48,25 +47,15 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
       for (let m = 0; m < n; m++) {
         const er = eRe[m]!
         const ei = eIm[m]!
-        const wr = m * (cr * er - ci * ei)
-        const wi = m * (cr * ei + ci * er)
-        const top = m * cols
-        const bottom = (n + m) * cols
-        jacobian[top + q] = er
-        jacobian[top + k + q] = wr
-        jacobian[top + 2 * k + q] = -ei
-        jacobian[top + 3 * k + q] = -wi
-        jacobian[bottom + q] = ei
-        jacobian[bottom + k + q] = wi
-        jacobian[bottom + 2 * k + q] = er
-        jacobian[bottom + 3 * k + q] = wr
+        jacobian.re[m * cols + q] = er
+        jacobian.im[m * cols + q] = ei
+        jacobian.re[m * cols + k + q] = m * (cr * er - ci * ei)
+        jacobian.im[m * cols + k + q] = m * (cr * ei + ci * er)
       }
     }
-    rhs.set(current.re)
-    rhs.set(current.im, n)
-    let step: Float64Array
+    let step: ComplexSignal
     try {
-      step = solveNormalEquations(jacobian, 2 * n, cols, rhs)
+      step = solveComplexLeastSquares(jacobian, n, cols, current)
     }
     catch {
       break
@@ -75,10 +64,10 @@ export function refineExponentials(signal: ComplexSignal, start: ExponentialFit,
     let accepted = false
     for (let tries = 0; tries < 6 && !accepted; tries++, scale /= 2) {
       const trial = {
-        cRe: params.cRe.map((v, q) => v + scale * step[q]!),
-        cIm: params.cIm.map((v, q) => v + scale * step[2 * k + q]!),
-        pRe: params.pRe.map((v, q) => v + scale * step[k + q]!),
-        pIm: params.pIm.map((v, q) => v + scale * step[3 * k + q]!),
+        cRe: params.cRe.map((v, q) => v + scale * step.re[q]!),
+        cIm: params.cIm.map((v, q) => v + scale * step.im[q]!),
+        pRe: params.pRe.map((v, q) => v + scale * step.re[k + q]!),
+        pIm: params.pIm.map((v, q) => v + scale * step.im[k + q]!),
       }
       const next = residual(signal, trial, powers, spare)
       if (next.sumSq < current.sumSq) {
