@@ -1,6 +1,7 @@
 import { checkWorkDeadline } from './workDeadline'
 import { centsBetween } from './centsBetween'
 import { estimateBand } from './estimateBand'
+import { partialUncertaintyCents } from './partialUncertaintyCents'
 import type { FftPartial, MeasuredPartial } from './types'
 
 export interface AnnotateSettings {
@@ -33,9 +34,9 @@ const SEARCH_RATIO = 2 ** (5 / 1200) - 1
  * a band a few line-widths and resolution cells (and at least ±5 ¢) wide. The partial's second
  * reading is the inverse-variance weighted mean of the pencil components within one resolution
  * cell (2 / span) of the strongest component (by energy over the span) in the band's passband.
- * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)²), with
- * u_bound the Cramér–Rao bound at the pencil's measured amplitude, decay, span and noise and
- * Δ/√2 the standard deviation of the two readings; uncertaintyDecayPct likewise for the decay.
+ * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)² + u_line²)
+ * (partialUncertaintyCents), with u_bound the Cramér–Rao bound at the pencil's measured amplitude,
+ * decay, span and noise, Δ/√2 the standard deviation of the two readings and u_line 5 % of the line's half-width; uncertaintyDecayPct likewise for the decay.
  * The partials where |Δ| exceeds k = 2 times the combined uncertainty of the two readings are named
  * in one warning, those the pencil could not read in another.
  */
@@ -83,7 +84,7 @@ export function annotatePartials<P extends FftPartial>(
     const centroidDecay = cell.reduce((sum, c) => sum + c.decayDbPerS * weightOf(c), 0) / weights
     const delta = centsBetween(centroidHz, p.frequencyHz)
     const boundCents = (CENTS_PER_LOG * strongest.frequencySdHz) / p.frequencyHz
-    const uncertaintyCents = Math.hypot(boundCents, delta / Math.SQRT2)
+    const uncertaintyCents = partialUncertaintyCents(boundCents, delta, p.frequencyHz, p.decayDbPerS)
     const decayDelta = centroidDecay - p.decayDbPerS
     const uncertaintyDecayPct = p.decayDbPerS > 0
       ? (100 * Math.hypot(strongest.decaySdDbPerS, decayDelta / Math.SQRT2)) / p.decayDbPerS

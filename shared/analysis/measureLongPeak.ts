@@ -9,6 +9,7 @@ import { refinePeak } from './refinePeak'
 import type { MeasuredPartial } from './types'
 import type { Baseband, DecimatedBand } from './decimateBand'
 import { windowBand } from './windowBand'
+import { partialUncertaintyCents } from './partialUncertaintyCents'
 
 export interface LongPeakSpan {
   /** `signal[startIndex … startIndex + length)` times a Blackman–Harris window of that length (windowBand of `input`). */
@@ -90,7 +91,7 @@ export function measureLongPeak(signal: Float64Array, sampleRate: number, freque
     modulationHz: null,
     modulationDepthDb: null,
     crossCheckCents: delta,
-    uncertaintyCents: Math.hypot(boundCents, delta / Math.SQRT2),
+    uncertaintyCents: partialUncertaintyCents(boundCents, delta, peak.frequencyHz, decayDbPerS),
     uncertaintyDecayPct: decayDbPerS > 0 ? (100 * Math.hypot(second.decaySdDbPerS, (second.decayDbPerS - decayDbPerS) / Math.SQRT2)) / decayDbPerS : null,
   }
 }

@@ -1,4 +1,5 @@
 import type { BandComponent } from './estimateBand'
+import { partialUncertaintyCents } from './partialUncertaintyCents'
 import type { MeasuredPartial } from './types'
 
 export interface PencilPartialContext {
@@ -16,7 +17,8 @@ const CENTS_PER_LOG = 1200 / Math.LN2
  * A partial read by the matrix pencil alone (one component of estimateBand): frequency,
  * decay and amplitude are the pencil's; there is no FFT reading to compare, so
  * `crossCheckCents` is null and the uncertainties are the Cramér–Rao bound at the measured
- * values (Yao & Pandit 1995). `stabilityCents` carries the same bound in cents (there are no
+ * values (Yao & Pandit 1995), the frequency's with its line's allowance
+ * (partialUncertaintyCents). `stabilityCents` carries the frequency's bound in cents (there are no
  * frames), `r2` the share of the band's power the exponential holds at its start,
  * SNR / (SNR + 1), and `frames` is 0.
  */
@@ -40,7 +42,7 @@ export function pencilPartial(component: BandComponent, context: PencilPartialCo
     modulationHz: context.modulationHz ?? null,
     modulationDepthDb: context.modulationDepthDb ?? null,
     crossCheckCents: null,
-    uncertaintyCents: boundCents,
+    uncertaintyCents: partialUncertaintyCents(boundCents, 0, frequencyHz, decayDbPerS),
     uncertaintyDecayPct: decayDbPerS > 0 ? (100 * component.decaySdDbPerS) / decayDbPerS : null,
   }
 }
