@@ -118,7 +118,7 @@ export function uncertaintyText(strikes: UncertaintyStrike[]): string {
   const typical = roundUpCents(f.medianCents!)
   const parts = [
     basis,
-    'For each tuned partial the engine estimates how far its measured frequency may be off, from how strongly the partial stands above the background noise, how long it sounds and how fast it dies away, and from how well two independent ways of measuring it agree.',
+    'For each tuned partial the engine estimates how far its measured frequency may be off, from how strongly the partial stands above the background noise, how long it sounds and how fast it dies away, from how well two independent ways of measuring it agree, and with an allowance for other sound close to its pitch, such as the room\'s echo of it.',
     `Over the ${plural(f.withUncertainty, 'tuned partial', 'tuned partials')} with such an estimate, the measured frequency is within ±${typical} ¢ for a typical partial and within ±${largest} ¢ for the least certain one, each with about 95 % confidence (expanded uncertainty, coverage factor k = 2).`,
   ]
   const without = f.tunedPartials - f.withUncertainty
