@@ -3,6 +3,7 @@ import { PERMISSIONS, type Role } from '../../../shared/auth/roles'
 import { api } from '../support/http'
 import { testSql } from '../support/mail'
 import { approveAll, approvedSet } from '../support/certified-set'
+import { waitForPdf } from '../support/certificates'
 import { bodyFor, recordsOf, routePermissions, snapshot, urlFor, type RecordIds } from './routes'
 
 // Class guarded: "A role without the right gets 403 on every route, and nothing is saved", read from
@@ -27,6 +28,9 @@ beforeAll(async () => {
   workshopId = ctx.owner.workshopId
   tokens = { supervisor: ctx.supervisor.token, benchmaker: ctx.bench.token, office: ctx.office.token }
   ids = { ...await recordsOf(ctx.owner.token, ctx.bench.userId), certificate: signed.body.id ?? signed.body.certificate?.id }
+  // The PDF is rendered by a job after signing and stored on the certificate's row: done before the
+  // walk's snapshot, or a slow render landing mid-walk reads as a change a refused request made.
+  await waitForPdf(ctx.office.token, ids.certificate!)
   // The invitation the records include has sent a message of the workshop's.
   const [mail] = await testSql()<{ id: string }[]>`select id from mail_messages where workshop_id = ${workshopId} limit 1`
   ids.mail = mail?.id ?? ''
