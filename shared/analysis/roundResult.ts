@@ -10,9 +10,19 @@ function r(value: number | null, digits: number): number | null {
 }
 
 /**
+ * Round an uncertainty up to `digits` decimals (JCGM 100:2008, GUM §7.2.6: rounding up may be
+ * appropriate), so a small one is never stated as 0; a value already on the grid stays.
+ */
+function up(value: number | null, digits: number): number | null {
+  if (value === null || !Number.isFinite(value)) return value
+  const scale = 10 ** digits
+  return Math.ceil(value * scale - 1e-6) / scale
+}
+
+/**
  * Round a result for output, to well below what the engine can resolve:
  * 0.0001 Hz (0.003 ¢ at 65 Hz), 0.01 dB, 0.001 dB/s, 0.01 ¢ (0.001 ¢ for the cross-check
- * and uncertainty), 0.01 % for the decay uncertainty, 0.1 ms.
+ * and uncertainty), 0.01 % for the decay uncertainty, 0.1 ms; uncertainties are rounded up.
  * Verdicts are decided before rounding.
  */
 export function roundResult(result: AnalysisResult): AnalysisResult {
@@ -39,8 +49,8 @@ export function roundResult(result: AnalysisResult): AnalysisResult {
       modulationHz: r(p.modulationHz, 3),
       modulationDepthDb: r(p.modulationDepthDb, 2),
       crossCheckCents: r(p.crossCheckCents, 3),
-      uncertaintyCents: r(p.uncertaintyCents, 3),
-      uncertaintyDecayPct: r(p.uncertaintyDecayPct, 2),
+      uncertaintyCents: up(p.uncertaintyCents, 3),
+      uncertaintyDecayPct: up(p.uncertaintyDecayPct, 2),
     })),
     parameters: {
       ...result.parameters,

@@ -28,6 +28,13 @@ describe('roundResult', () => {
     expect(rounded.matches![0]!.cents).toBe(Math.round(centsBetween(c2, 65.4) * 100) / 100)
   })
 
+  it('rounds uncertainties up, so a small one is never stated as 0', () => {
+    const small = roundResult({ ...raw, partials: [measuredPartial({ frequencyHz: c2, uncertaintyCents: 0.00012, uncertaintyDecayPct: 0.0041 }), measuredPartial({ frequencyHz: 2 * c2, uncertaintyCents: 0.25, uncertaintyDecayPct: 1.2 })] })
+    // source: JCGM 100:2008 (GUM) §7.2.6, an uncertainty may be rounded up rather than to the nearest digit
+    expect(small.partials.map(p => [p.uncertaintyCents, p.uncertaintyDecayPct])).toEqual([[0.001, 0.01], [0.25, 1.2]])
+    expect(roundResult(small)).toEqual(small)
+  })
+
   it('passes nulls through, changes nothing it was given, and rounds once for all', () => {
     expect(rounded.partials[0]!.beatHz).toBeNull()
     expect(raw).toEqual(before)
