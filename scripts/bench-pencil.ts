@@ -9,9 +9,9 @@ import { analyzeSamples, annotatePartials, dampedSinusoidCrb, estimateBand, sepa
 import type { FftPartial } from '../shared/analysis/index'
 import { seededRandom } from '../shared/synthesis/seededRandom'
 import { synthStrike, type SynthPartial } from '../shared/synthesis/synthStrike'
+import { DB_PER_NEPER } from '../shared/analysis/units'
 
 const quick = process.argv.includes('--quick')
-const DB_PER_NEPER = 20 / Math.LN10
 const median = (v: number[]) => {
   const s = [...v].sort((a, b) => a - b)
   return s.length % 2 ? s[s.length >> 1]! : (s[s.length / 2 - 1]! + s[s.length / 2]!) / 2

@@ -3,6 +3,7 @@ import { centsBetween } from './centsBetween'
 import { estimateBand } from './estimateBand'
 import { partialUncertaintyCents } from './partialUncertaintyCents'
 import type { FftPartial, MeasuredPartial } from './types'
+import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
 
 export interface AnnotateSettings {
   /** First sample after the attack, and one past the last sample that may be used. */
@@ -18,7 +19,6 @@ export interface AnnotatedPartials<P extends FftPartial> {
   warnings: string[]
 }
 
-const CENTS_PER_LOG = 1200 / Math.LN2
 /** Variance of the FFT path's reading taken as this multiple of the bound (window loss allowance). */
 const FFT_VARIANCE_FACTOR = 2
 /** Coverage factor for the disagreement warning (GUM: k = 2, about 95 %). */
@@ -59,7 +59,7 @@ export function annotatePartials<P extends FftPartial>(
     const spanS = Math.min(maxSpanS, Math.max(0.02, (Math.min(Math.max(p.snrDb, 20), 70) + 10) / decay))
     const end = Math.min(endIndex, startIndex + Math.round(spanS * sampleRate))
     const usedS = (end - startIndex) / sampleRate
-    const lineWidthHz = decay / (20 / Math.LN10) / (2 * Math.PI)
+    const lineWidthHz = decay / DB_PER_NEPER / (2 * Math.PI)
     const halfWidthHz = Math.min(0.45 * p.frequencyHz, 0.45 * (sampleRate / 2 - p.frequencyHz), Math.max(2, 4 / usedS, 3 * lineWidthHz, p.frequencyHz * SEARCH_RATIO))
     if (!(halfWidthHz > 0) || end - startIndex < 64) return none
     // A band the estimator cannot read (digital silence) leaves the partial unchecked.
@@ -109,7 +109,7 @@ export function annotatePartials<P extends FftPartial>(
 
 /** Energy of a damped component over `spanS` from its reference sample: a²·(1 − e^{−2αT}) / 2α, α in nepers/s. */
 function energyOver(c: { amplitude: number, decayDbPerS: number }, spanS: number): number {
-  const alpha = c.decayDbPerS / (20 / Math.LN10)
+  const alpha = c.decayDbPerS / DB_PER_NEPER
   const x = 2 * alpha * spanS
   return c.amplitude ** 2 * (Math.abs(x) < 1e-9 ? spanS : -Math.expm1(-x) / (2 * alpha))
 }

@@ -3,6 +3,7 @@ import { matrixPencil, type ExponentialFit } from './matrixPencil'
 import { mixDownBand, type BandSignal } from './mixDownBand'
 import { phasorTable } from './phasorTable'
 import { refineExponentials } from './refineExponentials'
+import { DB_PER_NEPER } from './units'
 
 /** One damped sinusoid found in a band. */
 export interface BandComponent {
@@ -51,7 +52,6 @@ export interface BandSettings {
   referenceIndex?: number
 }
 
-const DB_PER_NEPER = 20 / Math.LN10
 /** Passband half-width as a fraction of the band's sample rate (see mixDownBand). */
 const PASSBAND = 1 / 8
 

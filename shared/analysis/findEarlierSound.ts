@@ -1,3 +1,5 @@
+import { energyBlockLength } from './units'
+
 /** How close to the strike's loudest block an earlier sound must come to be named, dB (findStrike's lead-in rule). */
 const WITHIN_PEAK_DB = 20
 /** How far it must stand over the quiet just before the strike, dB (a steady rumble or hum never does). */
@@ -15,7 +17,7 @@ const GUARD_S = 0.02
  */
 export function findEarlierSound(signal: Float64Array, sampleRate: number, onsetIndex: number, peakDb: number): number | null {
   if (!(sampleRate > 0) || !Number.isFinite(peakDb)) throw new RangeError('findEarlierSound needs a positive sample rate and a finite peak level')
-  const block = Math.max(16, Math.round(sampleRate * 0.001))
+  const block = energyBlockLength(sampleRate)
   const onset = Math.min(signal.length, Math.max(0, onsetIndex))
   const end = onset - Math.round(GUARD_S * sampleRate)
   if (end < block) return null

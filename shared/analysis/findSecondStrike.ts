@@ -1,3 +1,5 @@
+import { energyBlockLength } from './units'
+
 /** What makes a rise of the envelope a new blow rather than a tremolo or a beat coming back. */
 export interface SecondStrikeSettings {
   /** Rise of the next 3 ms over the 30 ms before them, dB (a blow rises within a few ms). */
@@ -27,7 +29,7 @@ export function findSecondStrike(
   span: { onsetIndex: number, fromIndex: number, toIndex: number },
   settings: SecondStrikeSettings = { minRiseDb: 12, withinPeakDb: 25 },
 ): number | null {
-  const block = Math.max(16, Math.round(sampleRate * 0.001))
+  const block = energyBlockLength(sampleRate)
   const onset = Math.max(1, span.onsetIndex)
   const blocks = Math.floor((Math.min(signal.length, span.toIndex) - onset) / block)
   const first = Math.ceil((span.fromIndex - onset) / block) + BEFORE_BLOCKS

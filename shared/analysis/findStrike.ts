@@ -1,3 +1,5 @@
+import { energyBlockLength } from './units'
+
 /** Where the strike is in a recording, in samples. */
 export interface StrikeSpan {
   /** First sample of the strike. */
@@ -35,7 +37,7 @@ const LEAD_IN_BELOW_PEAK_DB = 20
  * and the end is the last point where the smoothed envelope stands 6 dB over the floor.
  */
 export function findStrike(signal: Float64Array, sampleRate: number, settings: StrikeSettings): StrikeSpan {
-  const block = Math.max(16, Math.round(sampleRate * (settings.blockS ?? 0.001)))
+  const block = energyBlockLength(sampleRate, settings.blockS)
   const blocks = Math.floor(signal.length / block)
   if (blocks < 4) throw new RangeError('findStrike needs at least four blocks of signal')
   const levels = new Float64Array(blocks)

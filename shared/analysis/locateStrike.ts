@@ -1,6 +1,7 @@
 import { findEarlierSound } from './findEarlierSound'
 import { findSecondStrike } from './findSecondStrike'
 import { findStrike, type StrikeSpan } from './findStrike'
+import { energyBlockLength } from './units'
 
 /** The strike's span, and what was noticed finding it. */
 export interface LocatedStrike {
@@ -52,7 +53,7 @@ export function locateStrike(
   const second = findSecondStrike(mono, sampleRate, { onsetIndex, fromIndex: startIndex, toIndex: endIndex })
   if (second !== null) {
     // Two blocks (2 ms) before the rise, so no sample of the new blow is measured.
-    endIndex = Math.max(startIndex, second - 2 * Math.max(16, Math.round(sampleRate * 0.001)))
+    endIndex = Math.max(startIndex, second - 2 * energyBlockLength(sampleRate))
     warnings.push(`a second strike at ${(second / sampleRate).toFixed(2)} s: only the first, up to ${(endIndex / sampleRate).toFixed(2)} s, was measured`)
   }
   const minSpan = Math.round(settings.minSpanS * sampleRate)
@@ -65,7 +66,7 @@ export function locateStrike(
 
 /** A blow after `onsetIndex` and before the strike's loudest moment (findSecondStrike), or null. */
 function laterBlow(mono: Float64Array, sampleRate: number, found: StrikeSpan, onsetIndex: number): number | null {
-  const toIndex = found.peakIndex + Math.max(16, Math.round(sampleRate * 0.001))
+  const toIndex = found.peakIndex + energyBlockLength(sampleRate)
   if (toIndex <= onsetIndex) return null
   return findSecondStrike(mono, sampleRate, { onsetIndex, fromIndex: onsetIndex + Math.round(sampleRate * 0.005), toIndex })
 }

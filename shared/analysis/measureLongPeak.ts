@@ -10,6 +10,7 @@ import type { MeasuredPartial } from './types'
 import type { Baseband, DecimatedBand } from './decimateBand'
 import { windowBand } from './windowBand'
 import { partialUncertaintyCents } from './partialUncertaintyCents'
+import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
 
 export interface LongPeakSpan {
   /** `signal[startIndex … startIndex + length)` times a Blackman–Harris window of that length (windowBand of `input`). */
@@ -25,7 +26,6 @@ export interface LongPeakSpan {
   noiseFloorDb: number
 }
 
-const CENTS_PER_LOG = 1200 / Math.LN2
 /** Half-length windows the decay is read from, from the start to the end of the long one (offsets in long windows). */
 const DECAY_FRAMES = [0, 0.125, 0.25, 0.375, 0.5]
 /** Only frames this far over the floor enter the decay line, dB (as a track's frames do). */
@@ -73,7 +73,7 @@ export function measureLongPeak(signal: Float64Array, sampleRate: number, freque
   if (times.length < 2) return null
   const fit = fitLine(times, levels)
   const decayDbPerS = -fit.slope
-  const gain = decayingWindowGain(length, (decayDbPerS * Math.LN10) / 20 / sampleRate, startIndex - onsetIndex)
+  const gain = decayingWindowGain(length, decayDbPerS / DB_PER_NEPER / sampleRate, startIndex - onsetIndex)
   const delta = centsBetween(second.frequencyHz, peak.frequencyHz)
   const boundCents = (CENTS_PER_LOG * second.frequencySdHz) / peak.frequencyHz
   return {

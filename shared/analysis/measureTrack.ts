@@ -13,6 +13,7 @@ import { refinePeak, type RefinedPeak } from './refinePeak'
 import { separatePair } from './separatePair'
 import type { FftPartial } from './types'
 import { windowBand } from './windowBand'
+import { DB_PER_NEPER } from './units'
 
 export interface TrackContext {
   onsetIndex: number
@@ -108,7 +109,7 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   )
   const length = spanEnd - spanStart
   if (length < 32) return []
-  const alpha = (decayDbPerS * Math.LN10) / 20
+  const alpha = decayDbPerS / DB_PER_NEPER
   const binHz = sampleRate / length
   // Everything below reads a band around the track, mixed down and decimated: as wide as the
   // sidebands reach plus a main lobe of the long window; a beating track's pair search (and

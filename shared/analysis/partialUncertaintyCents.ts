@@ -1,8 +1,7 @@
+import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
+
 /** Share of a partial's line half-width allowed for what else sounds within its line (see partialUncertaintyCents). */
 export const LINE_PULL_SHARE = 0.05
-
-const CENTS_PER_LOG = 1200 / Math.LN2
-const DB_PER_NEPER = 20 / Math.LN10
 
 /**
  * One standard deviation of a partial's frequency in cents, from three independent terms:

@@ -1,6 +1,7 @@
 import type { BandComponent } from './estimateBand'
 import { partialUncertaintyCents } from './partialUncertaintyCents'
 import type { MeasuredPartial } from './types'
+import { CENTS_PER_LOG } from './units'
 
 export interface PencilPartialContext {
   /** Span the component was measured over, in s from the start of the file. */
@@ -10,8 +11,6 @@ export interface PencilPartialContext {
   modulationHz?: number | null
   modulationDepthDb?: number | null
 }
-
-const CENTS_PER_LOG = 1200 / Math.LN2
 
 /**
  * A partial read by the matrix pencil alone (one component of estimateBand): frequency,

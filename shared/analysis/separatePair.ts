@@ -4,6 +4,7 @@ import type { Baseband } from './decimateBand'
 import { dtftAt, type Complex } from './dtftAt'
 import { finishGoertzel } from './finishGoertzel'
 import { fitLine } from './fitLine'
+import { DB_PER_NEPER } from './units'
 
 /** Envelopes of two close partials, separated. */
 export interface SeparatedPair {
@@ -84,7 +85,7 @@ export function separatePair(
   const long = cachedBlackmanHarris(length)
   // Σ gₖ[n] and the DTFT of each gain sequence gₖ[n] = w[n]·e^{−αₖ(t_n − t_onset)} at the
   // other partial's offset, in one pass without storing the sequences (Goertzel 1958).
-  const alpha = decayDbPerS.map(d => (d * Math.LN10) / 20)
+  const alpha = decayDbPerS.map(d => d / DB_PER_NEPER)
   let envelope0 = Math.exp((-alpha[0]! * (spanStart - onsetIndex)) / sampleRate)
   let envelope1 = Math.exp((-alpha[1]! * (spanStart - onsetIndex)) / sampleRate)
   const perSample0 = Math.exp(-alpha[0]! / sampleRate)

@@ -9,6 +9,7 @@ import { frequencySensitivity } from './frequencySensitivity'
 import { isSymmetricProfile } from './isSymmetricProfile'
 import { solveBarModes } from './solveBarModes'
 import type { BarGeometry } from './types'
+import { CENTS_PER_LOG } from '../analysis/units'
 
 export interface PlannedPartial { ratio: number, cents: number, toleranceCents: number }
 
@@ -29,7 +30,6 @@ export interface CutPlanOptions {
   handFactor?: number
 }
 
-const CENTS_PER_LN = 1200 / Math.LN2
 /** Depths are given to the 0.05 mm a benchmaker can cut to. */
 const DEPTH_STEP_MM = 0.05
 /** Cost of 1 mm of cut, in squared tolerances: keeps cuts shallow and the problem well posed. */
@@ -97,7 +97,7 @@ export function planCuts(bar: BarGeometry, partials: readonly PlannedPartial[], 
     const a = Matrix.zeros(rows, groups.length)
     const b = new Float64Array(rows)
     partials.forEach((p, i) => {
-      groups.forEach((g, k) => a.set(i, k, g.reduce((s, j) => s + hand * CENTS_PER_LN * sensitivity[modeOf[i]!]![j]!, 0) / p.toleranceCents))
+      groups.forEach((g, k) => a.set(i, k, g.reduce((s, j) => s + hand * CENTS_PER_LOG * sensitivity[modeOf[i]!]![j]!, 0) / p.toleranceCents))
       b[i] = -cents[i]! / p.toleranceCents
     })
     groups.forEach((g, k) => {
