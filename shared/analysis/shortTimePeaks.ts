@@ -71,23 +71,15 @@ export function shortTimePeaks(signal: Float64Array, sampleRate: number, setting
   trailing.fill(Infinity)
   const last = settings.startIndex + Math.floor((settings.endIndex - windowLength - settings.startIndex) / hop) * hop
   for (let start = last; start >= settings.startIndex; start -= hop) {
-    for (let i = 0; i < windowLength; i++) buffer[i] = signal[start + i]! * window[i]!
+    windowInto(signal, start, window, buffer)
     realFft(buffer, spectrum)
-    let maxPower = 0
-    for (let k = kMin - 1; k <= kMax + 1; k++) {
-      const re = spectrum[2 * k]!
-      const im = spectrum[2 * k + 1]!
-      const p = re * re + im * im
-      power[k] = p
-      if (k >= kMin && k <= kMax && p > maxPower) maxPower = p
-    }
+    const maxPower = powerSpectrum(spectrum, kMin, kMax, power)
     bandNoiseFloor(power, kMin, kMax, minBandBins, floor)
     trailingFloor(floor, trailing, kMin, kMax, settings.maxFloorReliefDb ?? 0)
-    const relativeThreshold = Math.max(maxPower * relative, Number.MIN_VALUE)
+    const threshold = { relative: Math.max(maxPower * relative, Number.MIN_VALUE), margin }
     const peaks: SpectralPeak[] = []
-    for (let k = kMin; k <= kMax; k++) {
+    for (let k = nextCandidate(power, floor, kMin, kMax, threshold); k <= kMax; k = nextCandidate(power, floor, k + 1, kMax, threshold)) {
       const p = power[k]!
-      if (p <= relativeThreshold || p <= floor[k]! * margin || p <= power[k - 1]! || p < power[k + 1]!) continue
       const vertex = parabolicPeak(10 * Math.log10(power[k - 1]!), 10 * Math.log10(p), 10 * Math.log10(power[k + 1]!))
       peaks.push({
         frequencyHz: (k + vertex.offset) * binHz,
@@ -99,6 +91,37 @@ export function shortTimePeaks(signal: Float64Array, sampleRate: number, setting
     frames.push({ timeS: (start + windowLength / 2) / sampleRate, peaks })
   }
   return frames.reverse()
+}
+
+// The per-frame loops are functions of their own, so each is compiled whole (not entered mid-way).
+
+/** `signal[start…)` times the window, into the start of `buffer`. */
+function windowInto(signal: Float64Array, start: number, window: Float64Array, buffer: Float64Array): void {
+  for (let i = 0; i < window.length; i++) buffer[i] = signal[start + i]! * window[i]!
+}
+
+/** |X[k]|² for k in kMin − 1 … kMax + 1 into `power`; returns the largest within kMin … kMax. */
+function powerSpectrum(spectrum: Float64Array, kMin: number, kMax: number, power: Float64Array): number {
+  let maxPower = 0
+  for (let k = kMin - 1; k <= kMax + 1; k++) {
+    const re = spectrum[2 * k]!
+    const im = spectrum[2 * k + 1]!
+    const p = re * re + im * im
+    power[k] = p
+    if (k >= kMin && k <= kMax && p > maxPower) maxPower = p
+  }
+  return maxPower
+}
+
+/** The first bin from `from` on (or kMax + 1) that is a local maximum over both thresholds: the relative one and `margin` times the floor. */
+function nextCandidate(power: Float64Array, floor: Float64Array, from: number, kMax: number, threshold: { relative: number, margin: number }): number {
+  const { relative, margin } = threshold
+  for (let k = from; k <= kMax; k++) {
+    const p = power[k]!
+    if (p <= relative || p <= floor[k]! * margin || p <= power[k - 1]! || p < power[k + 1]!) continue
+    return k
+  }
+  return kMax + 1
 }
 
 /** Work arrays of the transform, kept between calls (an analysis makes a few STFTs of the same sizes; fresh ones cost collections). */
