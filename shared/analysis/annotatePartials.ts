@@ -14,7 +14,10 @@ export interface AnnotateSettings {
 }
 
 /** Partials with the cross-check and uncertainty filled in, and warnings to add. */
-export interface AnnotatedPartials<P extends FftPartial> {
+/** A partial to annotate: an FFT reading, with how far its decay curve bends where it has one (decayBendDbPerS). */
+export type AnnotatedInput = FftPartial & { decayBendDbPerS?: number }
+
+export interface AnnotatedPartials<P extends AnnotatedInput> {
   partials: (P & Pick<MeasuredPartial, 'crossCheckCents' | 'uncertaintyCents' | 'uncertaintyDecayPct'>)[]
   warnings: string[]
 }
@@ -27,6 +30,11 @@ const COVERAGE = 2
 const WARN_FLOOR_CENTS = 0.02
 /** The band reaches at least ±5 ¢ around the FFT reading, so a misread peak is still caught. */
 const SEARCH_RATIO = 2 ** (5 / 1200) - 1
+/**
+ * A decay curve's bend (decayBendDbPerS) is taken as the half-width of a rectangular
+ * distribution of the line's error (a Type B evaluation, GUM §4.3.7): u = bend / √3.
+ */
+const BEND_SHARE = 1 / Math.sqrt(3)
 
 /**
  * Cross-check every FFT partial with the matrix pencil (estimateBand) over a span that ends
@@ -36,11 +44,13 @@ const SEARCH_RATIO = 2 ** (5 / 1200) - 1
  * cell (2 / span) of the strongest component (by energy over the span) in the band's passband.
  * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)² + u_line²)
  * (partialUncertaintyCents), with u_bound the Cramér–Rao bound at the pencil's measured amplitude,
- * decay, span and noise, Δ/√2 the standard deviation of the two readings and u_line 5 % of the line's half-width; uncertaintyDecayPct likewise for the decay.
+ * decay, span and noise, Δ/√2 the standard deviation of the two readings and u_line 5 % of the line's half-width;
+ * uncertaintyDecayPct likewise for the decay, with the bend of the FFT track's decay curve (decayBendDbPerS:
+ * a room's tail rising under the partial) in place of the line's allowance, as bend / √3.
  * The partials where |Δ| exceeds k = 2 times the combined uncertainty of the two readings are named
  * in one warning, those the pencil could not read in another.
  */
-export function annotatePartials<P extends FftPartial>(
+export function annotatePartials<P extends AnnotatedInput>(
   signal: Float64Array,
   sampleRate: number,
   partials: readonly P[],
@@ -87,7 +97,7 @@ export function annotatePartials<P extends FftPartial>(
     const uncertaintyCents = partialUncertaintyCents(boundCents, delta, p.frequencyHz, p.decayDbPerS)
     const decayDelta = centroidDecay - p.decayDbPerS
     const uncertaintyDecayPct = p.decayDbPerS > 0
-      ? (100 * Math.hypot(strongest.decaySdDbPerS, decayDelta / Math.SQRT2)) / p.decayDbPerS
+      ? (100 * Math.hypot(strongest.decaySdDbPerS, decayDelta / Math.SQRT2, BEND_SHARE * (p.decayBendDbPerS ?? 0))) / p.decayDbPerS
       : null
     const combined = boundCents * Math.sqrt(1 + FFT_VARIANCE_FACTOR)
     if (Math.abs(delta) > Math.max(WARN_FLOOR_CENTS, COVERAGE * combined)) {

@@ -30,7 +30,7 @@ export function crossCheckPartials(
   })
   const annotated = annotatePartials(mono, sampleRate, doublets.single, { startIndex: strike.startIndex, endIndex: mono.length })
   const partials: MeasuredPartial[] = [
-    ...annotated.partials.map(({ windowS: _window, modulationFrom: _from, ...p }) => p),
+    ...annotated.partials.map(({ windowS: _window, modulationFrom: _from, decayBendDbPerS: _bend, ...p }) => p),
     ...doublets.pairs,
   ].sort((a, b) => a.frequencyHz - b.frequencyHz)
   return { partials, warnings: annotated.warnings }

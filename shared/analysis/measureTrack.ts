@@ -14,6 +14,7 @@ import { separatePair } from './separatePair'
 import type { FftPartial } from './types'
 import { windowBand } from './windowBand'
 import { DB_PER_NEPER } from './units'
+import { decayBendDbPerS } from './decayBend'
 
 export interface TrackContext {
   onsetIndex: number
@@ -53,6 +54,8 @@ export interface TrackMeasurement extends FftPartial {
   windowS: number
   /** Level of the track's strongest frame, dB re full scale (a lower bound of the onset amplitude). */
   strongestFrameDb: number
+  /** How far the frames' decay curve bends from the line (decayBendDbPerS): a share of the decay's uncertainty. */
+  decayBendDbPerS: number
   /** Where the modulation fields came from: symmetric sidebands, a resolved pair, the envelope alone. */
   modulationFrom: 'sidebands' | 'pair' | 'envelope' | null
 }
@@ -92,6 +95,7 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   const weights = fitPoints.map(weightOf)
   const fit = fitLine(times, fitPoints.map(p => p.amplitudeDb), weights)
   const decayDbPerS = -fit.slope
+  const bendDbPerS = decayBendDbPerS(times, fitPoints.map(p => p.amplitudeDb), weights)
   const frequencies = fitPoints.map(p => p.frequencyHz).sort((a, b) => a - b)
   const coarseHz = frequencies[frequencies.length >> 1]!
   let sumSq = 0
@@ -136,6 +140,7 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
     refineSpanS: length / sampleRate,
     windowS: context.windowLength / sampleRate,
     strongestFrameDb,
+    decayBendDbPerS: bendDbPerS,
   }
   const amplitudeDb = (magnitude: number) => 20 * Math.log10(Math.max((2 * magnitude) / gain, 1e-12))
 
@@ -197,6 +202,8 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
           decayDbPerS: decay,
           t60S: decay > 0 ? 60 / decay : null,
           r2: separated.r2[k]!,
+          // The pair's own decays come from separatePair, not the track's line.
+          decayBendDbPerS: 0,
           beatHz,
         }
       })

@@ -8,7 +8,7 @@ import { separateDoublet } from './separateDoublet'
 import type { FftPartial, MeasuredPartial } from './types'
 
 /** What the doublet check needs of an FFT partial: its STFT window and where its modulation came from. */
-export type DoubletCandidate = FftPartial & Pick<TrackMeasurement, 'windowS' | 'modulationFrom'>
+export type DoubletCandidate = FftPartial & Pick<TrackMeasurement, 'windowS' | 'modulationFrom' | 'decayBendDbPerS'>
 
 export interface DoubletSplitSettings {
   /** First sample after the attack, one past the last usable sample, and the onset (amplitudes refer to it). */
