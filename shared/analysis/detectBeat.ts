@@ -28,13 +28,21 @@ export function detectBeat(timesS: ArrayLike<number>, residualsDb: ArrayLike<num
   let bestHz = 0
   let bestPower = 0
   const powers: number[] = []
+  // Each frame's e^{−2πi·f·(tᵢ − t₀)} stepped from rate to rate by its own e^{−2πi·grid·(tᵢ − t₀)}
+  // (a rotation per frame and rate instead of a cosine and a sine; frames may be missing, so each has its own step).
+  const { re: turnRe, im: turnIm } = phasors(timesS, lowHz)
+  const { re: stepRe, im: stepIm } = phasors(timesS, gridHz)
   for (let f = lowHz; f <= highHz; f += gridHz) {
     let re = 0
     let im = 0
     for (let i = 0; i < n; i++) {
-      const angle = 2 * Math.PI * f * (timesS[i]! - timesS[0]!)
-      re += residualsDb[i]! * Math.cos(angle)
-      im -= residualsDb[i]! * Math.sin(angle)
+      const r = residualsDb[i]!
+      const c = turnRe[i]!
+      const s = turnIm[i]!
+      re += r * c
+      im += r * s
+      turnRe[i] = c * stepRe[i]! - s * stepIm[i]!
+      turnIm[i] = c * stepIm[i]! + s * stepRe[i]!
     }
     const power = re * re + im * im
     powers.push(power)
@@ -55,4 +63,16 @@ export function detectBeat(timesS: ArrayLike<number>, residualsDb: ArrayLike<num
     if (d < 0) bestHz += (0.5 * (a - c) / d) * gridHz
   }
   return bestHz
+}
+
+/** e^{−2πi·rateHz·(tᵢ − t₀)} for every frame. */
+function phasors(timesS: ArrayLike<number>, rateHz: number): { re: Float64Array, im: Float64Array } {
+  const re = new Float64Array(timesS.length)
+  const im = new Float64Array(timesS.length)
+  for (let i = 0; i < timesS.length; i++) {
+    const angle = 2 * Math.PI * rateHz * (timesS[i]! - timesS[0]!)
+    re[i] = Math.cos(angle)
+    im[i] = -Math.sin(angle)
+  }
+  return { re, im }
 }
