@@ -155,7 +155,7 @@ describe('pieces', () => {
     await page.getByRole('heading', { name: 'Pieces', level: 1 }).waitFor()
     await expectText(page.getByTestId('pieces-count'), /of 5 pieces/)
     await page.getByLabel('Stage', { exact: true }).selectOption('approved')
-    await page.waitForURL(url => url.searchParams.get('stage') === 'approved' && url.searchParams.get('set') === fixture.setId)
+    await page.waitForURL(url => url.searchParams.get('stage') === 'approved' && url.searchParams.get('set') === fixture.setId, { timeout: 60_000 })
     await expectText(page.getByTestId('pieces-count'), /of 3 pieces/)
     await page.getByLabel('Latest verdict').selectOption('outside')
     await expectText(page.getByTestId('pieces-count'), /of 1 piece · /)
@@ -168,7 +168,7 @@ describe('pieces', () => {
     await page.getByLabel('Stage', { exact: true }).selectOption('')
     await expectText(page.getByTestId('pieces-count'), /of 5 pieces/)
     await page.getByRole('button', { name: /Latest worst ¢/ }).click()
-    await page.waitForURL(url => url.searchParams.get('sort') === 'cents')
+    await page.waitForURL(url => url.searchParams.get('sort') === 'cents', { timeout: 60_000 })
     await screenshot(page, 'pieces-supervisor')
 
     // F6 (blank) with C6 (approved): the approved one stops the whole change.
@@ -204,5 +204,5 @@ describe('pieces', () => {
     await page.getByLabel('Assigned to').selectOption({ label: 'Corin Hale' })
     await page.locator('dd', { hasText: 'Corin Hale' }).waitFor()
     await page.close()
-  })
+  }, 180_000)
 })
