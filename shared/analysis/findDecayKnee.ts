@@ -1,5 +1,3 @@
-import { fitLine } from './fitLine'
-
 export interface KneeSettings {
   /** Least fall of the first stage, dB (ISO 3382-1 reads a decay over 20 dB, T20). */
   minFirstFallDb: number
@@ -35,12 +33,10 @@ export function findDecayKnee(
   if (levelsDb.length !== n || weights.length !== n) throw new RangeError('findDecayKnee needs one level and one weight per time')
   const m = settings.minPoints
   if (n < 2 * m) return null
-  const residual = (from: number, to: number) => {
-    const fit = fitLine(timesS.slice(from, to), levelsDb.slice(from, to), weights.slice(from, to))
-    let sum = 0
-    for (let i = 0; i < fit.residuals.length; i++) sum += weights[from + i]! * fit.residuals[i]! ** 2
-    return { sum, decayDbPerS: -fit.slope }
-  }
+  // Weighted sums from the start (times and levels taken from the first point's, against
+  // cancellation), so each stage's line is O(1): every split is tried.
+  const sums = prefixSums(timesS, levelsDb, weights)
+  const residual = (from: number, to: number) => lineOver(sums, from, to)
   const whole = residual(0, n).sum
   // The tail's highest level after each split (from the end backwards).
   const tailMax = new Float64Array(n + 1).fill(-Infinity)
@@ -56,4 +52,34 @@ export function findDecayKnee(
     if (!best || sum < best.sum) best = { k, sum }
   }
   return best && best.sum <= settings.maxResidualShare * whole ? best.k : null
+}
+
+/** Running Σw, Σwx, Σwy, Σwx², Σwxy, Σwy² (x, y from the first point's), one more entry than points. */
+function prefixSums(timesS: readonly number[], levelsDb: readonly number[], weights: readonly number[]): Float64Array[] {
+  const n = timesS.length
+  const out = Array.from({ length: 6 }, () => new Float64Array(n + 1))
+  const [w, wx, wy, wxx, wxy, wyy] = out as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array, Float64Array]
+  for (let i = 0; i < n; i++) {
+    const x = timesS[i]! - timesS[0]!
+    const y = levelsDb[i]! - levelsDb[0]!
+    const v = weights[i]!
+    w[i + 1] = w[i]! + v
+    wx[i + 1] = wx[i]! + v * x
+    wy[i + 1] = wy[i]! + v * y
+    wxx[i + 1] = wxx[i]! + v * x * x
+    wxy[i + 1] = wxy[i]! + v * x * y
+    wyy[i + 1] = wyy[i]! + v * y * y
+  }
+  return out
+}
+
+/** The weighted least-squares line over points from…to−1: its weighted squared residual and its decay (−slope). */
+function lineOver(sums: Float64Array[], from: number, to: number): { sum: number, decayDbPerS: number } {
+  const [w, wx, wy, wxx, wxy, wyy] = sums.map(s => s[to]! - s[from]!) as [number, number, number, number, number, number]
+  if (!(w > 0)) return { sum: 0, decayDbPerS: 0 }
+  const sxx = wxx - (wx * wx) / w
+  const sxy = wxy - (wx * wy) / w
+  const syy = wyy - (wy * wy) / w
+  if (!(sxx > 0)) return { sum: Math.max(0, syy), decayDbPerS: 0 }
+  return { sum: Math.max(0, syy - (sxy * sxy) / sxx), decayDbPerS: -sxy / sxx }
 }
