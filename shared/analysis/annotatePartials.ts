@@ -13,10 +13,10 @@ export interface AnnotateSettings {
   maxSpanS?: number
 }
 
-/** Partials with the cross-check and uncertainty filled in, and warnings to add. */
 /** A partial to annotate: an FFT reading, with how far its decay curve bends where it has one (decayBendDbPerS). */
 export type AnnotatedInput = FftPartial & { decayBendDbPerS?: number }
 
+/** Partials with the cross-check and uncertainty filled in, and warnings to add. */
 export interface AnnotatedPartials<P extends AnnotatedInput> {
   partials: (P & Pick<MeasuredPartial, 'crossCheckCents' | 'uncertaintyCents' | 'uncertaintyDecayPct'>)[]
   warnings: string[]
