@@ -93,9 +93,10 @@ export function measureTrack(points: TrackPoint[], signal: Float64Array, sampleR
   if (knee !== null) fitPoints = fitPoints.slice(0, knee)
   const times = fitPoints.map(p => p.timeS)
   const weights = fitPoints.map(weightOf)
-  const fit = fitLine(times, fitPoints.map(p => p.amplitudeDb), weights)
+  const levels = fitPoints.map(p => p.amplitudeDb)
+  const fit = fitLine(times, levels, weights)
   const decayDbPerS = -fit.slope
-  const bendDbPerS = decayBendDbPerS(times, fitPoints.map(p => p.amplitudeDb), weights)
+  const bendDbPerS = decayBendDbPerS(times, levels, weights)
   const frequencies = fitPoints.map(p => p.frequencyHz).sort((a, b) => a - b)
   const coarseHz = frequencies[frequencies.length >> 1]!
   let sumSq = 0
