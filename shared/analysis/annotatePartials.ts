@@ -4,6 +4,7 @@ import { estimateBand } from './estimateBand'
 import { partialUncertaintyCents } from './partialUncertaintyCents'
 import type { FftPartial, MeasuredPartial } from './types'
 import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
+import { partialUncertaintyDecayPct } from './partialUncertaintyDecayPct'
 
 export interface AnnotateSettings {
   /** First sample after the attack, and one past the last sample that may be used. */
@@ -30,11 +31,6 @@ const COVERAGE = 2
 const WARN_FLOOR_CENTS = 0.02
 /** The band reaches at least ±5 ¢ around the FFT reading, so a misread peak is still caught. */
 const SEARCH_RATIO = 2 ** (5 / 1200) - 1
-/**
- * A decay curve's bend (decayBendDbPerS) is taken as the half-width of a rectangular
- * distribution of the line's error (a Type B evaluation, GUM §4.3.7): u = bend / √3.
- */
-const BEND_SHARE = 1 / Math.sqrt(3)
 
 /**
  * Cross-check every FFT partial with the matrix pencil (estimateBand) over a span that ends
@@ -96,9 +92,7 @@ export function annotatePartials<P extends AnnotatedInput>(
     const boundCents = (CENTS_PER_LOG * strongest.frequencySdHz) / p.frequencyHz
     const uncertaintyCents = partialUncertaintyCents(boundCents, delta, p.frequencyHz, p.decayDbPerS)
     const decayDelta = centroidDecay - p.decayDbPerS
-    const uncertaintyDecayPct = p.decayDbPerS > 0
-      ? (100 * Math.hypot(strongest.decaySdDbPerS, decayDelta / Math.SQRT2, BEND_SHARE * (p.decayBendDbPerS ?? 0))) / p.decayDbPerS
-      : null
+    const uncertaintyDecayPct = partialUncertaintyDecayPct(strongest.decaySdDbPerS, decayDelta, p.decayDbPerS, p.decayBendDbPerS)
     const combined = boundCents * Math.sqrt(1 + FFT_VARIANCE_FACTOR)
     if (Math.abs(delta) > Math.max(WARN_FLOOR_CENTS, COVERAGE * combined)) {
       disagreeing.push([p.frequencyHz, `${p.frequencyHz.toFixed(2)} Hz by ${delta.toFixed(2)} ¢ (±${Math.max(WARN_FLOOR_CENTS, COVERAGE * combined).toFixed(2)} ¢)`])

@@ -11,6 +11,7 @@ import type { Baseband, DecimatedBand } from './decimateBand'
 import { windowBand } from './windowBand'
 import { partialUncertaintyCents } from './partialUncertaintyCents'
 import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
+import { partialUncertaintyDecayPct } from './partialUncertaintyDecayPct'
 
 export interface LongPeakSpan {
   /** `signal[startIndex … startIndex + length)` times a Blackman–Harris window of that length (windowBand of `input`). */
@@ -92,6 +93,6 @@ export function measureLongPeak(signal: Float64Array, sampleRate: number, freque
     modulationDepthDb: null,
     crossCheckCents: delta,
     uncertaintyCents: partialUncertaintyCents(boundCents, delta, peak.frequencyHz, decayDbPerS),
-    uncertaintyDecayPct: decayDbPerS > 0 ? (100 * Math.hypot(second.decaySdDbPerS, (second.decayDbPerS - decayDbPerS) / Math.SQRT2)) / decayDbPerS : null,
+    uncertaintyDecayPct: partialUncertaintyDecayPct(second.decaySdDbPerS, second.decayDbPerS - decayDbPerS, decayDbPerS),
   }
 }

@@ -2,6 +2,7 @@ import type { BandComponent } from './estimateBand'
 import { partialUncertaintyCents } from './partialUncertaintyCents'
 import type { MeasuredPartial } from './types'
 import { CENTS_PER_LOG } from './units'
+import { partialUncertaintyDecayPct } from './partialUncertaintyDecayPct'
 
 export interface PencilPartialContext {
   /** Span the component was measured over, in s from the start of the file. */
@@ -42,6 +43,6 @@ export function pencilPartial(component: BandComponent, context: PencilPartialCo
     modulationDepthDb: context.modulationDepthDb ?? null,
     crossCheckCents: null,
     uncertaintyCents: partialUncertaintyCents(boundCents, 0, frequencyHz, decayDbPerS),
-    uncertaintyDecayPct: decayDbPerS > 0 ? (100 * component.decaySdDbPerS) / decayDbPerS : null,
+    uncertaintyDecayPct: partialUncertaintyDecayPct(component.decaySdDbPerS, 0, decayDbPerS),
   }
 }
