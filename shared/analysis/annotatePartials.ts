@@ -5,6 +5,7 @@ import { partialUncertaintyCents } from './partialUncertaintyCents'
 import type { FftPartial, MeasuredPartial } from './types'
 import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
 import { partialUncertaintyDecayPct } from './partialUncertaintyDecayPct'
+import { decayPullDbPerS } from './decayPull'
 
 export interface AnnotateSettings {
   /** First sample after the attack, and one past the last sample that may be used. */
@@ -38,9 +39,10 @@ const SEARCH_RATIO = 2 ** (5 / 1200) - 1
  * a band a few line-widths and resolution cells (and at least ±5 ¢) wide. The partial's second
  * reading is the inverse-variance weighted mean of the pencil components within one resolution
  * cell (2 / span) of the strongest component (by energy over the span) in the band's passband.
- * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)² + u_line²)
+ * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)² + u_line² + u_pull²)
  * (partialUncertaintyCents), with u_bound the Cramér–Rao bound at the pencil's measured amplitude,
- * decay, span and noise, Δ/√2 the standard deviation of the two readings and u_line 5 % of the line's half-width;
+ * decay, span and noise, Δ/√2 the standard deviation of the two readings, u_line 5 % of the line's half-width
+ * and u_pull the decay's pull (decayPull: its two readings' spread beyond their noise, and its curve's bend) as a frequency;
  * uncertaintyDecayPct likewise for the decay, with the bend of the FFT track's decay curve (decayBendDbPerS:
  * a room's tail rising under the partial) in place of the line's allowance, as bend / √3.
  * The partials where |Δ| exceeds k = 2 times the combined uncertainty of the two readings are named
@@ -90,8 +92,10 @@ export function annotatePartials<P extends AnnotatedInput>(
     const centroidDecay = cell.reduce((sum, c) => sum + c.decayDbPerS * weightOf(c), 0) / weights
     const delta = centsBetween(centroidHz, p.frequencyHz)
     const boundCents = (CENTS_PER_LOG * strongest.frequencySdHz) / p.frequencyHz
-    const uncertaintyCents = partialUncertaintyCents(boundCents, delta, p.frequencyHz, p.decayDbPerS)
     const decayDelta = centroidDecay - p.decayDbPerS
+    // The spread's noise: the pencil's bound and the FFT path's, FFT_VARIANCE_FACTOR times its variance.
+    const decayPull = decayPullDbPerS(decayDelta, strongest.decaySdDbPerS * Math.sqrt(1 + FFT_VARIANCE_FACTOR), p.decayBendDbPerS)
+    const uncertaintyCents = partialUncertaintyCents(boundCents, delta, p.frequencyHz, p.decayDbPerS, decayPull)
     const uncertaintyDecayPct = partialUncertaintyDecayPct(strongest.decaySdDbPerS, decayDelta, p.decayDbPerS, p.decayBendDbPerS)
     const combined = boundCents * Math.sqrt(1 + FFT_VARIANCE_FACTOR)
     if (Math.abs(delta) > Math.max(WARN_FLOOR_CENTS, COVERAGE * combined)) {

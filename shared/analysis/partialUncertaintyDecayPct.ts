@@ -2,7 +2,7 @@
  * A decay curve's bend (decayBendDbPerS) is taken as the half-width of a rectangular
  * distribution of the line's error (a Type B evaluation, JCGM 100:2008, GUM §4.3.7): u = bend / √3.
  */
-const BEND_SHARE = 1 / Math.sqrt(3)
+export const BEND_SHARE = 1 / Math.sqrt(3)
 
 /**
  * One standard deviation of a partial's decay, in % of it (null when it does not decay), from

@@ -2,7 +2,7 @@ import { partialUncertaintyCents } from '../../shared/analysis/partialUncertaint
 
 /**
  * A partial's uncertainty without its line's allowance (partialUncertaintyCents): the Cramér–Rao
- * bound and the spread of the two readings alone, cents — what the estimators' own tests are about.
+ * bound, the spread of the two readings and the decay's pull (decayPull), cents — what the estimators' own tests are about.
  */
 export function statisticalCents(p: { uncertaintyCents: number | null, frequencyHz: number, decayDbPerS: number }): number {
   const line = partialUncertaintyCents(0, 0, p.frequencyHz, p.decayDbPerS)

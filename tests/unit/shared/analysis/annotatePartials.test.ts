@@ -92,14 +92,15 @@ describe('annotatePartials', () => {
     expect(result.warnings.filter(w => w.includes('high-resolution'))).toEqual([])
   })
 
-  it('adds a bent decay curve to the decay uncertainty as a rectangular allowance, bend / √3', () => {
+  it('adds a bent decay curve to the decay uncertainty as a rectangular allowance, bend / √3, and carries it into the frequency\'s', () => {
     // source: GUM (JCGM 100:2008) §4.3.7, a quantity known only to lie within ±a has u = a / √3.
     const signal = synthStrike(truth, { sampleRate, durationS: 2, noiseDb: -60, seed: 4 })
     const straight = annotatePartials(signal, sampleRate, [reading(1046.5, 30)], { startIndex: 0, endIndex: signal.length }).partials[0]!
     const bent = annotatePartials(signal, sampleRate, [{ ...reading(1046.5, 30), decayBendDbPerS: 3 }], { startIndex: 0, endIndex: signal.length }).partials[0]!
     // 3 dB/s of a 30 dB/s decay is 10 %, so 10 / √3 % joins the rest in quadrature.
     expect(bent.uncertaintyDecayPct! ** 2).toBeCloseTo(straight.uncertaintyDecayPct! ** 2 + (10 / Math.sqrt(3)) ** 2, 6)
-    expect(bent.uncertaintyCents).toBe(straight.uncertaintyCents)
+    // √3 dB/s is 0.19941 Np/s, so 0.031737 Hz of angular pull: 0.052502 ¢ at 1046.5 Hz (1200·log2(1 + 0.031737/1046.5), arithmetic).
+    expect(bent.uncertaintyCents! ** 2).toBeCloseTo(straight.uncertaintyCents! ** 2 + 0.052502 ** 2, 7)
     expect(bent.crossCheckCents).toBe(straight.crossCheckCents)
   })
 })

@@ -25,8 +25,9 @@ describe('short-lived template partials the tracks miss', () => {
     expect(Math.abs(p.decayDbPerS / third.decayDbPerS - 1)).toBeLessThan(0.05)
     expect(Math.abs(p.amplitudeDb - third.amplitudeDb)).toBeLessThan(0.5)
     // Within 3 standard deviations of its own uncertainty, whose part from the data (the Cramér–Rao
-    // bound, Yao & Pandit 1995, and the spread of the two readings) stays under 0.3 ¢ at this SNR and span.
-    expect(statisticalCents(p)).toBeLessThan(0.3)
+    // bound, Yao & Pandit 1995, the spread of the two readings, and the decay's pull beyond its noise,
+    // decayPull) stays under 0.35 ¢ at this SNR and span (0.13–0.32 ¢ over these seeds).
+    expect(statisticalCents(p)).toBeLessThan(0.35)
     expect(Math.abs(centsBetween(p.frequencyHz, third.frequencyHz))).toBeLessThan(Math.max(3 * p.uncertaintyCents!, 0.03))
   }, 30_000)
 
