@@ -5,6 +5,12 @@ export const MAIN_LOBE_BINS = 8
 
 /** A window's main lobe is this much narrower than the spacing or the lowest partial it must resolve. */
 const LOBE_MARGIN = 1.25
+/**
+ * The longest window's zero padding at the least (twice windowLayout's default): its frames
+ * also judge whether a track is one steady partial (stabilityCents), and a cluster of lines
+ * closer than its main lobe (a looped sample's comb) reads steady only on the finer grid.
+ */
+const LONG_WINDOW_ZERO_PAD = 2
 /** The longest window is this fraction of the span (frames enough for a decay fit). */
 const WINDOWS_PER_SPAN = 3
 
@@ -24,7 +30,7 @@ export interface WindowChoice {
   hop: number
   windowS: number
   hopS: number
-  /** fftSize / windowLength (≥ 2). */
+  /** fftSize / windowLength (≥ 1.25, windowLayout; ≥ 2 for the longest window, chooseWindow). */
   zeroPad: number
 }
 
@@ -62,5 +68,5 @@ export function chooseWindow(needs: WindowNeeds, sampleRate: number): WindowChoi
   const windowS = needs.windowS ?? Math.min(Math.max(needed, needs.spanS / 100), longest)
   const windowLength = Math.max(64, Math.min(Math.round(windowS * sampleRate), Math.floor(needs.spanS * sampleRate)))
   const hop = Math.max(1, Math.round(Math.max(windowLength / 4, (needs.spanS * sampleRate) / 100)))
-  return windowLayout(windowLength, hop, sampleRate)
+  return windowLayout(windowLength, hop, sampleRate, LONG_WINDOW_ZERO_PAD)
 }
