@@ -26,6 +26,8 @@ export interface AnnotatedPartials<P extends AnnotatedInput> {
 
 /** Variance of the FFT path's reading taken as this multiple of the bound (window loss allowance). */
 const FFT_VARIANCE_FACTOR = 2
+/** Standard deviation of the two readings' difference from the noise, in units of the bound (the pencil's and the FFT path's variances added). */
+const SPREAD_NOISE = Math.sqrt(1 + FFT_VARIANCE_FACTOR)
 /** Coverage factor for the disagreement warning (GUM: k = 2, about 95 %). */
 const COVERAGE = 2
 /** Disagreements below twice the output rounding step (0.01 ¢) are never warned about. */
@@ -93,11 +95,11 @@ export function annotatePartials<P extends AnnotatedInput>(
     const delta = centsBetween(centroidHz, p.frequencyHz)
     const boundCents = (CENTS_PER_LOG * strongest.frequencySdHz) / p.frequencyHz
     const decayDelta = centroidDecay - p.decayDbPerS
-    // The spread's noise: the pencil's bound and the FFT path's, FFT_VARIANCE_FACTOR times its variance.
-    const decayPull = decayPullDbPerS(decayDelta, strongest.decaySdDbPerS * Math.sqrt(1 + FFT_VARIANCE_FACTOR), p.decayBendDbPerS)
+    // The decay readings' spread has noise of its own, as the frequencies' does (SPREAD_NOISE).
+    const decayPull = decayPullDbPerS(decayDelta, strongest.decaySdDbPerS * SPREAD_NOISE, p.decayBendDbPerS)
     const uncertaintyCents = partialUncertaintyCents(boundCents, delta, p.frequencyHz, p.decayDbPerS, decayPull)
     const uncertaintyDecayPct = partialUncertaintyDecayPct(strongest.decaySdDbPerS, decayDelta, p.decayDbPerS, p.decayBendDbPerS)
-    const combined = boundCents * Math.sqrt(1 + FFT_VARIANCE_FACTOR)
+    const combined = boundCents * SPREAD_NOISE
     if (Math.abs(delta) > Math.max(WARN_FLOOR_CENTS, COVERAGE * combined)) {
       disagreeing.push([p.frequencyHz, `${p.frequencyHz.toFixed(2)} Hz by ${delta.toFixed(2)} ¢ (±${Math.max(WARN_FLOOR_CENTS, COVERAGE * combined).toFixed(2)} ¢)`])
     }
