@@ -9,7 +9,8 @@ import { BEND_SHARE } from './partialUncertaintyDecayPct'
  * room's tail of the partial, which pulls the frequency as much (partialUncertaintyCents).
  */
 export function decayPullDbPerS(deltaDbPerS: number, deltaNoiseSdDbPerS: number, bendDbPerS = 0): number {
-  if (!(deltaNoiseSdDbPerS >= 0)) throw new RangeError('decayPullDbPerS needs a noise standard deviation of at least 0')
+  // A bound the numerics could not give (NaN) leaves the pull unknown (NaN), as it leaves the bound; a negative one is a bug.
+  if (deltaNoiseSdDbPerS < 0) throw new RangeError('decayPullDbPerS needs a noise standard deviation of at least 0')
   const excess = Math.sqrt(Math.max(0, deltaDbPerS * deltaDbPerS - deltaNoiseSdDbPerS * deltaNoiseSdDbPerS))
   return Math.hypot(excess / Math.SQRT2, BEND_SHARE * bendDbPerS)
 }
