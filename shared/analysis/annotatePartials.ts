@@ -5,7 +5,7 @@ import { partialUncertaintyCents } from './partialUncertaintyCents'
 import type { FftPartial, MeasuredPartial } from './types'
 import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
 import { partialUncertaintyDecayPct } from './partialUncertaintyDecayPct'
-import { decayPullDbPerS } from './decayPull'
+import { decayPullDbPerS, SPREAD_NOISE } from './decayPull'
 
 export interface AnnotateSettings {
   /** First sample after the attack, and one past the last sample that may be used. */
@@ -24,10 +24,6 @@ export interface AnnotatedPartials<P extends AnnotatedInput> {
   warnings: string[]
 }
 
-/** Variance of the FFT path's reading taken as this multiple of the bound (window loss allowance). */
-const FFT_VARIANCE_FACTOR = 2
-/** Standard deviation of the two readings' difference from the noise, in units of the bound (the pencil's and the FFT path's variances added). */
-const SPREAD_NOISE = Math.sqrt(1 + FFT_VARIANCE_FACTOR)
 /** Coverage factor for the disagreement warning (GUM: k = 2, about 95 %). */
 const COVERAGE = 2
 /** Disagreements below twice the output rounding step (0.01 ¢) are never warned about. */

@@ -1,5 +1,13 @@
 import { BEND_SHARE } from './partialUncertaintyDecayPct'
 
+/** Variance of the FFT path's reading taken as this multiple of the pencil's bound (window loss allowance). */
+const FFT_VARIANCE_FACTOR = 2
+/**
+ * Standard deviation of the difference of an FFT-path reading and the pencil's from their noise,
+ * in units of the pencil's bound (the two variances added): for frequencies and decays alike.
+ */
+export const SPREAD_NOISE = Math.sqrt(1 + FFT_VARIANCE_FACTOR)
+
 /**
  * The part of a partial's decay error that its noise does not explain, dB/s (one standard
  * deviation): the spread Δ of its two decay readings beyond what their noise gives it

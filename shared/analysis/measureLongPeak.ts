@@ -12,6 +12,7 @@ import { windowBand } from './windowBand'
 import { partialUncertaintyCents } from './partialUncertaintyCents'
 import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
 import { partialUncertaintyDecayPct } from './partialUncertaintyDecayPct'
+import { decayPullDbPerS, SPREAD_NOISE } from './decayPull'
 
 export interface LongPeakSpan {
   /** `signal[startIndex … startIndex + length)` times a Blackman–Harris window of that length (windowBand of `input`). */
@@ -40,7 +41,9 @@ const FIT_MARGIN_DB = 15
  * those standing 15 dB over the floor (the long spectrum's, +3 dB for half the length);
  * onset amplitude as the magnitude over the window's gain for that decay (decayingWindowGain).
  * The second reading is the matrix pencil's strongest component within a quarter main lobe
- * (estimateBand; Hua & Sarkar 1990), with the usual uncertainties √(bound² + Δ²/2).
+ * (estimateBand; Hua & Sarkar 1990), with the usual uncertainties √(bound² + Δ²/2); the
+ * frequency's also carries the decay readings' spread beyond their noise (decayPull), as every
+ * FFT partial's does (annotatePartials).
  * Null when the pencil finds no component there (nothing confirms the peak) or fewer than
  * two frames stand over the floor.
  */
@@ -77,6 +80,9 @@ export function measureLongPeak(signal: Float64Array, sampleRate: number, freque
   const gain = decayingWindowGain(length, decayDbPerS / DB_PER_NEPER / sampleRate, startIndex - onsetIndex)
   const delta = centsBetween(second.frequencyHz, peak.frequencyHz)
   const boundCents = (CENTS_PER_LOG * second.frequencySdHz) / peak.frequencyHz
+  const decayDelta = second.decayDbPerS - decayDbPerS
+  // The decay readings' spread beyond their noise pulls the frequency too (decayPull), as in annotatePartials.
+  const decayPull = decayPullDbPerS(decayDelta, second.decaySdDbPerS * SPREAD_NOISE)
   return {
     frequencyHz: peak.frequencyHz,
     amplitudeDb: 20 * Math.log10(Math.max((2 * peak.magnitude) / gain, 1e-12)),
@@ -92,7 +98,7 @@ export function measureLongPeak(signal: Float64Array, sampleRate: number, freque
     modulationHz: null,
     modulationDepthDb: null,
     crossCheckCents: delta,
-    uncertaintyCents: partialUncertaintyCents(boundCents, delta, peak.frequencyHz, decayDbPerS),
-    uncertaintyDecayPct: partialUncertaintyDecayPct(second.decaySdDbPerS, second.decayDbPerS - decayDbPerS, decayDbPerS),
+    uncertaintyCents: partialUncertaintyCents(boundCents, delta, peak.frequencyHz, decayDbPerS, decayPull),
+    uncertaintyDecayPct: partialUncertaintyDecayPct(second.decaySdDbPerS, decayDelta, decayDbPerS),
   }
 }

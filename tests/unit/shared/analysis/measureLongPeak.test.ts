@@ -51,6 +51,25 @@ describe('measureLongPeak', () => {
     expect(Math.abs(p.amplitudeDb - fast.amplitudeDb)).toBeLessThan(1)
   }, 30_000)
 
+  it('states a frequency uncertainty that covers a slower line 0.5 Hz away inside the partial\'s own (16 phases of it)', () => {
+    // A room's tail of the partial, 14 dB under it: neither reading resolves it in 1 s, both are pulled,
+    // and their decays disagree. The truth is the partial's own frequency; within three stated
+    // uncertainties every time (GUM k = 3), and where the decays disagree most, the pull widens it.
+    const partial = { frequencyHz: 255.5, amplitudeDb: -20, decayDbPerS: 30, phaseRad: 0 }
+    let widest = { decayPct: 0, uncertaintyCents: 0 }
+    for (let k = 0; k < 16; k++) {
+      const tail = { frequencyHz: 256, amplitudeDb: -34, decayDbPerS: 6, phaseRad: (2 * Math.PI * k) / 16 }
+      const x = synthStrike([partial, tail], { sampleRate, durationS: 2, onsetS: onsetIndex / sampleRate, noiseDb: -85, seed: k + 1 })
+      const p = measure(x, 255.5)!
+      expect(Math.abs(centsBetween(p.frequencyHz, partial.frequencyHz))).toBeLessThan(3 * p.uncertaintyCents!)
+      if (p.uncertaintyDecayPct! > widest.decayPct) widest = { decayPct: p.uncertaintyDecayPct!, uncertaintyCents: p.uncertaintyCents! }
+    }
+    // The widest decay disagreement (over 100 % of the decay) pulls the frequency by more than 1 ¢:
+    // its pull, some 12 dB/s, is 0.3 Hz (u_f = u_α / 2π, partialUncertaintyCents).
+    expect(widest.decayPct).toBeGreaterThan(100)
+    expect(widest.uncertaintyCents).toBeGreaterThan(1)
+  }, 30_000)
+
   it.each([9, 10, 11])('gives no reading where the pencil finds no component (seeded noise alone, seed %i)', (seed) => {
     const x = synthStrike([], { sampleRate, durationS: 2, noiseDb: -60, seed })
     expect(measure(x, 300)).toBeNull()
