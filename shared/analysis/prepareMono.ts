@@ -8,7 +8,12 @@ import { mixToMono } from './mixToMono'
 /** The mono signal an analysis works on, with what was noticed on the way. */
 export interface PreparedMono {
   mono: Float64Array
-  /** Largest absolute sample of the file, full scale = 1. */
+  /**
+   * Largest absolute sample of the mono signal analysed (its DC offset removed), full scale = 1:
+   * no partial of the strike can be louder. An offset is no part of the strike, and counted in it
+   * the bound would move with the audio interface (a xylophone's fundamental, extrapolated back to
+   * the blow at 8.7 dB over the strike's own peak, passed it once the file carried 0.2 of DC).
+   */
   peak: number
   warnings: string[]
 }
@@ -27,9 +32,7 @@ export function prepareMono(channels: readonly ArrayLike<number>[], sampleRate: 
   if (levels.invalidSamples > 0) {
     throw new AnalysisError(415, 'corrupt_audio', 'The recording contains invalid sample values, so the file is damaged.')
   }
-  if (levels.peak < LIMITS.silencePeak) {
-    throw new AnalysisError(422, 'silent', 'The recording is silent; no strike can be heard in it.')
-  }
+  if (levels.peak < LIMITS.silencePeak) throw silence()
   const warnings: string[] = []
   if (levels.clippedSamples > 0) warnings.push(`clipped samples: ${levels.clippedSamples} (the recording hit full scale, so levels read low and clipping adds lines of its own): turn the input gain down and strike again`)
   const { signs, lags } = channels.length > 1 ? alignChannels(channels, sampleRate) : { signs: undefined, lags: undefined }
@@ -42,6 +45,16 @@ export function prepareMono(channels: readonly ArrayLike<number>[], sampleRate: 
   for (let i = 0; i < mono.length; i++) mean += mono[i]!
   mean /= mono.length
   if (Math.abs(mean) > 0.01) warnings.push(`DC offset: ${mean.toFixed(3)} of full scale (removed before analysis, so the reading is unaffected; it takes that much headroom from the strike and usually comes from the audio interface's input: check it, or try another input)`)
-  for (let i = 0; i < mono.length; i++) mono[i]! -= mean
-  return { mono, peak: levels.peak, warnings }
+  let peak = 0
+  for (let i = 0; i < mono.length; i++) {
+    mono[i]! -= mean
+    peak = Math.max(peak, Math.abs(mono[i]!))
+  }
+  // A file that holds nothing but an offset is silent too.
+  if (peak < LIMITS.silencePeak) throw silence()
+  return { mono, peak, warnings }
+}
+
+function silence(): AnalysisError {
+  return new AnalysisError(422, 'silent', 'The recording is silent; no strike can be heard in it.')
 }

@@ -5,11 +5,12 @@ const sampleRate = 8000
 const tone = (offset: number, amplitude = 0.5) => Float64Array.from({ length: 8000 }, (_, i) => offset + amplitude * Math.sin((2 * Math.PI * 440 * i) / sampleRate))
 
 describe('prepareMono', () => {
-  it('mixes to mono and removes the DC offset, saying so when it is large', () => {
+  it('mixes to mono and removes the DC offset, saying so when it is large; the peak is the strike\'s own', () => {
     const { mono, peak, warnings } = prepareMono([tone(0.05), tone(0.05)], sampleRate)
     const mean = mono.reduce((a, b) => a + b, 0) / mono.length
     expect(Math.abs(mean)).toBeLessThan(1e-12)
-    expect(peak).toBeCloseTo(0.55, 3)
+    // The sine's own amplitude, not 0.55: the offset is removed before the peak bounds any partial.
+    expect(peak).toBeCloseTo(0.5, 3)
     expect(warnings).toEqual(['DC offset: 0.050 of full scale (removed before analysis, so the reading is unaffected; it takes that much headroom from the strike and usually comes from the audio interface\'s input: check it, or try another input)'])
     expect(prepareMono([tone(0.001)], sampleRate).warnings).toEqual([])
   })
@@ -30,6 +31,8 @@ describe('prepareMono', () => {
     }
     // source: −120 dBFS = 10^(−120/20) = 1e−6 of full scale, the engine's digital silence
     expect(refusal([new Float64Array(8000).fill(5e-7)])).toMatchObject({ status: 422, code: 'silent' })
+    // Nothing but a DC offset: no strike in it either.
+    expect(refusal([new Float64Array(8000).fill(0.2)])).toMatchObject({ status: 422, code: 'silent' })
     expect(refusal([tone(0).map((v, i) => (i === 100 ? Number.NaN : v))])).toMatchObject({ status: 415, code: 'corrupt_audio' })
     expect(refusal([])).toMatchObject({ status: 422, code: 'no_frames' })
     expect(refusal([tone(0).subarray(0, 800)])).toMatchObject({ status: 422, code: 'too_short' })

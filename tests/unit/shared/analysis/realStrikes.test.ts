@@ -1,5 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest'
-import { centsBetween, type AnalysisResult, type MeasuredPartial } from '../../../../shared/analysis/index'
+import { readFileSync } from 'node:fs'
+import { analyzeSamples, centsBetween, decodeAudio, type AnalysisResult, type MeasuredPartial } from '../../../../shared/analysis/index'
+import { realFixturePath, realFixtures } from '../../../support/realFixtures'
 import { agreement, runRecordings, runSyntheses, type FixtureRun } from '../../../support/fixtureAccuracy'
 import { REALISTIC_CASES, tremoloDepthDb, tunedTruth } from '../../../support/realisticStrikes'
 
@@ -71,6 +73,24 @@ describe('real strikes (recordings)', () => {
       expectPhysical(r.withoutTarget, r.peakDb, r.id)
     }
   })
+
+  it('reads a recording with a DC offset as it reads it without one (xylophone C5 + 0.2 of full scale)', async () => {
+    // An audio interface's offset is no part of the strike: removed before the analysis, it moves no
+    // reading, and no bound (the fundamental, 8.7 dB over the strike's own peak at the blow, was once
+    // read 8.7 dB louder with the offset in the file than without it).
+    const fixture = realFixtures().find(f => f.id === 'xylophone-c5')!
+    const decoded = await decodeAudio(new Uint8Array(readFileSync(realFixturePath(fixture))))
+    const samples = decoded.channelData[0]!
+    const options = { targetHz: fixture.targetHz, ratios: fixture.ratios }
+    const plain = analyzeSamples(Float64Array.from(samples), decoded.sampleRate, options)
+    const offset = analyzeSamples(Float64Array.from(samples, v => v + 0.2), decoded.sampleRate, options)
+    expect(offset.partials.length).toBe(plain.partials.length)
+    offset.partials.forEach((p, i) => {
+      const q = plain.partials[i]!
+      expect(Math.abs(centsBetween(p.frequencyHz, q.frequencyHz)), `${q.frequencyHz} Hz`).toBeLessThan(0.001)
+      expect(Math.abs(p.amplitudeDb - q.amplitudeDb), `${q.frequencyHz} Hz amplitude`).toBeLessThan(0.01)
+    })
+  }, 60_000)
 })
 
 describe('realistic modal synthesis (mallet noise, tremolo, doublets, fast modes, room, hum, noise)', () => {
