@@ -5,6 +5,13 @@ import { inspectLevels } from './inspectLevels'
 import { LIMITS } from './limits'
 import { mixToMono } from './mixToMono'
 
+/**
+ * A strike peaking under this, dB re full scale, was recorded too quietly: a recording is usually
+ * set to peak around −12 dB (common practice), and 40 dB lower the format's and the input's own
+ * noise covers the weaker partials.
+ */
+const QUIET_PEAK_DB = -40
+
 /** The mono signal an analysis works on, with what was noticed on the way. */
 export interface PreparedMono {
   mono: Float64Array
@@ -52,6 +59,8 @@ export function prepareMono(channels: readonly ArrayLike<number>[], sampleRate: 
   }
   // A file that holds nothing but an offset is silent too.
   if (peak < LIMITS.silencePeak) throw silence()
+  const peakDb = 20 * Math.log10(peak)
+  if (peakDb < QUIET_PEAK_DB) warnings.push(`the strike peaks at ${peakDb.toFixed(1)} dB of full scale, so quietly that the recording's own noise covers its weaker partials: turn the input gain up (or bring the microphone closer) until it peaks around −12 dB, and strike again`)
   return { mono, peak, warnings }
 }
 

@@ -15,6 +15,13 @@ describe('prepareMono', () => {
     expect(prepareMono([tone(0.001)], sampleRate).warnings).toEqual([])
   })
 
+  it('asks for more input gain when the strike peaks under −40 dB of full scale', () => {
+    // source: 20·log10(0.005) = −46.0 dB; common practice: a recording peaks around −12 dB.
+    expect(prepareMono([tone(0, 0.005)], sampleRate).warnings).toEqual(['the strike peaks at -46.0 dB of full scale, so quietly that the recording\'s own noise covers its weaker partials: turn the input gain up (or bring the microphone closer) until it peaks around −12 dB, and strike again'])
+    // 20·log10(0.011) = −39.2 dB: quiet, but not that quiet.
+    expect(prepareMono([tone(0, 0.011)], sampleRate).warnings).toEqual([])
+  })
+
   it('counts clipped samples', () => {
     expect(prepareMono([tone(0, 1.2).map(v => Math.max(-1, Math.min(1, v)))], sampleRate).warnings[0]).toMatch(/^clipped samples: \d+ \(the recording hit full scale.*turn the input gain down and strike again$/)
   })
