@@ -39,11 +39,13 @@ export async function decodeAudio(bytes: Uint8Array): Promise<DecodedFile> {
   }
   const warnings: string[] = []
   if (wav) {
-    checkLimits(wav.channels, wav.sampleRate, wav.frames)
-    // PCM, IEEE float and the extensible wrapper of either; compressed WAV is refused.
+    // PCM, IEEE float and the extensible wrapper of either; compressed WAV is refused. First: a
+    // compressed block holds many frames, so its length read as PCM is wrong (IMA ADPCM's 256-byte
+    // blocks made 1.4 s read as 0.003 s, refused as too short).
     if (![1, 3, 0xfffe].includes(wav.formatTag)) {
       throw new AnalysisError(415, 'unsupported_audio', 'This WAV encoding is not supported; use 16-bit or 24-bit PCM or 32-bit float.')
     }
+    checkLimits(wav.channels, wav.sampleRate, wav.frames)
     const warning = truncationWarning(wav.dataBytes, wav.dataBytesPresent, wav.blockAlign, wav.sampleRate)
     if (warning) warnings.push(warning)
     if (wav.dataBytes === 0 && wav.frames > 0) {

@@ -176,6 +176,14 @@ describe('bad input gets a clear refusal', () => {
     const bytes = encodeWav(strike(48000), 48000)
     new DataView(bytes.buffer).setUint16(20, 2, true) // format tag 2: ADPCM
     await expectRefusal(() => analyzeStrike(bytes), 415, 'unsupported_audio')
+    // IMA ADPCM as a recorder writes it (format tag 0x11, 4 bits a sample in 256-byte blocks): its
+    // 0.6 s of data read as one frame a block would be 0.005 s; the encoding, not the length, is what is wrong.
+    const adpcm = encodeWav(strike(48000), 48000)
+    const view = new DataView(adpcm.buffer)
+    view.setUint16(20, 0x11, true)
+    view.setUint16(32, 256, true)
+    view.setUint16(34, 4, true)
+    await expectRefusal(() => analyzeStrike(adpcm), 415, 'unsupported_audio')
   })
 
   it('415: sample values that are not numbers', async () => {
