@@ -1,6 +1,6 @@
 import { checkWorkDeadline } from './workDeadline'
 import { centsBetween } from './centsBetween'
-import { estimateBand } from './estimateBand'
+import { estimateBand, type BandComponent } from './estimateBand'
 import { partialUncertaintyCents } from './partialUncertaintyCents'
 import type { FftPartial, MeasuredPartial } from './types'
 import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
@@ -13,10 +13,21 @@ export interface AnnotateSettings {
   endIndex: number
   /** Longest span one partial is measured over, in s (default 1: ample for a cross-check, and the cost grows with it). */
   maxSpanS?: number
+  /**
+   * The most any component can carry at the span's start (the file's peak with its margin, full
+   * scale = 1; default no limit). A fitted amplitude over it is the fit sharing out the attack
+   * among lines of no physical size (a mallet's 520 dB/s burst beside xylophone C5's fundamental,
+   * fitted 16 dB over the file's peak): it ranks and weighs as if it carried the peak, no more.
+   */
+  maxAmplitude?: number
 }
 
-/** A partial to annotate: an FFT reading, with how far its decay curve bends where it has one (decayBendDbPerS). */
-export type AnnotatedInput = FftPartial & { decayBendDbPerS?: number }
+/**
+ * A partial to annotate: an FFT reading, with how far its decay curve bends where it has one
+ * (decayBendDbPerS) and the length of its track's window (windowS: its first frame began half a
+ * window before its startS; without it, at startS).
+ */
+export type AnnotatedInput = FftPartial & { decayBendDbPerS?: number, windowS?: number }
 
 /** Partials with the cross-check and uncertainty filled in, and warnings to add. */
 export interface AnnotatedPartials<P extends AnnotatedInput> {
@@ -36,7 +47,8 @@ const SEARCH_RATIO = 2 ** (5 / 1200) - 1
  * where the partial has sunk into the noise (its SNR + 10 dB of decay, at most `maxSpanS`), in
  * a band a few line-widths and resolution cells (and at least ±5 ¢) wide. The partial's second
  * reading is the inverse-variance weighted mean of the pencil components within one resolution
- * cell (2 / span) of the strongest component (by energy over the span) in the band's passband.
+ * cell (2 / span) of the strongest component in the band's passband (by energy over the time the FFT
+ * track saw the partial, none counting for more than `maxAmplitude`, the file's peak).
  * crossCheckCents = pencil − FFT in cents; uncertaintyCents = √(u_bound² + (Δ/√2)² + u_line² + u_pull²)
  * (partialUncertaintyCents), with u_bound the Cramér–Rao bound at the pencil's measured amplitude,
  * decay, span and noise, Δ/√2 the standard deviation of the two readings, u_line 5 % of the line's half-width
@@ -56,6 +68,7 @@ export function annotatePartials<P extends AnnotatedInput>(
   const endIndex = Math.min(settings.endIndex, signal.length)
   if (!(startIndex >= 0 && startIndex < endIndex)) throw new RangeError('annotatePartials needs a span inside the signal')
   const maxSpanS = settings.maxSpanS ?? 1
+  const maxAmplitude = settings.maxAmplitude ?? Infinity
   const unchecked: [number, string][] = []
   const disagreeing: [number, string][] = []
   const out = partials.map((p) => {
@@ -70,19 +83,25 @@ export function annotatePartials<P extends AnnotatedInput>(
     if (!(halfWidthHz > 0) || end - startIndex < 64) return none
     // A band the estimator cannot read (digital silence) leaves the partial unchecked.
     const band = estimateBand(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, targetSamples: 32, maxOrder: 4 })
+    // The time the FFT track saw the partial, within the band's span.
+    const spanStartS = startIndex / sampleRate
+    const fromS = Math.min(Math.max(0, p.startS - (p.windowS ?? 0) / 2 - spanStartS), usedS)
+    const toS = Math.max(fromS, Math.min(usedS, p.endS - spanStartS))
     const near = band?.components.filter(c =>
       Number.isFinite(c.frequencyHz) && Number.isFinite(c.decayDbPerS) && Number.isFinite(c.frequencySdHz)
-      && Math.abs(c.frequencyHz - p.frequencyHz) <= band.halfWidthHz && c.snrDb > 6) ?? []
+      && Math.abs(c.frequencyHz - p.frequencyHz) <= band.halfWidthHz && c.snrDb > 6).map(c => physical(c, maxAmplitude)) ?? []
     if (near.length === 0) {
       unchecked.push([p.frequencyHz, `${p.frequencyHz.toFixed(2)} Hz`])
       return none
     }
     // Components closer than a resolution cell (2 / span) to the strongest one (by energy over
-    // the span: a transient of the attack or the room may start louder and be gone in 50 ms) are
+    // the time the FFT track saw the partial: a transient of the attack or the room may start louder
+    // and be gone before the track's first frame) are
     // one FFT peak (a beating pair, an envelope that is not a single exponential): compare the FFT
     // with their inverse-variance weighted mean (a pair of like decays weighs as its powers; a
     // transient, whose frequency the span hardly fixes, barely counts), and carry the strongest one's bound.
-    const strongest = near.reduce((a, b) => (energyOver(b, usedS) > energyOver(a, usedS) ? b : a))
+    const seen = (c: BandComponent) => (toS > fromS ? energyOver(c, fromS, toS) : energyOver(c, 0, usedS))
+    const strongest = near.reduce((a, b) => (seen(b) > seen(a) ? b : a))
     const cell = near.filter(c => Math.abs(c.frequencyHz - strongest.frequencyHz) <= 2 / usedS)
     const weightOf = (c: typeof strongest) => 1 / Math.max(c.frequencySdHz ** 2, Number.MIN_VALUE)
     const weights = cell.reduce((sum, c) => sum + weightOf(c), 0)
@@ -113,11 +132,21 @@ export function annotatePartials<P extends AnnotatedInput>(
   return { partials: out, warnings }
 }
 
-/** Energy of a damped component over `spanS` from its reference sample: a²·(1 − e^{−2αT}) / 2α, α in nepers/s. */
-function energyOver(c: { amplitude: number, decayDbPerS: number }, spanS: number): number {
+/**
+ * A component as it could physically be: its amplitude at most `maxAmplitude`, and its bounds (which
+ * fall as 1 / amplitude, dampedSinusoidCrb) scaled up to match.
+ */
+function physical<C extends BandComponent>(c: C, maxAmplitude: number): C {
+  if (!(c.amplitude > maxAmplitude)) return c
+  const scale = c.amplitude / maxAmplitude
+  return { ...c, amplitude: maxAmplitude, frequencySdHz: c.frequencySdHz * scale, decaySdDbPerS: c.decaySdDbPerS * scale }
+}
+
+/** Energy of a damped component from `fromS` to `toS` after its reference sample: a²·(e^{−2αt₀} − e^{−2αt₁}) / 2α, α in nepers/s. */
+function energyOver(c: { amplitude: number, decayDbPerS: number }, fromS: number, toS: number): number {
   const alpha = c.decayDbPerS / DB_PER_NEPER
-  const x = 2 * alpha * spanS
-  return c.amplitude ** 2 * (Math.abs(x) < 1e-9 ? spanS : -Math.expm1(-x) / (2 * alpha))
+  const x = 2 * alpha * (toS - fromS)
+  return c.amplitude ** 2 * Math.exp(-2 * alpha * fromS) * (Math.abs(x) < 1e-9 ? toS - fromS : -Math.expm1(-x) / (2 * alpha))
 }
 
 /** Partials named in one warning, lowest first; the rest are counted (each partial carries its own fields). */

@@ -28,7 +28,8 @@ export function crossCheckPartials(
   const doublets = splitDoublets(mono, sampleRate, fftPartials, {
     startIndex: strike.startIndex, endIndex: mono.length, onsetIndex: strike.onsetIndex, ...level, glide,
   })
-  const annotated = annotatePartials(mono, sampleRate, doublets.single, { startIndex: strike.startIndex, endIndex: mono.length })
+  const maxAmplitude = 10 ** ((level.peakDb + level.peakMarginDb) / 20)
+  const annotated = annotatePartials(mono, sampleRate, doublets.single, { startIndex: strike.startIndex, endIndex: mono.length, maxAmplitude })
   const partials: MeasuredPartial[] = [
     ...annotated.partials.map(({ windowS: _window, modulationFrom: _from, decayBendDbPerS: _bend, ...p }) => p),
     ...doublets.pairs,

@@ -59,6 +59,29 @@ describe('annotatePartials', () => {
     expect(statisticalCents(out.partials[0]!)).toBeLessThan(0.05)
   })
 
+  describe('a burst 20 dB over the partial, 600 dB/s, 2 Hz beside it (a mallet\'s contact)', () => {
+    // source: the synthesised partial. Over the whole 1 s span the burst carries 2.6 times the
+    // partial's energy (a²/2α: 100·A²/138 against A²(1 − e^{−3.45})/3.45).
+    const partial = { frequencyHz: 523.25, amplitudeDb: -26, decayDbPerS: 15 }
+    const signal = synthStrike([partial, { frequencyHz: 521.25, amplitudeDb: -6, decayDbPerS: 600 }], { sampleRate, durationS: 2, noiseDb: -90, seed: 6 })
+    const read = (p: Partial<FftPartial> & { windowS?: number }, maxAmplitude?: number) =>
+      annotatePartials(signal, sampleRate, [{ ...reading(partial.frequencyHz, partial.decayDbPerS), ...p }], { startIndex: 0, endIndex: signal.length, maxAmplitude }).partials[0]!
+
+    it('is weighed over the time the track saw the partial, from its first frame on, so the partial is read', () => {
+      // The track's first 0.1 s frame began at 0.15 s, when the burst was 90 dB down.
+      const p = read({ startS: 0.2, windowS: 0.1 })
+      expect(Math.abs(p.crossCheckCents!)).toBeLessThan(0.05)
+      // Weighed from the span's start, the burst is taken for the partial.
+      expect(Math.abs(read({ startS: 0 }).crossCheckCents!)).toBeGreaterThan(2)
+    })
+
+    it('counts for no more than the most any component can carry (maxAmplitude), so the partial is read', () => {
+      // 0.1 of full scale is under the burst's 0.5 but over the partial's 0.05: clamped, the burst
+      // carries 0.04 of its energy, 0.10 of the partial's, and its bound grows 5 times.
+      expect(Math.abs(read({ startS: 0 }, 0.1).crossCheckCents!)).toBeLessThan(0.05)
+    })
+  })
+
   it('names every partial of one kind in one warning (a real strike has dozens)', () => {
     const signal = synthStrike(truth, { sampleRate, durationS: 2, noiseDb: -70, seed: 9 })
     const misread = truth.map(t => reading(t.frequencyHz * 2 ** (3 / 1200), t.decayDbPerS))
