@@ -18,8 +18,9 @@ export interface PreparedMono {
   /**
    * Largest absolute sample of the mono signal analysed (its DC offset removed), full scale = 1:
    * no partial of the strike can be louder. An offset is no part of the strike, and counted in it
-   * the bound would move with the audio interface (a xylophone's fundamental, extrapolated back to
-   * the blow at 8.7 dB over the strike's own peak, passed it once the file carried 0.2 of DC).
+   * the bound would move with the audio interface (xylophone C5's fundamental, extrapolated back to
+   * the blow 1.7 dB over the strike's own peak, passed the bound once the file carried 0.2 of DC, and
+   * read 8.7 dB louder than without it).
    */
   peak: number
   warnings: string[]

@@ -90,8 +90,8 @@ describe('real strikes (recordings)', () => {
 
   it('reads a recording with a DC offset as it reads it without one (xylophone C5 + 0.2 of full scale)', async () => {
     // An audio interface's offset is no part of the strike: removed before the analysis, it moves no
-    // reading, and no bound (the fundamental, 8.7 dB over the strike's own peak at the blow, was once
-    // read 8.7 dB louder with the offset in the file than without it).
+    // reading, and no bound (the fundamental, extrapolated to the blow 1.7 dB over the strike's own
+    // peak, was once read 8.7 dB louder with the offset in the file than without it).
     const fixture = realFixtures().find(f => f.id === 'xylophone-c5')!
     const decoded = await decodeAudio(new Uint8Array(readFileSync(realFixturePath(fixture))))
     const samples = decoded.channelData[0]!
