@@ -15,6 +15,34 @@ export const PIECE_PAGE_SIZE = 25
 
 const text = (v: LocationQuery[string] | undefined) => (Array.isArray(v) ? v[0] : v) ?? ''
 
+/** The URL query of some filters: defaults and empty ones left out. */
+export function pieceFilterQuery(filters: PieceFilters): Record<string, string> {
+  const query: Record<string, string> = {}
+  for (const [key, value] of Object.entries(filters)) {
+    if (value !== '' && value !== DEFAULTS[key as keyof PieceFilters]) query[key] = String(value)
+  }
+  return query
+}
+
+/**
+ * Writes filter changes to the URL. A change made before the last one has reached the route
+ * (two selects changed in quick succession) builds on that last one, not on the route, which
+ * would still show the filters before it and so undo it.
+ */
+export function filterWriter(read: () => PieceFilters, write: (query: Record<string, string>) => Promise<unknown>) {
+  let pending: PieceFilters | null = null
+  return (patch: Partial<PieceFilters>) => {
+    const next = { ...(pending ?? read()), ...patch }
+    // Any change but the page itself goes back to page 1.
+    if (!('page' in patch)) next.page = 1
+    pending = next
+    const done = () => {
+      if (pending === next) pending = null
+    }
+    return write(pieceFilterQuery(next)).then(done, done)
+  }
+}
+
 /**
  * The Pieces table's filters live in the URL query, so a filtered page can be
  * shared or bookmarked. Reads come from the route; writes replace the query.
@@ -41,15 +69,7 @@ export function usePieceFilters() {
   })
 
   /** Changes some filters; any change but the page itself goes back to page 1. */
-  function update(patch: Partial<PieceFilters>) {
-    const next = { ...filters.value, ...patch }
-    if (!('page' in patch)) next.page = 1
-    const query: Record<string, string> = {}
-    for (const [key, value] of Object.entries(next)) {
-      if (value !== '' && value !== DEFAULTS[key as keyof PieceFilters]) query[key] = String(value)
-    }
-    router.replace({ query })
-  }
+  const update = filterWriter(() => filters.value, query => router.replace({ query }))
 
   return { filters, apiQuery, update }
 }
