@@ -1,4 +1,5 @@
 import type { LocationQuery } from 'vue-router'
+import { queryWriter } from '../utils/queryWriter'
 
 export interface PieceFilters {
   set: string
@@ -24,23 +25,14 @@ export function pieceFilterQuery(filters: PieceFilters): Record<string, string> 
   return query
 }
 
-/**
- * Writes filter changes to the URL. A change made before the last one has reached the route
- * (two selects changed in quick succession) builds on that last one, not on the route, which
- * would still show the filters before it and so undo it.
- */
+/** Writes filter changes to the URL; any change but the page itself goes back to page 1. */
 export function filterWriter(read: () => PieceFilters, write: (query: Record<string, string>) => Promise<unknown>) {
-  let pending: PieceFilters | null = null
-  return (patch: Partial<PieceFilters>) => {
-    const next = { ...(pending ?? read()), ...patch }
-    // Any change but the page itself goes back to page 1.
-    if (!('page' in patch)) next.page = 1
-    pending = next
-    const done = () => {
-      if (pending === next) pending = null
-    }
-    return write(pieceFilterQuery(next)).then(done, done)
-  }
+  return queryWriter<PieceFilters>({
+    read,
+    toQuery: pieceFilterQuery,
+    write,
+    adjust: (next, patch) => ('page' in patch ? next : { ...next, page: 1 }),
+  })
 }
 
 /**

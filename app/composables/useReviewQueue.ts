@@ -1,10 +1,18 @@
 import type { LocationQuery } from 'vue-router'
 import { REVIEW_GROUPINGS, type ReviewGrouping } from '#shared/schemas/review'
+import { queryWriter } from '../utils/queryWriter'
 
 export interface ReviewFilters { set: string, benchmaker: string, group: ReviewGrouping | '' }
 
 const text = (v: LocationQuery[string] | undefined) => (Array.isArray(v) ? v[0] : v) ?? ''
 const grouping = (v: string): ReviewGrouping | '' => ((REVIEW_GROUPINGS as readonly string[]).includes(v) ? v as ReviewGrouping : '')
+
+/** The URL query of some review filters: empty ones left out. */
+export function reviewFilterQuery(filters: ReviewFilters): Record<string, string> {
+  const query: Record<string, string> = {}
+  for (const [key, value] of Object.entries(filters)) if (value) query[key] = value
+  return query
+}
 
 /**
  * The review queue as the desk shows it: filtered and grouped by what the URL says (so a
@@ -44,12 +52,7 @@ export async function useReviewQueue() {
   })
   const items = computed(() => groups.value.flatMap(g => g.items))
 
-  function update(patch: Partial<ReviewFilters>) {
-    const next = { ...filters.value, ...patch }
-    const query: Record<string, string> = {}
-    for (const [key, value] of Object.entries(next)) if (value) query[key] = value
-    return router.replace({ query })
-  }
+  const update = queryWriter<ReviewFilters>({ read: () => filters.value, toQuery: reviewFilterQuery, write: query => router.replace({ query }) })
   async function refresh() {
     await Promise.all([queueFetch.refresh(), choicesFetch.refresh()])
   }
