@@ -42,11 +42,15 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   if (blocks < 4) throw new RangeError('findStrike needs at least four blocks of signal')
   const levels = new Float64Array(blocks)
   const energies = new Float64Array(blocks)
+  // Digital silence (a block of one repeated value: an editor's zeros before or after the
+  // sound, shifted by the DC removal) holds no noise to read a floor from.
+  const sounding: number[] = []
   for (let b = 0; b < blocks; b++) {
     let e = 0
     for (let i = b * block; i < (b + 1) * block; i++) e += signal[i]! * signal[i]!
     energies[b] = e / block
     levels[b] = 10 * Math.log10(e / block + 1e-30)
+    if (!isSilent(signal, b, block)) sounding.push(levels[b]!)
   }
   let peakBlock = 0
   for (let b = 1; b < blocks; b++) if (levels[b]! > levels[peakBlock]!) peakBlock = b
@@ -55,15 +59,18 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   // never fall to the floor within the recording), else the quietest tenth of the blocks. The
   // lead-in ends where the sound first comes near its loudest: under a deep slow tremolo the
   // loudest block may be a later swell, and what lies before it is the strike, not the floor.
-  let noiseFloorDb = percentile(levels, 0.1)
+  let noiseFloorDb = percentile(sounding.length > 0 ? Float64Array.from(sounding) : levels, 0.1)
   let firstLoud = 0
   while (levels[firstLoud]! < peakDb - LEAD_IN_BELOW_PEAK_DB) firstLoud++
+  // The lead-in starts where the recording does: silence an editor put before it is no part of it.
+  let leadStart = 0
+  while (leadStart < firstLoud && isSilent(signal, leadStart, block)) leadStart++
   // The rise must also clear the lead-in's own level over 20 ms: 1 ms blocks of mains hum or
   // rumble dip 20 dB at its zero crossings, and a floor read from those dips puts the onset in the hum.
   let leadInDb = -Infinity
-  if (firstLoud >= 15) {
-    noiseFloorDb = Math.min(noiseFloorDb, percentile(levels.subarray(0, firstLoud - 5), 0.5))
-    leadInDb = percentile(smoothedLevels(energies.subarray(0, firstLoud - 5), FLOOR_BLOCKS), 0.5)
+  if (firstLoud - leadStart >= 15) {
+    noiseFloorDb = Math.min(noiseFloorDb, percentile(levels.subarray(leadStart, firstLoud - 5), 0.5))
+    leadInDb = percentile(smoothedLevels(energies.subarray(leadStart, firstLoud - 5), FLOOR_BLOCKS), 0.5)
   }
   const riseDb = Math.max(noiseFloorDb + 10, leadInDb + 10, peakDb - 40)
 
@@ -102,6 +109,13 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   const endIndex = Math.min(signal.length, (last + 1) * block)
   const startIndex = Math.min(endIndex, onsetIndex + Math.round(settings.attackSkipS * sampleRate))
   return { onsetIndex, startIndex, endIndex, noiseFloorDb, peakDb, peakIndex: peakBlock * block }
+}
+
+/** Whether block `b` holds one value repeated (digital silence). */
+function isSilent(signal: Float64Array, b: number, block: number): boolean {
+  const first = signal[b * block]!
+  for (let i = b * block + 1; i < (b + 1) * block; i++) if (signal[i] !== first) return false
+  return true
 }
 
 /** Blocks averaged for the lead-in's level: a period of 50 Hz mains. */

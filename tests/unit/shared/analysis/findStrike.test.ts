@@ -40,4 +40,16 @@ describe('findStrike', () => {
     const found = findStrike(hummed, sampleRate, { attackSkipS: 0.005 })
     expect(Math.abs(found.onsetIndex - 0.3 * sampleRate)).toBeLessThanOrEqual(48) // within 1 ms
   })
+
+  it('reads the floor from the recording, not from digital silence an editor put before and after it', () => {
+    // The strike above with 0.2 s of zeros before it and 1 s after: zeros hold no noise, and a floor
+    // read from them (−300 dB) let the strike run on to the last sample before the zeros.
+    const lead = 0.2 * sampleRate
+    const padded = new Float64Array(x.length + lead + sampleRate)
+    padded.set(x, lead)
+    const found = findStrike(padded, sampleRate, { attackSkipS: 0.005 })
+    expect(Math.abs(found.noiseFloorDb - strike.noiseFloorDb)).toBeLessThan(0.5)
+    expect(Math.abs(found.onsetIndex - (strike.onsetIndex + lead))).toBeLessThanOrEqual(48) // within 1 ms
+    expect(Math.abs(found.endIndex - (strike.endIndex + lead)) / sampleRate).toBeLessThan(0.05)
+  })
 })
