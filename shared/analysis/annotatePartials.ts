@@ -6,6 +6,7 @@ import type { FftPartial, MeasuredPartial } from './types'
 import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
 import { partialUncertaintyDecayPct } from './partialUncertaintyDecayPct'
 import { decayPullDbPerS, SPREAD_NOISE } from './decayPull'
+import { componentEnergy } from './componentEnergy'
 
 export interface AnnotateSettings {
   /** First sample after the attack, and one past the last sample that may be used. */
@@ -100,7 +101,7 @@ export function annotatePartials<P extends AnnotatedInput>(
     // one FFT peak (a beating pair, an envelope that is not a single exponential): compare the FFT
     // with their inverse-variance weighted mean (a pair of like decays weighs as its powers; a
     // transient, whose frequency the span hardly fixes, barely counts), and carry the strongest one's bound.
-    const seen = (c: BandComponent) => (toS > fromS ? energyOver(c, fromS, toS) : energyOver(c, 0, usedS))
+    const seen = (c: BandComponent) => (toS > fromS ? componentEnergy(c, fromS, toS) : componentEnergy(c, 0, usedS))
     const strongest = near.reduce((a, b) => (seen(b) > seen(a) ? b : a))
     const cell = near.filter(c => Math.abs(c.frequencyHz - strongest.frequencyHz) <= 2 / usedS)
     const weightOf = (c: typeof strongest) => 1 / Math.max(c.frequencySdHz ** 2, Number.MIN_VALUE)
@@ -140,13 +141,6 @@ function physical<C extends BandComponent>(c: C, maxAmplitude: number): C {
   if (!(c.amplitude > maxAmplitude)) return c
   const scale = c.amplitude / maxAmplitude
   return { ...c, amplitude: maxAmplitude, frequencySdHz: c.frequencySdHz * scale, decaySdDbPerS: c.decaySdDbPerS * scale }
-}
-
-/** Energy of a damped component from `fromS` to `toS` after its reference sample: a²·(e^{−2αt₀} − e^{−2αt₁}) / 2α, α in nepers/s. */
-function energyOver(c: { amplitude: number, decayDbPerS: number }, fromS: number, toS: number): number {
-  const alpha = c.decayDbPerS / DB_PER_NEPER
-  const x = 2 * alpha * (toS - fromS)
-  return c.amplitude ** 2 * Math.exp(-2 * alpha * fromS) * (Math.abs(x) < 1e-9 ? toS - fromS : -Math.expm1(-x) / (2 * alpha))
 }
 
 /** Partials named in one warning, lowest first; the rest are counted (each partial carries its own fields). */

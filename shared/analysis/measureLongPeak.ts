@@ -13,6 +13,7 @@ import { partialUncertaintyCents } from './partialUncertaintyCents'
 import { CENTS_PER_LOG, DB_PER_NEPER } from './units'
 import { partialUncertaintyDecayPct } from './partialUncertaintyDecayPct'
 import { decayPullDbPerS, SPREAD_NOISE } from './decayPull'
+import { componentEnergy } from './componentEnergy'
 
 export interface LongPeakSpan {
   /** `signal[startIndex … startIndex + length)` times a Blackman–Harris window of that length (windowBand of `input`). */
@@ -40,7 +41,8 @@ const FIT_MARGIN_DB = 15
  * the long one (a decaying sinusoid's level falls linearly in dB with the window's centre),
  * those standing 15 dB over the floor (the long spectrum's, +3 dB for half the length);
  * onset amplitude as the magnitude over the window's gain for that decay (decayingWindowGain).
- * The second reading is the matrix pencil's strongest component within a quarter main lobe
+ * The second reading is the matrix pencil's component within a quarter main lobe that carries most
+ * energy over the window
  * (estimateBand; Hua & Sarkar 1990), with the usual uncertainties √(bound² + Δ²/2); the
  * frequency's also carries the decay readings' spread beyond their noise (decayPull), as every
  * FFT partial's does (annotatePartials).
@@ -58,7 +60,11 @@ export function measureLongPeak(signal: Float64Array, sampleRate: number, freque
   const near = band?.components.filter(c => Math.abs(c.frequencyHz - peak.frequencyHz) <= reachHz
     && Number.isFinite(c.decayDbPerS) && Number.isFinite(c.frequencySdHz)) ?? []
   if (near.length === 0) return null
-  const second = near.reduce((a, b) => (b.amplitude > a.amplitude ? b : a))
+  // Ranked by what each carries over the long window, not at the onset (a burst of the attack
+  // extrapolates loud there), as annotatePartials ranks a track's components.
+  const fromS = (startIndex - onsetIndex) / sampleRate
+  const carried = (c: (typeof near)[number]) => componentEnergy(c, fromS, fromS + length / sampleRate)
+  const second = near.reduce((a, b) => (carried(b) > carried(a) ? b : a))
 
   const half = Math.floor(length / 2)
   // |X| of a sinusoid of amplitude A is A·Σw/2, Σw = a₀·N for the periodic window; noise gains 3 dB on a sinusoid in half the length.
