@@ -49,8 +49,7 @@ function measureChannels(
 ): AnalysisResult {
   const opts = validateAnalyzeOptions(options)
   const prepared = prepareMono(channels, sampleRate)
-  const { mono } = prepared
-  const peakDb = 20 * Math.log10(prepared.peak)
+  const { mono, peakDb } = prepared
   const attackSkipS = opts.attackSkipS ?? S.attackSkipS
   const located = locateStrike(mono, sampleRate, { attackSkipS, minProminenceDb: S.minProminenceDb, minSpanS: S.minSpanS })
   const { strike } = located

@@ -16,13 +16,13 @@ const QUIET_PEAK_DB = -40
 export interface PreparedMono {
   mono: Float64Array
   /**
-   * Largest absolute sample of the mono signal analysed (its DC offset removed), full scale = 1:
-   * no partial of the strike can be louder. An offset is no part of the strike, and counted in it
+   * Level of the largest absolute sample of the mono signal analysed (its DC offset removed), dB
+   * re full scale: no partial of the strike can be louder. An offset is no part of the strike, and counted in it
    * the bound would move with the audio interface (xylophone C5's fundamental, extrapolated back to
    * the blow 1.7 dB over the strike's own peak, passed the bound once the file carried 0.2 of DC, and
    * read 8.7 dB louder than without it).
    */
-  peak: number
+  peakDb: number
   warnings: string[]
 }
 
@@ -62,7 +62,7 @@ export function prepareMono(channels: readonly ArrayLike<number>[], sampleRate: 
   if (peak < LIMITS.silencePeak) throw silence()
   const peakDb = 20 * Math.log10(peak)
   if (peakDb < QUIET_PEAK_DB) warnings.push(`the strike peaks at ${peakDb.toFixed(1)} dB of full scale, so quietly that the recording's own noise covers its weaker partials: turn the input gain up (or bring the microphone closer) until it peaks around −12 dB, and strike again`)
-  return { mono, peak, warnings }
+  return { mono, peakDb, warnings }
 }
 
 function silence(): AnalysisError {

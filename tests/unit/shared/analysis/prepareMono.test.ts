@@ -6,11 +6,11 @@ const tone = (offset: number, amplitude = 0.5) => Float64Array.from({ length: 80
 
 describe('prepareMono', () => {
   it('mixes to mono and removes the DC offset, saying so when it is large; the peak is the strike\'s own', () => {
-    const { mono, peak, warnings } = prepareMono([tone(0.05), tone(0.05)], sampleRate)
+    const { mono, peakDb, warnings } = prepareMono([tone(0.05), tone(0.05)], sampleRate)
     const mean = mono.reduce((a, b) => a + b, 0) / mono.length
     expect(Math.abs(mean)).toBeLessThan(1e-12)
-    // The sine's own amplitude, not 0.55: the offset is removed before the peak bounds any partial.
-    expect(peak).toBeCloseTo(0.5, 3)
+    // The sine's own amplitude, 0.5 (−6.02 dB), not 0.55: the offset is removed before the peak bounds any partial.
+    expect(peakDb).toBeCloseTo(20 * Math.log10(0.5), 2)
     expect(warnings).toEqual(['DC offset: 0.050 of full scale (removed before analysis, so the reading is unaffected; it takes that much headroom from the strike and usually comes from the audio interface\'s input: check it, or try another input)'])
     expect(prepareMono([tone(0.001)], sampleRate).warnings).toEqual([])
   })
