@@ -4,11 +4,13 @@
 // the fixtures, into the git-ignored cache .data/sweep/. Each is read independently
 // (tests/support/referencePartials.ts: the three lowest of the five strongest) and run
 // through the engine with the family's target and template and without a target.
-//   npx tsx scripts/sweep-real-strikes.ts [--only FAMILY] [--cli N] [--out FILE.json]
+//   npx tsx scripts/sweep-real-strikes.ts [--only FAMILY] [--cli N] [--rate HZ] [--out FILE.json]
+// --rate converts each strike to that sample rate with sox (rate -v) first: a recording at
+// 44.1 or 96 kHz must read as the same strike at 48 kHz does.
 // Prints found/missed per family, frequency agreement, every miss and every partial
 // whose amplitude or decay cannot be (above the file's peak, growing, not finite).
 import { execFileSync } from 'node:child_process'
-import { readFileSync, writeFileSync } from 'node:fs'
+import { existsSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { AnalysisError, analyzeStrike, centsBetween, type AnalysisResult, type MeasuredPartial } from '../shared/analysis/index'
@@ -26,6 +28,7 @@ const flag = (name: string) => (args.includes(name) ? args[args.indexOf(name) + 
 const only = flag('--only')
 const cliCount = Number(flag('--cli') ?? 0)
 const outPath = flag('--out')
+const rate = flag('--rate')
 
 interface SweepRun {
   id: string
@@ -65,7 +68,9 @@ function impossible(p: MeasuredPartial, peakDb: number, sampleRate: number): str
 }
 
 async function runCase(c: SweepCase): Promise<SweepRun> {
-  const file = realFixturePath(c, CACHE)
+  const made = realFixturePath(c, CACHE)
+  const file = rate ? made.replace(/\.wav$/, `.${rate}.wav`) : made
+  if (rate && !existsSync(file)) execFileSync('sox', [made, file, 'rate', '-v', rate])
   const bytes = new Uint8Array(readFileSync(file))
   const { samples, sampleRate } = readPcm16Wav(bytes)
   const reading = referencePartials(samples, sampleRate)
