@@ -1,3 +1,4 @@
+import { tonalityDb } from './tonalityDb'
 import { energyBlockLength } from './units'
 
 /** Where the strike is in a recording, in samples. */
@@ -106,9 +107,50 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
     const from = Math.max(peakBlock, last - smooth + 1)
     if ((prefix[last + 1]! - prefix[from]!) / (last - from + 1) > endPower) break
   }
+  // Without a lead-in the floor is the quietest tenth of the recording: the piece itself when the
+  // take stops while it still rings, and the strike would end where it began. Such a recording's
+  // level still falls over its last quarter, where a floor holds level: the strike runs to its end.
+  if (firstLoud - leadStart < 15 && stillRinging(signal, energies, block, peakBlock, { noiseFloorDb, peakDb })) last = blocks - 1
   const endIndex = Math.min(signal.length, (last + 1) * block)
   const startIndex = Math.min(endIndex, onsetIndex + Math.round(settings.attackSkipS * sampleRate))
   return { onsetIndex, startIndex, endIndex, noiseFloorDb, peakDb, peakIndex: peakBlock * block }
+}
+
+/** A level still falling between the halves of the last quarter after the peak, dB (a floor's holds within a fraction of this). */
+const STILL_FALLING_DB = 0.5
+
+/** A take whose last 20 ms are within this of its loudest block stopped while the piece still sounded, dB. */
+const STILL_LOUD_WITHIN_DB = 50
+
+/** A decay that falls this many times faster at the end than before is a fade-out or a synthesiser's release, not a piece ringing. */
+const MAX_STEEPENING = 2
+
+/** A ringing tail's strongest line stands this far over its median bin, dB (noise's about 10 to 20: tonalityDb). */
+const RINGING_TONALITY_DB = 30
+
+/**
+ * Whether the recording ends while its sound still rings: after the loudest block (and before any
+ * digital silence at the end), its last 20 ms are at the floor's level (within 3 dB: not faded out
+ * under it) and within 50 dB of the loudest block (a sound that has died away that far has met its
+ * floor, whatever lingers), the second half of its last quarter is at least 0.5 dB under the first
+ * (a floor holds level) and falls no more than twice as fast as the half-quarter before (a fade-out
+ * steepens), and that end holds lines, not noise (tonalityDb: a background faded out falls too).
+ */
+function stillRinging(signal: Float64Array, energies: Float64Array, block: number, peakBlock: number, levels: { noiseFloorDb: number, peakDb: number }): boolean {
+  const { noiseFloorDb, peakDb } = levels
+  let end = energies.length
+  while (end > peakBlock + 1 && energies[end - 1] === 0) end--
+  const quarter = Math.floor((end - peakBlock - 1) / 4)
+  if (quarter < 20) return false
+  const levelDb = (from: number, count: number) => 10 * Math.log10(energies.subarray(from, from + count).reduce((a, b) => a + b, 0) / count + 1e-30)
+  const finalDb = levelDb(end - 20, 20)
+  if (finalDb < noiseFloorDb - 3 || finalDb < peakDb - STILL_LOUD_WITHIN_DB) return false
+  const half = quarter >> 1
+  const fallDb = levelDb(end - 2 * half, half) - levelDb(end - half, half)
+  const fallBeforeDb = levelDb(end - 4 * half, half) - levelDb(end - 3 * half, half)
+  if (fallDb <= STILL_FALLING_DB || fallDb > MAX_STEEPENING * Math.max(fallBeforeDb, STILL_FALLING_DB)) return false
+  const length = Math.min(8192, 2 ** Math.floor(Math.log2(quarter * block)))
+  return tonalityDb(signal.subarray(end * block - length, end * block)) > RINGING_TONALITY_DB
 }
 
 /** Whether block `b` holds one value repeated (digital silence). */

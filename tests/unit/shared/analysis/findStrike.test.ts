@@ -52,4 +52,22 @@ describe('findStrike', () => {
     expect(Math.abs(found.onsetIndex - (strike.onsetIndex + lead))).toBeLessThanOrEqual(48) // within 1 ms
     expect(Math.abs(found.endIndex - (strike.endIndex + lead)) / sampleRate).toBeLessThan(0.05)
   })
+
+  it('runs a take stopped while the piece still rings, with no lead-in, to its end', () => {
+    // Struck at the first sample and cut 0.6 s on, at −25 dB: the quietest tenth is the piece itself,
+    // 6 dB over which the strike once ended at 0.24 s, with half the take unread.
+    const cut = synthStrike([{ frequencyHz: 1046.5, amplitudeDb: -10, decayDbPerS: 20 }], { sampleRate, durationS: 0.6, noiseDb: -90, seed: 6 })
+    const found = findStrike(cut, sampleRate, { attackSkipS: 0.005 })
+    expect(found.endIndex).toBeGreaterThan(cut.length - 48)
+  })
+
+  it('ends where the sound meets the floor when an editor faded the background out after it', () => {
+    // 60 dB/s from −10 dB into noise of −70 dB by about 0.9 s; the last 1.5 s faded by 10 dB. The fade falls,
+    // as a ringing piece does, but what falls is noise, not a line.
+    const faded = synthStrike([{ frequencyHz: 1046.5, amplitudeDb: -10, decayDbPerS: 60 }], { sampleRate, durationS: 3, noiseDb: -70, seed: 7 })
+    const fade = 1.5 * sampleRate
+    for (let i = 0; i < fade; i++) faded[faded.length - fade + i]! *= 10 ** ((-10 * i) / fade / 20)
+    const found = findStrike(faded, sampleRate, { attackSkipS: 0.005 })
+    expect(found.endIndex / sampleRate).toBeLessThan(2)
+  })
 })

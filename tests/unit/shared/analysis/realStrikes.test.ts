@@ -131,6 +131,21 @@ describe('real strikes (recordings)', () => {
       }
     }
   }, 120_000)
+
+  it('reads a take stopped while the piece still rings: celesta C6 cut 0.6 and 0.35 s after the blow', async () => {
+    // Struck at its first sample, its quietest tenth is the piece itself: the strike once ended 0.02 s
+    // in, and the fundamental read 8.1 ¢ from the manual reading at 0.35 s.
+    const fixture = realFixtures().find(f => f.id === 'celesta-c6')!
+    const decoded = await decodeAudio(new Uint8Array(readFileSync(realFixturePath(fixture))))
+    const [reference] = fixture.reference
+    for (const cutS of [0.6, 0.35]) {
+      const cut = Float64Array.from(decoded.channelData[0]!.subarray(0, Math.round(cutS * decoded.sampleRate)))
+      const result = analyzeSamples(cut, decoded.sampleRate, { targetHz: fixture.targetHz, ratios: fixture.ratios })
+      expect(result.analysisEndS, `${cutS} s`).toBeGreaterThan(cutS - 0.01)
+      // source: the manual reading (tests/fixtures/real/README.md)
+      expect(Math.abs(centsBetween(nearest(result.partials, reference!.frequencyHz).frequencyHz, reference!.frequencyHz)), `${cutS} s`).toBeLessThan(1)
+    }
+  }, 60_000)
 })
 
 describe('realistic modal synthesis (mallet noise, tremolo, doublets, fast modes, room, hum, noise)', () => {
