@@ -17,7 +17,9 @@ export function smearedWithin(decayDbPerS: number, windowS: number, maxDropPerWi
 
 /**
  * Merge the partials of the bands, slowest band first. A partial of a faster band that no
- * slower band holds is added (a short-lived partial the long window missed). Where both
+ * slower band holds is added (a short-lived partial the long window missed), however near
+ * another reading of its own band (a partial tracked twice, a fast first stage and then itself:
+ * dropDuplicates keeps the longer track). Where both
  * hold it (within half the faster window's main lobe), the faster band's reading replaces
  * the slower one when the partial falls more than `maxDropPerWindowDb` within one slower
  * window (such a window smears the decay and so misreads decay and onset amplitude) and
@@ -58,8 +60,14 @@ export function mergeBands(bands: readonly TrackMeasurement[][], maxDropPerWindo
         merged.push(fast)
         continue
       }
+      // Another reading of this band lies within reach: the same partial tracked twice (a fast
+      // first stage, then the partial itself) or another; dropDuplicates keeps the longer track.
+      if (nearest >= slowCount) {
+        merged.push(fast)
+        continue
+      }
       const slow = merged[nearest]!
-      if (nearest >= slowCount || holder(nearest) !== fast || !decayShownBySpan(fast)) continue
+      if (holder(nearest) !== fast || !decayShownBySpan(fast)) continue
       if (misreadBy(nearest, fast)) {
         merged[nearest] = fast
         for (let i = 0; i < slowCount; i++) if (i !== nearest && misreadBy(i, fast)) ghosts.add(i)

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest'
+import { dropDuplicates } from '../../../../shared/analysis/dropDuplicates'
 import { mergeBands } from '../../../../shared/analysis/mergeBands'
 import { trackReading } from '../../../support/partials'
 
@@ -20,6 +21,18 @@ describe('mergeBands', () => {
     const fast = (decayDbPerS: number) => [trackReading({ frequencyHz: 700.3, windowS: 0.05, decayDbPerS })]
     expect(mergeBands([slowWindow(25), fast(25)], maxDropPerWindowDb)[0]!.windowS).toBe(0.2)
     expect(mergeBands([slowWindow(35), fast(35)], maxDropPerWindowDb)[0]!.windowS).toBe(0.05)
+  })
+
+  it('keeps every reading of a faster band no slower one holds, however near another of its own: the longer track wins later', () => {
+    // A freepats xylophone C5 with noise at −65 dB: the 30 ms band read its ×3 twice, a fast first stage
+    // at 1576.8 Hz (6 frames) and the partial itself at 1584.6 Hz (24 frames, the manual reading 1585.1);
+    // the first one in took the other's place, and the ×3 read 8.5 ¢ off. dropDuplicates keeps the longer track.
+    const slow = [trackReading({ frequencyHz: 524, windowS: 0.12 })]
+    const early = trackReading({ frequencyHz: 1576.78, windowS: 0.0303, decayDbPerS: 280, frames: 6, refineSpanS: 0.068, amplitudeDb: -32 })
+    const partial = trackReading({ frequencyHz: 1584.61, windowS: 0.0303, decayDbPerS: 157, frames: 24, refineSpanS: 0.258, amplitudeDb: -39.5 })
+    const merged = mergeBands([slow, [early, partial]], maxDropPerWindowDb)
+    expect(merged.map(p => p.frequencyHz)).toEqual([524, 1576.78, 1584.61])
+    expect(dropDuplicates(merged).map(p => p.frequencyHz)).toEqual([524, 1584.61])
   })
 
   it('matches a fast reading to the nearest slow partial and merges bands in turn', () => {
