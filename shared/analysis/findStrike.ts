@@ -29,13 +29,14 @@ const LEAD_IN_BELOW_PEAK_DB = 20
 
 /**
  * Find the strike in a mono recording from its short-time energy envelope (1 ms
- * blocks): the noise floor is the median level of the lead-in before the first block within
- * 20 dB of the loudest
- * (or the 10th percentile of all blocks when that is lower or there is no lead-in), the onset is
+ * blocks; digital silence, a block of one repeated value, is no part of the recording's floor):
+ * the noise floor is the median level of the lead-in before the first block within 20 dB of the
+ * loudest (or the 10th percentile of all blocks when that is lower or there is no lead-in), the onset is
  * the first sample of the rise to the loudest block (the first sample over
  * max(4 × noise RMS, peak − 30 dB) from the block where the envelope left the floor and the
  * lead-in's level over 20 ms by 10 dB),
- * and the end is the last point where the smoothed envelope stands 6 dB over the floor.
+ * and the end is the last point where the smoothed envelope stands 6 dB over the floor — or, with
+ * no lead-in, the recording's last sound when it stops while the piece still rings (stillRingingTo).
  */
 export function findStrike(signal: Float64Array, sampleRate: number, settings: StrikeSettings): StrikeSpan {
   const block = energyBlockLength(sampleRate, settings.blockS)
@@ -110,7 +111,8 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   // Without a lead-in the floor is the quietest tenth of the recording: the piece itself when the
   // take stops while it still rings, and the strike would end where it began. Such a recording's
   // level still falls over its last quarter, where a floor holds level: the strike runs to its end.
-  if (firstLoud - leadStart < 15 && stillRinging(signal, energies, block, peakBlock, { noiseFloorDb, peakDb })) last = blocks - 1
+  const ringsTo = firstLoud - leadStart < 15 ? stillRingingTo(signal, energies, block, peakBlock, { noiseFloorDb, peakDb }) : null
+  if (ringsTo !== null) last = ringsTo - 1
   const endIndex = Math.min(signal.length, (last + 1) * block)
   const startIndex = Math.min(endIndex, onsetIndex + Math.round(settings.attackSkipS * sampleRate))
   return { onsetIndex, startIndex, endIndex, noiseFloorDb, peakDb, peakIndex: peakBlock * block }
@@ -129,28 +131,28 @@ const MAX_STEEPENING = 2
 const RINGING_TONALITY_DB = 30
 
 /**
- * Whether the recording ends while its sound still rings: after the loudest block (and before any
- * digital silence at the end), its last 20 ms are at the floor's level (within 3 dB: not faded out
+ * Where the recording's sound ends, in blocks, when it ends while the sound still rings (else null):
+ * after the loudest block and before any digital silence at the end, its last 20 ms are at the floor's level (within 3 dB: not faded out
  * under it) and within 50 dB of the loudest block (a sound that has died away that far has met its
  * floor, whatever lingers), the second half of its last quarter is at least 0.5 dB under the first
  * (a floor holds level) and falls no more than twice as fast as the half-quarter before (a fade-out
  * steepens), and that end holds lines, not noise (tonalityDb: a background faded out falls too).
  */
-function stillRinging(signal: Float64Array, energies: Float64Array, block: number, peakBlock: number, levels: { noiseFloorDb: number, peakDb: number }): boolean {
+function stillRingingTo(signal: Float64Array, energies: Float64Array, block: number, peakBlock: number, levels: { noiseFloorDb: number, peakDb: number }): number | null {
   const { noiseFloorDb, peakDb } = levels
   let end = energies.length
-  while (end > peakBlock + 1 && energies[end - 1] === 0) end--
+  while (end > peakBlock + 1 && isSilent(signal, end - 1, block)) end--
   const quarter = Math.floor((end - peakBlock - 1) / 4)
-  if (quarter < 20) return false
+  if (quarter < 20) return null
   const levelDb = (from: number, count: number) => 10 * Math.log10(energies.subarray(from, from + count).reduce((a, b) => a + b, 0) / count + 1e-30)
   const finalDb = levelDb(end - 20, 20)
-  if (finalDb < noiseFloorDb - 3 || finalDb < peakDb - STILL_LOUD_WITHIN_DB) return false
+  if (finalDb < noiseFloorDb - 3 || finalDb < peakDb - STILL_LOUD_WITHIN_DB) return null
   const half = quarter >> 1
   const fallDb = levelDb(end - 2 * half, half) - levelDb(end - half, half)
   const fallBeforeDb = levelDb(end - 4 * half, half) - levelDb(end - 3 * half, half)
-  if (fallDb <= STILL_FALLING_DB || fallDb > MAX_STEEPENING * Math.max(fallBeforeDb, STILL_FALLING_DB)) return false
+  if (fallDb <= STILL_FALLING_DB || fallDb > MAX_STEEPENING * Math.max(fallBeforeDb, STILL_FALLING_DB)) return null
   const length = Math.min(8192, 2 ** Math.floor(Math.log2(quarter * block)))
-  return tonalityDb(signal.subarray(end * block - length, end * block)) > RINGING_TONALITY_DB
+  return tonalityDb(signal.subarray(end * block - length, end * block)) > RINGING_TONALITY_DB ? end : null
 }
 
 /** Whether block `b` holds one value repeated (digital silence). */
