@@ -46,13 +46,15 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   const energies = new Float64Array(blocks)
   // Digital silence (a block of one repeated value: an editor's zeros before or after the
   // sound, shifted by the DC removal) holds no noise to read a floor from.
+  const silent = new Uint8Array(blocks)
   const sounding: number[] = []
   for (let b = 0; b < blocks; b++) {
     let e = 0
     for (let i = b * block; i < (b + 1) * block; i++) e += signal[i]! * signal[i]!
     energies[b] = e / block
     levels[b] = 10 * Math.log10(e / block + 1e-30)
-    if (!isSilent(signal, b, block)) sounding.push(levels[b]!)
+    silent[b] = isSilent(signal, b, block) ? 1 : 0
+    if (!silent[b]) sounding.push(levels[b]!)
   }
   let peakBlock = 0
   for (let b = 1; b < blocks; b++) if (levels[b]! > levels[peakBlock]!) peakBlock = b
@@ -66,7 +68,7 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   while (levels[firstLoud]! < peakDb - LEAD_IN_BELOW_PEAK_DB) firstLoud++
   // The lead-in starts where the recording does: silence an editor put before it is no part of it.
   let leadStart = 0
-  while (leadStart < firstLoud && isSilent(signal, leadStart, block)) leadStart++
+  while (leadStart < firstLoud && silent[leadStart]) leadStart++
   // The rise must also clear the lead-in's own level over 20 ms: 1 ms blocks of mains hum or
   // rumble dip 20 dB at its zero crossings, and a floor read from those dips puts the onset in the hum.
   let leadInDb = -Infinity
@@ -111,7 +113,7 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   // Without a lead-in the floor is the quietest tenth of the recording: the piece itself when the
   // take stops while it still rings, and the strike would end where it began. Such a recording's
   // level still falls over its last quarter, where a floor holds level: the strike runs to its end.
-  const ringsTo = firstLoud - leadStart < 15 ? stillRingingTo(signal, energies, block, peakBlock, { noiseFloorDb, peakDb }) : null
+  const ringsTo = firstLoud - leadStart < 15 ? stillRingingTo(signal, { energies, silent, block }, peakBlock, { noiseFloorDb, peakDb }) : null
   if (ringsTo !== null) last = ringsTo - 1
   const endIndex = Math.min(signal.length, (last + 1) * block)
   const startIndex = Math.min(endIndex, onsetIndex + Math.round(settings.attackSkipS * sampleRate))
@@ -138,10 +140,16 @@ const RINGING_TONALITY_DB = 30
  * (a floor holds level) and falls no more than twice as fast as the half-quarter before (a fade-out
  * steepens), and that end holds lines, not noise (tonalityDb: a background faded out falls too).
  */
-function stillRingingTo(signal: Float64Array, energies: Float64Array, block: number, peakBlock: number, levels: { noiseFloorDb: number, peakDb: number }): number | null {
+function stillRingingTo(
+  signal: Float64Array,
+  blocks: { energies: Float64Array, silent: Uint8Array, block: number },
+  peakBlock: number,
+  levels: { noiseFloorDb: number, peakDb: number },
+): number | null {
+  const { energies, silent, block } = blocks
   const { noiseFloorDb, peakDb } = levels
   let end = energies.length
-  while (end > peakBlock + 1 && isSilent(signal, end - 1, block)) end--
+  while (end > peakBlock + 1 && silent[end - 1]) end--
   const quarter = Math.floor((end - peakBlock - 1) / 4)
   if (quarter < 20) return null
   const levelDb = (from: number, count: number) => 10 * Math.log10(energies.subarray(from, from + count).reduce((a, b) => a + b, 0) / count + 1e-30)
