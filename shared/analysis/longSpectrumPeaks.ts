@@ -3,7 +3,7 @@ import { bandNoiseFloor } from './bandNoiseFloor'
 import { MAIN_LOBE_BINS } from './chooseWindow'
 import { nextPowerOfTwo } from './nextPowerOfTwo'
 import { parabolicPeak } from './parabolicPeak'
-import { realFft } from './realFft'
+import { windowedPowerSpectrum } from './windowedPowerSpectrum'
 
 /** One peak of a long spectrum. */
 export interface LongPeak {
@@ -49,19 +49,13 @@ export function longSpectrumPeaks(signal: Float64Array, sampleRate: number, sett
   }
   const fftSize = nextPowerOfTwo(Math.ceil(1.25 * length))
   const window = blackmanHarris(length)
-  const buffer = new Float64Array(fftSize)
   let windowSum = 0
-  for (let i = 0; i < length; i++) {
-    buffer[i] = signal[startIndex + i]! * window[i]!
-    windowSum += window[i]!
-  }
-  const spectrum = realFft(buffer)
+  for (let i = 0; i < length; i++) windowSum += window[i]!
   const binHz = sampleRate / fftSize
   const kMin = Math.max(2, Math.ceil(settings.minFrequencyHz / binHz))
   const kMax = Math.min(fftSize / 2 - 2, Math.floor(settings.maxFrequencyHz / binHz))
   if (kMax <= kMin) return []
-  const power = new Float64Array(kMax + 2)
-  for (let k = kMin - 1; k <= kMax + 1; k++) power[k] = spectrum[2 * k]! ** 2 + spectrum[2 * k + 1]! ** 2
+  const power = windowedPowerSpectrum(signal, startIndex, window, fftSize)
   const floor = bandNoiseFloor(power, kMin, kMax, Math.ceil((3 * MAIN_LOBE_BINS * fftSize) / length))
   // |X| of a sinusoid of amplitude A is A·Σw/2.
   const gainDb = 20 * Math.log10(2 / windowSum)

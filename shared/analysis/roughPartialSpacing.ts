@@ -1,7 +1,7 @@
 import { bandNoiseFloor } from './bandNoiseFloor'
 import { blackmanHarris } from './blackmanHarris'
 import { nextPowerOfTwo } from './nextPowerOfTwo'
-import { realFft } from './realFft'
+import { windowedPowerSpectrum } from './windowedPowerSpectrum'
 
 /** What a first rough look at the strike says about its partials. */
 export interface RoughPartials {
@@ -28,21 +28,13 @@ export function roughPartialSpacing(
 ): RoughPartials | null {
   const length = Math.min(endIndex - startIndex, Math.round(maxS * sampleRate))
   if (length < 64) return null
-  const window = blackmanHarris(length)
   const fftSize = nextPowerOfTwo(2 * length)
-  const buffer = new Float64Array(fftSize)
-  for (let i = 0; i < length; i++) buffer[i] = signal[startIndex + i]! * window[i]!
-  const spectrum = realFft(buffer)
+  const power = windowedPowerSpectrum(signal, startIndex, blackmanHarris(length), fftSize)
   const binHz = sampleRate / fftSize
   const kMin = Math.max(2, Math.ceil(20 / binHz))
   const kMax = Math.min(fftSize / 2 - 2, Math.floor((0.95 * sampleRate) / 2 / binHz))
-  const power = new Float64Array(kMax + 2)
   let maxPower = 0
-  for (let k = kMin - 1; k <= kMax + 1; k++) {
-    const p = spectrum[2 * k]! ** 2 + spectrum[2 * k + 1]! ** 2
-    power[k] = p
-    if (k >= kMin && k <= kMax && p > maxPower) maxPower = p
-  }
+  for (let k = kMin; k <= kMax; k++) maxPower = Math.max(maxPower, power[k]!)
   const floor = bandNoiseFloor(power, kMin, kMax, Math.ceil((3 * 8 * fftSize) / length))
   const frequenciesHz: number[] = []
   const relativeDb: number[] = []

@@ -1,5 +1,5 @@
 import { cachedBlackmanHarris } from './cachedBlackmanHarris'
-import { realFft } from './realFft'
+import { windowedPowerSpectrum } from './windowedPowerSpectrum'
 import { selectQuantile } from './selectQuantile'
 
 /** Bins either side of the strongest whose median is the noise under it (a main lobe is ±4). */
@@ -16,19 +16,10 @@ const NEIGHBOURHOOD_BINS = 64
 export function tonalityDb(signal: Float64Array): number {
   const size = signal.length
   if (size < 64 || (size & (size - 1)) !== 0) throw new RangeError('tonalityDb needs a power-of-two length of at least 64')
-  const window = cachedBlackmanHarris(size)
-  const windowed = new Float64Array(size)
-  for (let i = 0; i < size; i++) windowed[i] = signal[i]! * window[i]!
-  const spectrum = realFft(windowed)
   // Clear of 0 Hz's main lobe (±4 bins), so a low partial counts (a timpani's 74 Hz).
-  const from = 5
-  const to = Math.floor(0.95 * (size / 2))
-  const power = new Float64Array(to - from)
+  const power = windowedPowerSpectrum(signal, 0, cachedBlackmanHarris(size), size).subarray(5, Math.floor(0.95 * (size / 2)))
   let strongest = 0
-  for (let k = from; k < to; k++) {
-    power[k - from] = spectrum[2 * k]! ** 2 + spectrum[2 * k + 1]! ** 2
-    if (power[k - from]! > power[strongest]!) strongest = k - from
-  }
+  for (let k = 1; k < power.length; k++) if (power[k]! > power[strongest]!) strongest = k
   if (!(power[strongest]! > 0)) return 0
   // The median of the bins around it: coloured noise (a room's rumble) is level there, a line is not.
   const around = power.subarray(Math.max(0, strongest - NEIGHBOURHOOD_BINS), Math.min(power.length, strongest + NEIGHBOURHOOD_BINS + 1))
