@@ -113,7 +113,7 @@ export function findStrike(signal: Float64Array, sampleRate: number, settings: S
   // Without a lead-in the floor is the quietest tenth of the recording: the piece itself when the
   // take stops while it still rings, and the strike would end where it began. Such a recording's
   // level still falls over its last quarter, where a floor holds level: the strike runs to its end.
-  const ringsTo = firstLoud - leadStart < 15 ? stillRingingTo(signal, { energies, silent, block }, peakBlock, { noiseFloorDb, peakDb }) : null
+  const ringsTo = firstLoud - leadStart < 15 ? stillRingingTo(signal, { prefix, silent, block }, peakBlock, { noiseFloorDb, peakDb }) : null
   if (ringsTo !== null) last = ringsTo - 1
   const endIndex = Math.min(signal.length, (last + 1) * block)
   const startIndex = Math.min(endIndex, onsetIndex + Math.round(settings.attackSkipS * sampleRate))
@@ -142,17 +142,18 @@ const RINGING_TONALITY_DB = 30
  */
 function stillRingingTo(
   signal: Float64Array,
-  blocks: { energies: Float64Array, silent: Uint8Array, block: number },
+  /** The blocks' energies as running sums (prefix[b] = Σ energies before b), their silence marks and length. */
+  blocks: { prefix: Float64Array, silent: Uint8Array, block: number },
   peakBlock: number,
   levels: { noiseFloorDb: number, peakDb: number },
 ): number | null {
-  const { energies, silent, block } = blocks
+  const { prefix, silent, block } = blocks
   const { noiseFloorDb, peakDb } = levels
-  let end = energies.length
+  let end = silent.length
   while (end > peakBlock + 1 && silent[end - 1]) end--
   const quarter = Math.floor((end - peakBlock - 1) / 4)
   if (quarter < 20) return null
-  const levelDb = (from: number, count: number) => 10 * Math.log10(energies.subarray(from, from + count).reduce((a, b) => a + b, 0) / count + 1e-30)
+  const levelDb = (from: number, count: number) => 10 * Math.log10((prefix[from + count]! - prefix[from]!) / count + 1e-30)
   const finalDb = levelDb(end - 20, 20)
   if (finalDb < noiseFloorDb - 3 || finalDb < peakDb - STILL_LOUD_WITHIN_DB) return null
   const half = quarter >> 1
