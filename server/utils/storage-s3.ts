@@ -96,6 +96,11 @@ export function s3Storage(config: S3StorageConfig, client = s3Client(config)): B
       } while (ContinuationToken)
       return found
     },
+    async clearUnfinished(prefix) {
+      // A PUT is whole or absent: nothing is left half written, only the prefix is checked.
+      if (prefix !== '') checkKey(prefix.replace(/\/+$/, ''))
+      return []
+    },
     async ping() {
       await client.send(new HeadBucketCommand({ Bucket }))
     },

@@ -26,6 +26,12 @@ export interface BlobStorage {
   move(from: string, to: string): Promise<boolean>
   /** Every object whose key starts with `prefix` (a folder, ending in `/`; '' for the whole store). */
   list(prefix: string): Promise<StoredObject[]>
+  /**
+   * Removes what a process killed mid-write left under `prefix`, last touched `olderThanMs`
+   * or more before `now`; answers what it removed. `list` never shows such leftovers, so
+   * without this they would stay for good. A bucket keeps none: a PUT is whole or absent.
+   */
+  clearUnfinished(prefix: string, olderThanMs: number, now: Date): Promise<string[]>
   /** Resolves when the store can be reached (readiness), rejects otherwise. */
   ping(): Promise<void>
 }

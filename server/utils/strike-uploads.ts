@@ -14,7 +14,7 @@ const PENDING = /^pending\/strikes\/[0-9a-f-]{36}\/([0-9a-f-]{36})\.[a-z0-9]+$/
 /**
  * Clears pending strike uploads older than `olderThanMs`: one whose strike row committed
  * is promoted to the row's key (its process died between commit and promotion), any
- * other is removed (its transaction never committed). Runs under a transaction-scoped
+ * other is removed (its transaction never committed), and so is a write left unfinished. Runs under a transaction-scoped
  * advisory lock; when another instance holds it this one does nothing.
  */
 export async function sweepStrikeUploads(db: Database, storage: BlobStorage, olderThanMs: number, now = new Date()): Promise<SweepReport> {
@@ -25,7 +25,8 @@ export async function sweepStrikeUploads(db: Database, storage: BlobStorage, old
     const ids = stale.map(o => PENDING.exec(o.key)?.[1]).filter((id): id is string => id !== undefined)
     const rows = ids.length > 0 ? await tx.select({ id: strikes.id, audioKey: strikes.audioKey }).from(strikes).where(inArray(strikes.id, ids)) : []
     const committed = new Map(rows.map(r => [r.id, r.audioKey]))
-    const report: SweepReport = { ran: true, removed: [], promoted: [] }
+    // A write the killed process never finished: no row can point at it.
+    const report: SweepReport = { ran: true, removed: await storage.clearUnfinished(PENDING_STRIKE_AUDIO, olderThanMs, now), promoted: [] }
     for (const object of stale) {
       const audioKey = committed.get(PENDING.exec(object.key)?.[1] ?? '')
       if (audioKey && await storage.head(audioKey) === null) {

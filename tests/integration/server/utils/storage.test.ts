@@ -118,6 +118,14 @@ describe.each(DRIVERS)('storage contract: $name', (driver) => {
     expect(await storage.get('inside/ok.wav')).toEqual(new Uint8Array([1]))
   })
 
+  it('clears nothing that was written whole, and refuses a prefix that leaves the store', async () => {
+    const { storage } = await driver.make()
+    await storage.put('pending/strikes/w/s.wav', new Uint8Array([1]), 'audio/wav')
+    expect(await storage.clearUnfinished('pending/strikes/', 0, new Date(Date.now() + 60_000))).toEqual([])
+    expect((await storage.list('pending/strikes/')).map(o => o.key)).toEqual(['pending/strikes/w/s.wav'])
+    await expect(storage.clearUnfinished('../', 0, new Date())).rejects.toBeInstanceOf(InvalidStorageKey)
+  })
+
   it('refuses a listing prefix that leaves the store', async () => {
     const { storage } = await driver.make()
     await expect(storage.list('../')).rejects.toBeInstanceOf(InvalidStorageKey)

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto'
-import { mkdtempSync } from 'node:fs'
+import { mkdirSync, mkdtempSync, utimesSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
-import { join } from 'node:path'
+import { dirname, join } from 'node:path'
 import postgres from 'postgres'
 import { afterAll, describe, expect, it } from 'vitest'
 import { createDatabase } from '../../../../server/database/client'
@@ -54,5 +54,22 @@ describe('sweepStrikeUploads (pending strike audio against the real database)', 
     expect((await storage.list('pending/strikes/')).map(o => o.key)).toEqual([orphan])
     expect((await sweepStrikeUploads(db, storage, 0)).removed).toEqual([orphan])
     expect(await storage.get(orphan)).toBeNull()
+  })
+
+  it('removes a write that a killed process left unfinished once it is old enough, and keeps one still under way', async () => {
+    const root = mkdtempSync(join(tmpdir(), 'tw-sweep-partial-'))
+    const storage = fileStorage(root)
+    const abandoned = `pending/strikes/${randomUUID()}/${randomUUID()}.wav.4242.partial`
+    const underWay = `pending/strikes/${randomUUID()}/${randomUUID()}.wav.4343.partial`
+    for (const key of [abandoned, underWay]) {
+      mkdirSync(dirname(join(root, key)), { recursive: true })
+      writeFileSync(join(root, key), new Uint8Array([1, 2]))
+    }
+    const elevenMinutesAgo = new Date(Date.now() - 11 * MINUTE)
+    utimesSync(join(root, abandoned), elevenMinutesAgo, elevenMinutesAgo)
+    // Neither is an object: the listing never shows them.
+    expect(await storage.list('pending/strikes/')).toEqual([])
+    expect(await sweepStrikeUploads(db, storage, 10 * MINUTE)).toEqual({ ran: true, removed: [abandoned], promoted: [] })
+    expect((await storage.clearUnfinished('pending/strikes/', 0, new Date(Date.now() + 1000)))).toEqual([underWay])
   })
 })
