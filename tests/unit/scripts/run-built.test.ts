@@ -1,22 +1,23 @@
 import { spawnSync } from 'node:child_process'
-import { mkdtempSync, readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs'
+import { mkdtempSync, readFileSync, statSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { analyzeStrike } from '../../../shared/analysis/index'
+import { analyzeCommandWords, runAnalyzeCli } from '../../support/analyzeCli'
 
 const root = fileURLToPath(new URL('../../../', import.meta.url))
 
 function launcher(dir: string, ...args: string[]) {
-  return spawnSync(process.execPath, ['scripts/run-built.mjs', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, env: { ...process.env, TONEWRIGHT_CLI_DIR: dir } })
+  // package.json's Node flags and the launcher, without the script name `args` bring.
+  return spawnSync(process.execPath, [...analyzeCommandWords().slice(0, -1), ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, env: { ...process.env, TONEWRIGHT_CLI_DIR: dir } })
 }
 
 /** The command `npm run analyze` runs, Node flags included, as package.json gives it. */
 function npmAnalyze(dir: string, ...args: string[]) {
-  const [command, ...words] = (JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')).scripts.analyze as string).split(' ')
-  expect(command).toBe('node')
-  return spawnSync(process.execPath, [...words, ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, env: { ...process.env, TONEWRIGHT_CLI_DIR: dir } })
+  expect(analyzeCommandWords()).toContain('scripts/run-built.mjs')
+  return runAnalyzeCli(args, { timeoutMs: 120_000, env: { ...process.env, TONEWRIGHT_CLI_DIR: dir } })
 }
 
 describe('scripts/run-built.mjs (npm run analyze)', () => {
@@ -44,7 +45,7 @@ describe('scripts/run-built.mjs (npm run analyze)', () => {
     expect(JSON.parse(readFileSync(inputs, 'utf8'))['scripts/analyze.ts']).toBe(recorded['scripts/analyze.ts'])
   }, 240_000)
 
-  it('rebuilds when a source it was made from is touched, and prints the same JSON as the engine', async () => {
+  it('rebuilds when a source it was made from was touched since, and prints the same JSON as the engine', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'tw-cli-build-'))
     const bundle = join(dir, 'analyze', 'analyze.mjs')
     const file = 'tests/fixtures/audio/strike-48k-16bit.wav'
@@ -56,19 +57,17 @@ describe('scripts/run-built.mjs (npm run analyze)', () => {
     const direct = await analyzeStrike(new Uint8Array(readFileSync(join(root, file))), { note: 'A4', ratios: [1, 2.7565] })
     expect(before.stdout).toBe(`${JSON.stringify(direct, null, 2)}\n`)
 
-    // A real source of the engine, its content unchanged, with a new modification time.
-    const source = join(root, 'shared', 'analysis', 'analyzeStrike.ts')
-    const { atime, mtime } = statSync(source)
-    try {
-      utimesSync(source, atime, new Date(Date.now() + 5_000))
-      const after = npmAnalyze(dir, ...args)
-      expect(after.status).toBe(0)
-      expect(statSync(bundle).mtimeMs).toBeGreaterThan(built)
-      expect(after.stdout).toBe(before.stdout)
-    }
-    finally {
-      utimesSync(source, atime, mtime)
-    }
+    // A real source of the engine as if touched since the build: its recorded time no longer
+    // matches. Touching the file itself would make every other test's bundle stale at once.
+    const inputs = join(dir, 'analyze', 'inputs.json')
+    const recorded = JSON.parse(readFileSync(inputs, 'utf8')) as Record<string, string>
+    const [size, mtimeMs] = recorded['shared/analysis/analyzeStrike.ts']!.split(':')
+    writeFileSync(inputs, JSON.stringify({ ...recorded, 'shared/analysis/analyzeStrike.ts': `${size}:${Number(mtimeMs) - 5_000}` }))
+    const after = npmAnalyze(dir, ...args)
+    expect(after.status).toBe(0)
+    expect(statSync(bundle).mtimeMs).toBeGreaterThan(built)
+    expect(after.stdout).toBe(before.stdout)
+    expect(JSON.parse(readFileSync(inputs, 'utf8'))['shared/analysis/analyzeStrike.ts']).toBe(recorded['shared/analysis/analyzeStrike.ts'])
   }, 240_000)
 
   it('refuses a script it does not know with its usage line', () => {

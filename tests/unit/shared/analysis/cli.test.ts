@@ -1,16 +1,16 @@
-import { spawnSync } from 'node:child_process'
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { analyzeStrike } from '../../../../shared/analysis/index'
+import { runAnalyzeCli } from '../../../support/analyzeCli'
 
 const root = fileURLToPath(new URL('../../../../', import.meta.url))
 const fixture = (name: string) => `tests/fixtures/audio/${name}`
 
 function cli(...args: string[]) {
-  const run = spawnSync(process.execPath, ['scripts/run-built.mjs', 'analyze', ...args], { cwd: root, encoding: 'utf8', timeout: 60_000 })
+  const run = runAnalyzeCli(args, { timeoutMs: 60_000 })
   return { code: run.status, stdout: run.stdout, stderr: run.stderr }
 }
 

@@ -1,18 +1,16 @@
-import { spawnSync } from 'node:child_process'
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
-import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { analyzeStrike, encodeWav } from '../../../../shared/analysis/index'
 import { scorePartials } from '../../../support/accuracy'
+import { runAnalyzeCli } from '../../../support/analyzeCli'
 import { REAL_FIXTURE_DIR, realFixturePath, realFixtures } from '../../../support/realFixtures'
 import { REALISTIC_CASES, renderRealisticCase, tunedTruth } from '../../../support/realisticStrikes'
 
 // The Bench's path, `npm run analyze -- FILE --target-hz F --ratios R --json`, on real strikes.
-const root = fileURLToPath(new URL('../../../../', import.meta.url))
 
 function cliJson(file: string, targetHz: number, ratios: number[]) {
-  const run = spawnSync(process.execPath, ['scripts/run-built.mjs', 'analyze', file, '--target-hz', String(targetHz), '--ratios', ratios.join(','), '--json'], { cwd: root, encoding: 'utf8', timeout: 90_000 })
+  const run = runAnalyzeCli([file, '--target-hz', String(targetHz), '--ratios', ratios.join(','), '--json'])
   expect(run.stderr).toBe('')
   expect(run.status).toBe(0)
   return JSON.parse(run.stdout)

@@ -1,17 +1,15 @@
-import { spawnSync } from 'node:child_process'
 import { mkdirSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
-import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { analyzeStrike } from '../../../../shared/analysis/index'
 import { scorePartials } from '../../../support/accuracy'
+import { runAnalyzeCli } from '../../../support/analyzeCli'
 import { FOUND_WITHIN_CENTS } from '../../../support/fixtureAccuracy'
 import { REAL_FIXTURE_DIR } from '../../../support/realFixtures'
 import { CONDITION_CASES } from '../../../support/recordingConditions'
 
 // The Bench's path, `npm run analyze -- FILE --target-hz F --ratios R --json`, on each family's usual
 // template and on the recording conditions that once went wrong (tests/support/recordingConditions.ts).
-const root = fileURLToPath(new URL('../../../../', import.meta.url))
 const dir = join(REAL_FIXTURE_DIR, '..', 'conditions')
 
 const CLI_CASES = CONDITION_CASES.filter(c => /^(marimba|xylophone|glockenspiel|chimes|timpani|vibraphone) |stereo|second strike|192 kHz|header declares|hard-clipped|FLAC/.test(c.id))
@@ -28,7 +26,7 @@ describe('npm run analyze on recordings made the workshop way', () => {
       const bytes = c.bytes()
       const file = join(dir, `case-${n}.${c.id.includes('FLAC') ? 'flac' : 'wav'}`)
       writeFileSync(file, bytes)
-      const run = spawnSync(process.execPath, ['scripts/run-built.mjs', 'analyze', file, '--target-hz', String(c.targetHz), '--ratios', c.ratios.join(','), '--json'], { cwd: root, encoding: 'utf8', timeout: 90_000 })
+      const run = runAnalyzeCli([file, '--target-hz', String(c.targetHz), '--ratios', c.ratios.join(','), '--json'])
       expect(run.stderr).toBe('')
       expect(run.status).toBe(0)
       const printed = JSON.parse(run.stdout)
