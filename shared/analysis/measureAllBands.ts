@@ -2,6 +2,7 @@ import { MAIN_LOBE_BINS } from './chooseWindow'
 import type { StrikeSpan } from './findStrike'
 import { findDecayKnee } from './findDecayKnee'
 import { fitLine } from './fitLine'
+import { wandersOverLobe } from './dropSpuriousPartials'
 import type { TrackPoint } from './linkTracks'
 import { measureBand, type BandMeasurement, type BandSettings } from './measureBand'
 import type { TrackMeasurement } from './measureTrack'
@@ -23,7 +24,8 @@ export interface AllBands {
  * the merged partials already hold (within half its main lobe) and that falls less than
  * `maxDropPerWindowDb` within that partial's window — by a quick line through its frame
  * levels — would be discarded by the merge, so it is not measured: on a rich strike that
- * saves most of the fast bands' work.
+ * saves most of the fast bands' work. A reading that wanders over its main lobe holds nothing:
+ * it will be left out (dropSpuriousPartials), and the faster bands must read that partial themselves.
  */
 export function measureAllBands(
   signal: Float64Array,
@@ -40,11 +42,13 @@ export function measureAllBands(
   const bandsOf = bandSource(signal, sampleRate)
   for (const band of bands) {
     const reachHz = MAIN_LOBE_BINS / 2 / band.windowS
+    // A reading that wanders over its main lobe will be left out (a chain of peaks, not one partial): it holds nothing.
+    const holding = merged.filter(p => !wandersOverLobe(p))
     const settled = (points: TrackPoint[]) => {
       const frequencyHz = points[points.length >> 1]!.frequencyHz
-      const index = nearestReading(merged, frequencyHz, reachHz)
+      const index = nearestReading(holding, frequencyHz, reachHz)
       if (index < 0) return false
-      const held = merged[index]!
+      const held = holding[index]!
       let strongestDb = -Infinity
       for (const p of points) strongestDb = Math.max(strongestDb, p.amplitudeDb)
       // A reading far under the track is another line (a room's, in the skirt of a short-lived partial).
@@ -54,13 +58,13 @@ export function measureAllBands(
         // Held only by a slower partial of comparable level that its window does not smear
         // (heldBy), judged by the track's strongest frame.
         const fall = decayDbPerS === null ? undefined : { decayDbPerS, maxDropPerWindowDb: settings.maxDropPerWindowDb }
-        if (heldBy(merged, frequencyHz, strongestDb, reachHz, fall)) return true
+        if (heldBy(holding, frequencyHz, strongestDb, reachHz, fall)) return true
       }
       if (decayDbPerS === null) return false
       return !smearedWithin(decayDbPerS, held.windowS, settings.maxDropPerWindowDb)
     }
     const band_ = measureBand(signal, sampleRate, strike, band, settings, settled, bandsOf, floor)
-    band_.partials = dropHeldInPairZones(band_.partials, merged, band.pairZonesHz, reachHz, settings.maxDropPerWindowDb)
+    band_.partials = dropHeldInPairZones(band_.partials, holding, band.pairZonesHz, reachHz, settings.maxDropPerWindowDb)
     measured.push(band_)
     merged = measured.length === 1 ? band_.partials : mergeBands([merged, band_.partials], settings.maxDropPerWindowDb)
   }
