@@ -4,7 +4,7 @@ import {
   CopyObjectCommand, DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, HeadObjectCommand,
   ListObjectsV2Command, PutObjectCommand, S3Client, S3ServiceException,
 } from '@aws-sdk/client-s3'
-import { checkKey, type BlobStorage, type StorageConfig, type StoredObject } from './storage'
+import { checkKey, checkPrefix, type BlobStorage, type StorageConfig, type StoredObject } from './storage'
 
 export type S3StorageConfig = Pick<StorageConfig, 'bucket' | 'region' | 'endpoint' | 'forcePathStyle' | 'accessKeyId' | 'secretAccessKey'>
 
@@ -84,7 +84,7 @@ export function s3Storage(config: S3StorageConfig, client = s3Client(config)): B
       return true
     },
     async list(prefix) {
-      if (prefix !== '') checkKey(prefix.replace(/\/+$/, ''))
+      checkPrefix(prefix)
       const found: StoredObject[] = []
       let ContinuationToken: string | undefined
       do {
@@ -97,8 +97,8 @@ export function s3Storage(config: S3StorageConfig, client = s3Client(config)): B
       return found
     },
     async clearUnfinished(prefix) {
-      // A PUT is whole or absent: nothing is left half written, only the prefix is checked.
-      if (prefix !== '') checkKey(prefix.replace(/\/+$/, ''))
+      // A PUT is whole or absent: nothing is left half written; the prefix is still checked.
+      checkPrefix(prefix)
       return []
     },
     async ping() {

@@ -53,6 +53,11 @@ export function checkKey(key: string) {
   if (!KEY.test(key) || key.split('/').some(part => part === '..' || part === '.') || key.includes('//')) throw new InvalidStorageKey(key)
 }
 
+/** A listing prefix (a folder, '' for the whole store) holds a key no object could leave its folder with. */
+export function checkPrefix(prefix: string) {
+  if (prefix !== '') checkKey(prefix.replace(/\/+$/, ''))
+}
+
 /** Runtime config `storage` (NUXT_STORAGE_*). */
 export interface StorageConfig {
   driver: string

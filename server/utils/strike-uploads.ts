@@ -14,8 +14,9 @@ const PENDING = /^pending\/strikes\/[0-9a-f-]{36}\/([0-9a-f-]{36})\.[a-z0-9]+$/
 /**
  * Clears pending strike uploads older than `olderThanMs`: one whose strike row committed
  * is promoted to the row's key (its process died between commit and promotion), any
- * other is removed (its transaction never committed), and so is a write left unfinished. Runs under a transaction-scoped
- * advisory lock; when another instance holds it this one does nothing.
+ * other is removed (its transaction never committed), and so is a write left unfinished.
+ * Runs under a transaction-scoped advisory lock; when another instance holds it this one
+ * does nothing.
  */
 export async function sweepStrikeUploads(db: Database, storage: BlobStorage, olderThanMs: number, now = new Date()): Promise<SweepReport> {
   return db.transaction(async (tx) => {

@@ -1,5 +1,5 @@
-import { MAIN_LOBE_BINS } from './chooseWindow'
 import type { TrackMeasurement } from './measureTrack'
+import { wandersOverLobe } from './wandersOverLobe'
 
 export interface SpuriousSettings {
   /** Level of the strongest partial of the strike, dB re full scale. */
@@ -60,16 +60,4 @@ export function dropSpuriousPartials(partials: readonly TrackMeasurement[], sett
   if (steady > 0) warnings.push(`${steady} steady line${steady === 1 ? '' : 's'} far under the strike not reported (hum or a recording artefact, not a decaying mode)`)
   if (faint > 0) warnings.push(`${faint} faint reading${faint === 1 ? '' : 's'} not reported: more than ${settings.faintBelowDb} dB under the strongest partial and less than ${settings.faintMinSnrDb} dB over the noise`)
   return { kept, warnings }
-}
-
-/**
- * Whether a track's frequency spreads (RMS) over more than a quarter of its window's main lobe,
- * or over √2 × its vibrato's rate where its spectrum showed a vibrato's sidebands: a chain of
- * different peaks, not one partial (see dropSpuriousPartials).
- */
-export function wandersOverLobe(p: Pick<TrackMeasurement, 'frequencyHz' | 'stabilityCents' | 'windowS' | 'modulationFrom' | 'modulationHz'>): boolean {
-  const spreadHz = p.frequencyHz * (2 ** (p.stabilityCents / 1200) - 1)
-  const binHz = 1 / p.windowS
-  const vibratoHz = p.modulationFrom === 'sidebands' ? Math.SQRT2 * (p.modulationHz ?? 0) : 0
-  return spreadHz > Math.max((MAIN_LOBE_BINS / 4) * binHz, vibratoHz)
 }
