@@ -25,13 +25,28 @@ describe('chooseWindow', () => {
     expect(6 / wide.hopS).toBeLessThanOrEqual(101)
   })
 
-  it('zero-pads to a power of two at least twice the window, hop a quarter window', () => {
-    const c = chooseWindow({ spacingHz: 30, lowestHz: 200, spanS: 30 }, 96000)
+  it('zero-pads a window under 0.25 s to a power of two at least twice it, hop a quarter window', () => {
+    const c = chooseWindow({ spacingHz: 60, lowestHz: 200, spanS: 10 }, 96000)
+    expect(c.windowS).toBeLessThan(0.25)
     expect(Math.log2(c.fftSize) % 1).toBe(0)
     expect(c.fftSize).toBeGreaterThanOrEqual(2 * c.windowLength)
     expect(c.fftSize).toBeLessThan(4 * c.windowLength)
     expect(c.zeroPad).toBe(c.fftSize / c.windowLength)
-    expect(c.hop).toBe(Math.round(Math.max(c.windowLength / 4, (30 * 96000) / 100)))
+    expect(c.hop).toBe(Math.round(Math.max(c.windowLength / 4, (10 * 96000) / 100)))
+  })
+
+  it('zero-pads a window of 0.25 s or more as the other bands are (at least 1.25 times)', () => {
+    // A 0.5 s window at 48 kHz is 24 000 samples: 32 768 points (1.37 times), not 65 536.
+    const half = chooseWindow({ spacingHz: 2, lowestHz: 100, spanS: 4 }, 48000)
+    expect(half.windowLength).toBe(24000)
+    expect(half.fftSize).toBe(32768)
+    // At 0.25 s exactly (12 000 samples at 48 kHz): 16 384 points, where twice the window would take 32 768.
+    const quarter = chooseWindow({ spacingHz: 2, lowestHz: 100, spanS: 4, windowS: 0.25 }, 48000)
+    expect(quarter.fftSize).toBe(16384)
+    // Just under it, twice the window: 11 952 samples → 32 768 points.
+    const under = chooseWindow({ spacingHz: 2, lowestHz: 100, spanS: 4, windowS: 0.249 }, 48000)
+    expect(under.fftSize).toBe(32768)
+    for (const c of [half, quarter, under]) expect(c.zeroPad).toBeGreaterThanOrEqual(1.25)
   })
 
   it('takes a forced length and refuses a bad rate or span', () => {
