@@ -5,6 +5,7 @@ import type { TrackMeasurement } from './measureTrack'
 import { ENGINE_SETTINGS } from './engineSettings'
 import { pencilPartial } from './pencilPartial'
 import { separateDoublet } from './separateDoublet'
+import type { BandComponent } from './estimateBand'
 import type { FftPartial, MeasuredPartial } from './types'
 
 /** What the doublet check needs of an FFT partial: its STFT window and where its modulation came from. */
@@ -61,7 +62,7 @@ const SAME_RATE_SHARE = 0.05
  * least one beat over the span and 8 bound widths, the pair's power centroid lies within
  * the gap of the FFT reading, each component holds 20 dB of SNR over a whole beat (so an
  * attack transient beside a partial is no doublet), the component with most of the energy
- * (∝ A²/decay) decays as the FFT track did (within 60 %), and the gap is not the rate of a tremolo whose sidebands the
+ * (∝ A²/decay) decays as the FFT track did (within 60 %) or the track's decay lies between the two (decaysAsTrack), and the gap is not the rate of a tremolo whose sidebands the
  * FFT path found on this partial or, within 5 %, on any other (a 2 Hz tremolo's upper sideband of a vibraphone's ×4
  * was split off as a doublet partner at −12 dB), nor a pair it already resolved; nor is a partial on the course of a pitch
  * glide (findPitchGlide: a pitch that moves reads as two decaying components, not two modes). The two beat at their difference
@@ -119,11 +120,24 @@ export function splitDoublets<P extends DoubletCandidate>(
     if (Math.abs(centroidHz - p.frequencyHz) > gapHz) return null
     // Each holds its SNR over a whole beat (an attack transient beside a partial dies first).
     if ([a, b].some(c => c.snrDb - c.decayDbPerS / gapHz < MIN_SNR_DB)) return null
-    // The component holding most of the energy (∝ A² / decay) decays as the FFT track did.
-    const [dominant] = [a, b].sort((x, y) => y.amplitude ** 2 / Math.max(y.decayDbPerS, 0.1) - x.amplitude ** 2 / Math.max(x.decayDbPerS, 0.1))
-    if (Math.abs(dominant!.decayDbPerS - p.decayDbPerS) > Math.max(MAX_DECAY_MISMATCH * p.decayDbPerS, 2)) return null
+    if (!decaysAsTrack(p.decayDbPerS, a, b)) return null
     const depthDb = Math.min(60, 20 * Math.log10((a.amplitude + b.amplitude) / Math.max(Math.abs(a.amplitude - b.amplitude), 1e-12)))
     const context = { startS: startIndex / sampleRate, endS: end / sampleRate, beatHz: gapHz, modulationHz: gapHz, modulationDepthDb: depthDb }
     return [pencilPartial(a, context), pencilPartial(b, context)]
   }
+}
+
+/**
+ * The FFT track's decay fits the pair: the component holding most of the energy (∝ A² / decay)
+ * decays as the track did (within 60 %), or the track's decay lies between the two components'
+ * (with that slack): a short window's frames follow their sum, which falls at the faster rate
+ * while the stronger one leads and at the slower one after (steel drum B4's ×2, 982.1 and 989.8 Hz
+ * at 56 and 166 dB/s, read as one partial at 96.5 dB/s). An attack transient beside a partial
+ * is no doublet either way: it does not hold its SNR over a whole beat (checked before).
+ */
+function decaysAsTrack(trackDecayDbPerS: number, a: BandComponent, b: BandComponent): boolean {
+  const slack = Math.max(MAX_DECAY_MISMATCH * trackDecayDbPerS, 2)
+  const [dominant] = [a, b].sort((x, y) => y.amplitude ** 2 / Math.max(y.decayDbPerS, 0.1) - x.amplitude ** 2 / Math.max(x.decayDbPerS, 0.1))
+  if (Math.abs(dominant!.decayDbPerS - trackDecayDbPerS) <= slack) return true
+  return trackDecayDbPerS >= Math.min(a.decayDbPerS, b.decayDbPerS) - slack && trackDecayDbPerS <= Math.max(a.decayDbPerS, b.decayDbPerS) + slack
 }

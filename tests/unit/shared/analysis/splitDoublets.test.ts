@@ -68,4 +68,34 @@ describe('splitDoublets', () => {
     expect(onGlide.pairs).toEqual([])
     expect(onGlide.single).toEqual([reading])
   }, 30_000)
+
+  it('splits a pair whose short-window reading decays between its two components', () => {
+    // Our own scenario after steel drum B4's ×2 (the sweep's freepats note): 982 Hz at 56 dB/s
+    // under 989.75 Hz at 166 dB/s, 13 dB stronger. A 0.077 s band's frames follow their sum and read
+    // one partial at 96.5 dB/s: neither component's decay within 60 % (the stronger one holds most energy).
+    const parts: [SynthPartial, SynthPartial] = [{ frequencyHz: 982, amplitudeDb: -29, decayDbPerS: 56 }, { frequencyHz: 989.75, amplitudeDb: -16, decayDbPerS: 166 }]
+    const signal = synthStrike(parts, { sampleRate, durationS: 0.8 + onsetS, onsetS, noiseDb: -75, seed: 2 })
+    const { refineSpanS: _span, strongestFrameDb: _frame, ...reading } = trackReading({ frequencyHz: 989.5, amplitudeDb: -16, decayDbPerS: 96.5, snrDb: 58, windowS: 0.077 })
+    const onsetIndex = Math.round(onsetS * sampleRate)
+    const settings = { startIndex: onsetIndex + 220, endIndex: signal.length, onsetIndex, peakDb: 0, peakMarginDb: 1, minAmplitudeDb: -80 }
+    const { pairs, single } = splitDoublets(signal, sampleRate, [reading], settings)
+    expect(single).toEqual([])
+    expect(pairs).toHaveLength(2)
+    parts.forEach((truth, k) => {
+      expect(Math.abs(pairs[k]!.frequencyHz - truth.frequencyHz)).toBeLessThan(0.05)
+      expect(Math.abs(pairs[k]!.decayDbPerS / truth.decayDbPerS - 1)).toBeLessThan(0.05)
+      expect(pairs[k]!.beatHz).toBeCloseTo(7.75, 1)
+    })
+  }, 30_000)
+
+  it('splits off no attack transient whose decay brackets the reading', () => {
+    // A partial at 600 Hz (20 dB/s) and a knock 6 Hz above it dying at 400 dB/s: the reading's
+    // 25 dB/s lies between them, but the knock falls 67 dB within one beat.
+    const parts: SynthPartial[] = [{ frequencyHz: 600, amplitudeDb: -10, decayDbPerS: 20 }, { frequencyHz: 606, amplitudeDb: -8, decayDbPerS: 400 }]
+    const signal = synthStrike(parts, { sampleRate, durationS: 1.5 + onsetS, onsetS, noiseDb: -75, seed: 3 })
+    const { refineSpanS: _span, strongestFrameDb: _frame, ...reading } = trackReading({ frequencyHz: 600.2, amplitudeDb: -10, decayDbPerS: 25, snrDb: 60, windowS: 0.1 })
+    const onsetIndex = Math.round(onsetS * sampleRate)
+    const settings = { startIndex: onsetIndex + 220, endIndex: signal.length, onsetIndex, peakDb: 0, peakMarginDb: 1, minAmplitudeDb: -80 }
+    expect(splitDoublets(signal, sampleRate, [reading], settings).pairs).toEqual([])
+  }, 30_000)
 })
