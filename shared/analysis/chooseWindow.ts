@@ -10,7 +10,7 @@ const LOBE_MARGIN = 1.25
  * FINE_GRID_BELOW_S (twice windowLayout's default): such a window was cut short by the span or
  * chosen for a low partial, whose track lies within a few main lobes of 0 Hz and of its
  * neighbours, and whose frames also judge whether it is one steady partial (stabilityCents):
- * on the coarser grid a tabla stroke's 0.106 s window at 44.1 kHz lost every track.
+ * on the coarser grid a tabla stroke's 0.106 s window (at 44.1 and 48 kHz) lost every track.
  */
 const LONG_WINDOW_ZERO_PAD = 2
 /**

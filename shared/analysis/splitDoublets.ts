@@ -45,7 +45,7 @@ const MAX_SPAN_S = 1.5
 /** The pencil resolves a pair when the span holds this many beats and the gap is this many bound widths. */
 const MIN_BEATS = 1
 const MIN_BOUND_WIDTHS = 8
-/** The energy-dominant component's decay may differ from the FFT track's by this fraction of it. */
+/** The FFT track's decay may lie this fraction of it outside the range of the two components' decays. */
 const MAX_DECAY_MISMATCH = 0.6
 /** Tremolo rates looked for (engineSettings: 1.5–12 Hz). */
 const TREMOLO_RATES_HZ = { min: ENGINE_SETTINGS.modulation.minRateHz, max: ENGINE_SETTINGS.modulation.maxRateHz }
@@ -61,8 +61,8 @@ const SAME_RATE_SHARE = 0.05
  * other, their gap is below the STFT window's resolution (half its main lobe) yet holds at
  * least one beat over the span and 8 bound widths, the pair's power centroid lies within
  * the gap of the FFT reading, each component holds 20 dB of SNR over a whole beat (so an
- * attack transient beside a partial is no doublet), the component with most of the energy
- * (∝ A²/decay) decays as the FFT track did (within 60 %) or the track's decay lies between the two (decaysAsTrack), and the gap is not the rate of a tremolo whose sidebands the
+ * attack transient beside a partial is no doublet), the FFT track's decay lies between the two
+ * components' decays, within 60 % of itself (decaysAsTrack), and the gap is not the rate of a tremolo whose sidebands the
  * FFT path found on this partial or, within 5 %, on any other (a 2 Hz tremolo's upper sideband of a vibraphone's ×4
  * was split off as a doublet partner at −12 dB), nor a pair it already resolved; nor is a partial on the course of a pitch
  * glide (findPitchGlide: a pitch that moves reads as two decaying components, not two modes). The two beat at their difference
@@ -128,16 +128,14 @@ export function splitDoublets<P extends DoubletCandidate>(
 }
 
 /**
- * The FFT track's decay fits the pair: the component holding most of the energy (∝ A² / decay)
- * decays as the track did (within 60 %), or the track's decay lies between the two components'
- * (with that slack): a short window's frames follow their sum, which falls at the faster rate
- * while the stronger one leads and at the slower one after (steel drum B4's ×2, 982.1 and 989.8 Hz
- * at 56 and 166 dB/s, read as one partial at 96.5 dB/s). An attack transient beside a partial
- * is no doublet either way: it does not hold its SNR over a whole beat (checked before).
+ * The FFT track's decay fits the pair: it lies between the two components' decays, give or take
+ * 60 % of itself. A short window's frames follow their sum, which falls at the faster rate while the
+ * stronger one leads and at the slower one after (steel drum B4's ×2, 982.1 and 989.8 Hz at 56 and
+ * 166 dB/s, read as one partial at 96.5 dB/s); a track that decays as either component does is
+ * inside that range too. An attack transient beside a partial is no doublet either way: it does
+ * not hold its SNR over a whole beat (checked before).
  */
 function decaysAsTrack(trackDecayDbPerS: number, a: BandComponent, b: BandComponent): boolean {
   const slack = Math.max(MAX_DECAY_MISMATCH * trackDecayDbPerS, 2)
-  const [dominant] = [a, b].sort((x, y) => y.amplitude ** 2 / Math.max(y.decayDbPerS, 0.1) - x.amplitude ** 2 / Math.max(x.decayDbPerS, 0.1))
-  if (Math.abs(dominant!.decayDbPerS - trackDecayDbPerS) <= slack) return true
   return trackDecayDbPerS >= Math.min(a.decayDbPerS, b.decayDbPerS) - slack && trackDecayDbPerS <= Math.max(a.decayDbPerS, b.decayDbPerS) + slack
 }
