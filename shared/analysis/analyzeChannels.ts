@@ -6,6 +6,7 @@ import { applyTemplate } from './applyTemplate'
 import { assembleResult } from './assembleResult'
 import { correctPartialsHz } from '../calibration/correctPartialsHz'
 import { crossCheckPartials } from './crossCheckPartials'
+import { bandSource } from './bandSource'
 import { ENGINE_SETTINGS as S } from './engineSettings'
 import { expectedPartials } from './expectedPartials'
 import { fundamentalWithoutTarget } from './fundamentalWithoutTarget'
@@ -55,9 +56,11 @@ function measureChannels(
   const { strike } = located
   const expected = expectedPartials(opts)
   const plan = planAnalysis(mono, sampleRate, strike, expected.expectedHz, opts.windowS)
-  const fft = measureFftPartials(mono, sampleRate, strike, plan, { peakDb, lossy: source.lossy === true, pcmBits: source.pcmBits ?? null })
+  // One DFT of the signal, and bands decimated from it, shared by the FFT path and the cross-check.
+  const bands = bandSource(mono, sampleRate)
+  const fft = measureFftPartials(mono, sampleRate, strike, plan, { peakDb, lossy: source.lossy === true, pcmBits: source.pcmBits ?? null }, bands)
   const level = { peakDb, peakMarginDb: S.peakMarginDb, minAmplitudeDb: fft.minAmplitudeDb }
-  const checked = crossCheckPartials(mono, sampleRate, fft.partials, strike, level, fft.glide)
+  const checked = crossCheckPartials(mono, sampleRate, fft.partials, strike, level, fft.glide, bands)
   const withLong = addLongLookPartials(mono, sampleRate, checked.partials, strike, plan, level)
   const withShort = addShortPartials(mono, sampleRate, withLong.partials, expected, strike, level)
   // The clock correction comes before matching, so cents and verdicts are on the reference's scale.

@@ -1,4 +1,5 @@
 import { checkWorkDeadline } from './workDeadline'
+import type { BandSource } from './bandSource'
 import { centsBetween } from './centsBetween'
 import { estimateBand, type BandComponent } from './estimateBand'
 import { partialUncertaintyCents } from './partialUncertaintyCents'
@@ -21,6 +22,8 @@ export interface AnnotateSettings {
    * fitted 16 dB over the file's peak): it ranks and weighs as if it carried the peak, no more.
    */
   maxAmplitude?: number
+  /** Decimated bands of `signal` (bandSource), for the pencil's down-mix. */
+  bands?: BandSource
 }
 
 /**
@@ -83,7 +86,7 @@ export function annotatePartials<P extends AnnotatedInput>(
     const halfWidthHz = Math.min(0.45 * p.frequencyHz, 0.45 * (sampleRate / 2 - p.frequencyHz), Math.max(2, 4 / usedS, 3 * lineWidthHz, p.frequencyHz * SEARCH_RATIO))
     if (!(halfWidthHz > 0) || end - startIndex < 64) return none
     // A band the estimator cannot read (digital silence) leaves the partial unchecked.
-    const band = estimateBand(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, targetSamples: 32, maxOrder: 4 })
+    const band = estimateBand(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, targetSamples: 32, maxOrder: 4, bands: settings.bands })
     // The time the FFT track saw the partial, within the band's span.
     const spanStartS = startIndex / sampleRate
     const fromS = Math.min(Math.max(0, p.startS - (p.windowS ?? 0) / 2 - spanStartS), usedS)

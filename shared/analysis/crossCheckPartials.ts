@@ -1,4 +1,5 @@
 import { annotatePartials } from './annotatePartials'
+import type { BandSource } from './bandSource'
 import type { PitchGlide } from './findPitchGlide'
 import type { StrikeSpan } from './findStrike'
 import { splitDoublets, type DoubletCandidate } from './splitDoublets'
@@ -24,12 +25,14 @@ export function crossCheckPartials(
   level: { peakDb: number, peakMarginDb: number, minAmplitudeDb: number },
   /** Where the loudest sound glides (findPitchGlide): no doublet is split off there. */
   glide: PitchGlide | null = null,
+  /** Decimated bands of `mono` (bandSource): the pencil's down-mixes start from them. */
+  bands?: BandSource,
 ): CrossCheckedPartials {
   const doublets = splitDoublets(mono, sampleRate, fftPartials, {
-    startIndex: strike.startIndex, endIndex: mono.length, onsetIndex: strike.onsetIndex, ...level, glide,
+    startIndex: strike.startIndex, endIndex: mono.length, onsetIndex: strike.onsetIndex, ...level, glide, bands,
   })
   const maxAmplitude = 10 ** ((level.peakDb + level.peakMarginDb) / 20)
-  const annotated = annotatePartials(mono, sampleRate, doublets.single, { startIndex: strike.startIndex, endIndex: mono.length, maxAmplitude })
+  const annotated = annotatePartials(mono, sampleRate, doublets.single, { startIndex: strike.startIndex, endIndex: mono.length, maxAmplitude, bands })
   const partials: MeasuredPartial[] = [
     ...annotated.partials.map(({ windowS: _window, modulationFrom: _from, decayBendDbPerS: _bend, ...p }) => p),
     ...doublets.pairs,

@@ -1,6 +1,8 @@
 import { dampedSinusoidCrb } from './dampedSinusoidCrb'
 import { matrixPencil, type ExponentialFit } from './matrixPencil'
-import { mixDownBand, type BandSignal } from './mixDownBand'
+import type { BandSource } from './bandSource'
+import { mixDownBand, type BandSignal, type MixDownSettings } from './mixDownBand'
+import { mixDownCoarse } from './mixDownCoarse'
 import { phasorTable } from './phasorTable'
 import { refineExponentials } from './refineExponentials'
 import { DB_PER_NEPER } from './units'
@@ -50,6 +52,8 @@ export interface BandSettings {
   maxOrder?: number
   /** Sample that amplitudes and phases refer to (default startIndex). */
   referenceIndex?: number
+  /** Decimated bands of this same signal (bandSource): the down-mix then starts from one of them (mixDownCoarse), at a fraction of the cost. */
+  bands?: BandSource
 }
 
 /** Passband half-width as a fraction of the band's sample rate (see mixDownBand). */
@@ -81,7 +85,7 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
   const byLength = Math.floor(span / (target + 4))
   const factor = ladderFactor(Math.max(2, Math.min(byBand, byLength)))
   const end = Math.min(endIndex, startIndex + (2 * target + 5) * factor)
-  const band = mixDownBand(signal, sampleRate, centerHz, { startIndex, endIndex: end, factor, passbandFraction: PASSBAND })
+  const band = mixDown(signal, sampleRate, centerHz, { startIndex, endIndex: end, factor, passbandFraction: PASSBAND }, settings.bands)
   const samples = band.re.length
   if (samples < 8) return null
   const fit = fitBand(band, settings.order, settings.minOrder, Math.min(settings.maxOrder ?? 6, Math.floor(samples / 4)))
@@ -99,14 +103,14 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
     const damping = fit.dampingNepers[k]!
     // A component of no amplitude or no finite damping is no reading (and has no bound).
     if (Math.abs(nu) > 0.25 || !(fit.amplitude[k]! > 0) || !Number.isFinite(damping)) continue
-    // Filter gain at the pole, per input sample: H = Σ h[j]·u^{j − c}, u = e^{−δ/D + 2πiν/D}.
+    // Filter gain at the pole, per tap (tapStep input samples): H = Σ h[j]·u^{j − c}, u = e^{(−δ + 2πiν)·step/D}.
     const dampingPerSample = damping / factor
     const omegaOffset = (2 * Math.PI * nu) / factor
     // Symmetric taps: h[c](1) + Σ_k h[c+k]·(u^k + u^{−k}), by recurrences.
     let hRe = band.taps[delay]!
     let hIm = 0
-    const upStep = Math.exp(dampingPerSample)
-    const phasor = phasorTable(omegaOffset, delay + 1, phasors)
+    const upStep = Math.exp(dampingPerSample * band.tapStep)
+    const phasor = phasorTable(omegaOffset * band.tapStep, delay + 1, phasors)
     let up = 1
     for (let j = 1; j <= delay; j++) {
       up *= upStep
@@ -139,6 +143,20 @@ export function estimateBand(signal: Float64Array, sampleRate: number, centerHz:
     spanS: (samples * factor) / sampleRate,
     noiseRms,
   }
+}
+
+/**
+ * The band mixed down and decimated: from the coarsest band of `bands` that divides the factor by
+ * four or more and holds the low-pass's stopband edge (mixDownCoarse), else from the input itself.
+ */
+function mixDown(signal: Float64Array, sampleRate: number, centerHz: number, settings: MixDownSettings, bands: BandSource | undefined): BandSignal {
+  const { factor, startIndex, endIndex } = settings
+  let coarsest = 1
+  while (factor % (2 * coarsest) === 0 && factor / (2 * coarsest) >= 4) coarsest *= 2
+  if (!bands || coarsest < 2) return mixDownBand(signal, sampleRate, centerHz, settings)
+  const edgeHz = ((1 - (settings.passbandFraction ?? PASSBAND)) * sampleRate) / factor
+  const coarse = bands(centerHz, edgeHz, coarsest, startIndex, endIndex - startIndex)
+  return coarse.factor < 2 ? mixDownBand(signal, sampleRate, centerHz, settings) : mixDownCoarse(coarse, centerHz, settings)
 }
 
 /**

@@ -8,7 +8,7 @@ import type { TrackMeasurement } from './measureTrack'
 import { mergeBands, SAME_PARTIAL_WITHIN_DB, smearedWithin } from './mergeBands'
 import { nearestReading } from './nearestReading'
 import { dropHeldInPairZones, heldBy, inPairZone } from './pairZones'
-import { bandSource } from './bandSource'
+import { bandSource, type BandSource } from './bandSource'
 import { wandersOverLobe } from './wandersOverLobe'
 import type { AnalysisBand } from './planBands'
 import type { ReportFloor } from './reportFloor'
@@ -35,11 +35,11 @@ export function measureAllBands(
   settings: BandSettings & { maxDropPerWindowDb: number },
   /** The reporting floor, kept up to date with every reading (lets weak tracks cost little). */
   floor?: ReportFloor,
+  /** Decimated bands of `signal` (bandSource): each track's band is decimated from one DFT of the signal, once, and shared by neighbouring tracks. */
+  bandsOf: BandSource = bandSource(signal, sampleRate),
 ): AllBands {
   const measured: BandMeasurement[] = []
   let merged: TrackMeasurement[] = []
-  // One DFT of the signal, and each track's band decimated from it once, shared by neighbouring tracks.
-  const bandsOf = bandSource(signal, sampleRate)
   for (const band of bands) {
     const reachHz = MAIN_LOBE_BINS / 2 / band.windowS
     // A reading that wanders over its main lobe will be left out (a chain of peaks, not one partial): it holds nothing.

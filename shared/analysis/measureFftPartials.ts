@@ -1,3 +1,4 @@
+import { bandSource, type BandSource } from './bandSource'
 import { dropDuplicates } from './dropDuplicates'
 import { dropSidebands } from './dropSidebands'
 import { dropSpuriousPartials } from './dropSpuriousPartials'
@@ -41,6 +42,8 @@ export function measureFftPartials(
   strike: StrikeSpan,
   plan: AnalysisPlan,
   level: { peakDb: number, lossy: boolean, pcmBits?: number | null },
+  /** Decimated bands of `mono` (bandSource), shared with later steps. */
+  bands: BandSource = bandSource(mono, sampleRate),
 ): FftPartials {
   const bounds = {
     peakDb: level.peakDb,
@@ -54,7 +57,7 @@ export function measureFftPartials(
   const dynamicRangeDb = level.lossy
     ? S.lossyRangeDb
     : Math.round(Math.min(S.peakThresholdDb, level.pcmBits ? quantisationRangeDb(level.pcmBits) : Infinity))
-  const { measured, merged } = measureAllBands(mono, sampleRate, strike, plan.bands, S, reportFloor(bounds, dynamicRangeDb))
+  const { measured, merged } = measureAllBands(mono, sampleRate, strike, plan.bands, S, reportFloor(bounds, dynamicRangeDb), bands)
   const guarded = guardPartials(merged, bounds)
   const strongestDb = Math.max(-Infinity, ...guarded.kept.map(m => m.amplitudeDb))
   const minAmplitudeDb = strongestDb - dynamicRangeDb

@@ -1,4 +1,4 @@
-import { kaiserLowPass } from './kaiserLowPass'
+import { cachedLowPass } from './cachedLowPass'
 import { phasorTable, type PhasorTable } from './phasorTable'
 
 /** A complex-valued signal as two parallel arrays. */
@@ -19,6 +19,8 @@ export interface BandSignal extends ComplexSignal {
   firstIndex: number
   /** Low-pass taps used (odd length, symmetric, unit gain at 0 Hz; shared between calls, read only). */
   taps: Float64Array
+  /** Input samples between two taps (1 here; a coarser band's factor where the filter ran on it: mixDownCoarse). */
+  tapStep: number
 }
 
 export interface MixDownSettings {
@@ -52,7 +54,7 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
   if (!(startIndex >= 0 && endIndex <= signal.length && startIndex < endIndex)) throw new RangeError('mixDownBand needs a span inside the signal')
   const passband = settings.passbandFraction ?? 1 / 8
   if (!(passband > 0 && passband < 0.5)) throw new RangeError('mixDownBand needs a passband fraction between 0 and ½')
-  const taps = lowPassFor(factor, passband, settings.attenuationDb ?? 50)
+  const taps = cachedLowPass(factor, passband, settings.attenuationDb ?? 50)
   const length = taps.length
   const delay = (length - 1) / 2
   const count = Math.max(0, Math.floor((endIndex - startIndex - length) / factor) + 1)
@@ -70,7 +72,7 @@ export function mixDownBand(signal: Float64Array, sampleRate: number, centerHz: 
   const re = new Float64Array(count)
   const im = new Float64Array(count)
   foldedFir(signal, startIndex, factor, delay, omega, hCos, hSin, re, im)
-  return { re, im, sampleRateHz: sampleRate / factor, centerHz, factor, firstIndex: startIndex + delay, taps }
+  return { re, im, sampleRateHz: sampleRate / factor, centerHz, factor, firstIndex: startIndex + delay, taps, tapStep: 1 }
 }
 
 /**
@@ -110,17 +112,3 @@ function foldedFir(signal: Float64Array, startIndex: number, factor: number, del
 
 /** The folded band-pass taps, reused from call to call (only the first delay + 1 are written and read). */
 let folded: PhasorTable = { cos: new Float64Array(0), sin: new Float64Array(0) }
-
-/** Designs already made, by factor, passband and attenuation (the same few recur for every partial). */
-const designs = new Map<string, Float64Array>()
-
-function lowPassFor(factor: number, passband: number, attenuationDb: number): Float64Array {
-  const key = `${factor}/${passband}/${attenuationDb}`
-  let taps = designs.get(key)
-  if (!taps) {
-    taps = kaiserLowPass(1 / (2 * factor), (1 - 2 * passband) / factor, { attenuationDb })
-    if (designs.size >= 64) designs.delete(designs.keys().next().value!)
-    designs.set(key, taps)
-  }
-  return taps
-}

@@ -1,3 +1,4 @@
+import type { BandSource } from './bandSource'
 import { estimateBand, type BandComponent } from './estimateBand'
 import { MIRROR_WITHIN_DB } from './mirroredSideband'
 
@@ -9,6 +10,8 @@ export interface DoubletSettings {
   halfWidthHz: number
   /** Sample the amplitudes refer to (default startIndex). */
   referenceIndex?: number
+  /** Decimated bands of `signal` (bandSource), for the pencil's down-mix. */
+  bands?: BandSource
 }
 
 /**
@@ -35,6 +38,7 @@ export function separateDoublet(
     minOrder: 2,
     maxOrder: 6,
     referenceIndex: settings.referenceIndex,
+    bands: settings.bands,
   })
   if (!band) return null
   const inside = band.components

@@ -1,3 +1,4 @@
+import type { BandSource } from './bandSource'
 import { onGlideCourse, type PitchGlide } from './findPitchGlide'
 import { checkWorkDeadline } from './workDeadline'
 import { MAIN_LOBE_BINS } from './chooseWindow'
@@ -23,6 +24,8 @@ export interface DoubletSplitSettings {
   minAmplitudeDb: number
   /** Where the strike's loudest sound glides (findPitchGlide): a glide read as two decaying components is no doublet. */
   glide?: PitchGlide | null
+  /** Decimated bands of `signal` (bandSource), for the pencil's down-mix. */
+  bands?: BandSource
 }
 
 export interface SplitDoublets<P extends DoubletCandidate> {
@@ -102,7 +105,7 @@ export function splitDoublets<P extends DoubletCandidate>(
     const spanS = Math.min(MAX_SPAN_S, Math.max(0.1, (Math.min(p.snrDb, 70) + 10) / decay))
     const end = Math.min(endIndex, startIndex + Math.round(spanS * sampleRate))
     if (end - startIndex < 256) return null
-    const pair = separateDoublet(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, referenceIndex: onsetIndex })
+    const pair = separateDoublet(signal, sampleRate, p.frequencyHz, { startIndex, endIndex: end, halfWidthHz, referenceIndex: onsetIndex, bands: settings.bands })
     if (!pair) return null
     const [a, b] = pair
     const usedS = (end - startIndex) / sampleRate
