@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { mixDownBand } from '../../../../shared/analysis/mixDownBand'
+import { bandExponentialAt } from '../../../support/bandExponential'
 
 const sampleRate = 8000
 
@@ -17,24 +18,12 @@ describe('mixDownBand', () => {
     const phase = 0.7
     const signal = dampedCosine(16000, amplitude, 1003, damping, phase)
     const band = mixDownBand(signal, sampleRate, 1000, { startIndex: 100, endIndex: 16000, factor: 50 })
-    const delay = (band.taps.length - 1) / 2
     // Exact: H(u) = Σ h[j]·u^{j − c}, with u = e^{−δ + i(ω − ω_c)} per input sample (an identity of linear filtering).
-    const offset = (2 * Math.PI * 3) / sampleRate
-    let hRe = 0
-    let hIm = 0
-    for (let j = 0; j < band.taps.length; j++) {
-      const g = band.taps[j]! * Math.exp(-damping * (j - delay))
-      hRe += g * Math.cos(offset * (j - delay))
-      hIm += g * Math.sin(offset * (j - delay))
-    }
+    const tone = { amplitude, damping, phase, offsetRad: (2 * Math.PI * 3) / sampleRate }
     for (const m of [0, 5, band.re.length - 1]) {
-      const t = band.firstIndex + m * band.factor
-      const mag = (amplitude / 2) * Math.exp(-damping * t)
-      const angle = phase + offset * t
-      const eRe = mag * (Math.cos(angle) * hRe - Math.sin(angle) * hIm)
-      const eIm = mag * (Math.cos(angle) * hIm + Math.sin(angle) * hRe)
+      const expected = bandExponentialAt(band, m, tone)
       // The negative-frequency image lies 2006 Hz away, deep in the stopband (≥ 48.5 dB down).
-      expect(Math.hypot(band.re[m]! - eRe, band.im[m]! - eIm)).toBeLessThan(mag * 10 ** (-48.5 / 20))
+      expect(Math.hypot(band.re[m]! - expected.re, band.im[m]! - expected.im)).toBeLessThan(expected.magnitude * 10 ** (-48.5 / 20))
     }
   })
 

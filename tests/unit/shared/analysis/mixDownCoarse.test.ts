@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { decimateBand } from '../../../../shared/analysis/decimateBand'
 import { mixDownCoarse } from '../../../../shared/analysis/mixDownCoarse'
+import { bandExponentialAt } from '../../../support/bandExponential'
 import { realFft } from '../../../../shared/analysis/realFft'
 
 const sampleRate = 8000
@@ -33,24 +34,11 @@ describe('mixDownCoarse', () => {
     expect(coarse.centerHz).toBe(1000)
     const band = mixDownCoarse(coarse, 1030, settings)
     expect(band.tapStep).toBe(32)
-    const delay = (band.taps.length - 1) / 2
-    const offset = (2 * Math.PI * 3) / sampleRate
-    let hRe = 0
-    let hIm = 0
-    for (let j = 0; j < band.taps.length; j++) {
-      const lag = (j - delay) * band.tapStep
-      const g = band.taps[j]! * Math.exp(-damping * lag)
-      hRe += g * Math.cos(offset * lag)
-      hIm += g * Math.sin(offset * lag)
-    }
+    const tone = { amplitude, damping, phase, offsetRad: (2 * Math.PI * 3) / sampleRate }
     for (const m of [0, 5, band.re.length - 1]) {
-      const t = band.firstIndex + m * band.factor
-      const mag = (amplitude / 2) * Math.exp(-damping * t)
-      const angle = phase + offset * t
-      const eRe = mag * (Math.cos(angle) * hRe - Math.sin(angle) * hIm)
-      const eIm = mag * (Math.cos(angle) * hIm + Math.sin(angle) * hRe)
+      const expected = bandExponentialAt(band, m, tone)
       // What leaks is the onset's and the image's share beyond the low-pass's stopband edge (≥ 48.5 dB down).
-      expect(Math.hypot(band.re[m]! - eRe, band.im[m]! - eIm)).toBeLessThan(mag * 10 ** (-48.5 / 20))
+      expect(Math.hypot(band.re[m]! - expected.re, band.im[m]! - expected.im)).toBeLessThan(expected.magnitude * 10 ** (-48.5 / 20))
     }
   })
 
