@@ -175,7 +175,10 @@ async function accuracyTable() {
   printAccuracy([...await runRecordings(), ...runSyntheses()])
 }
 
-console.log(`Tonewright measurement engine ${ENGINE_VERSION} — ${os.cpus()[0]?.model ?? 'unknown CPU'}, ${os.cpus().length} cores, Node ${process.version}\n`)
+// npm run bench:analysis runs a precompiled bundle (scripts/run-built.mjs), as the server's analysis
+// worker runs the engine; run as TypeScript source (npx tsx) it pays a loader's cost on top.
+const form = import.meta.url.endsWith('.mjs') ? 'precompiled, as the analysis worker runs it' : 'TypeScript source under a loader'
+console.log(`Tonewright measurement engine ${ENGINE_VERSION} (${form}) — ${os.cpus()[0]?.model ?? 'unknown CPU'}, ${os.cpus().length} cores, Node ${process.version}\n`)
 await timing()
 await realStrikeTiming()
 errorTable()

@@ -1,6 +1,8 @@
 // Runs a command-line script as JavaScript precompiled by esbuild, so a call pays for
 // Node's start and the work, not for a TypeScript loader:
 //   node scripts/run-built.mjs analyze FILE ...      (what `npm run analyze -- FILE ...` runs)
+//   node scripts/run-built.mjs bench-analysis        (what `npm run bench:analysis` runs: the engine timed as the server's
+//                                                    analysis worker runs it, precompiled, not under a TypeScript loader)
 //   node scripts/run-built.mjs --build analyze        (set-up: build now if stale)
 // The bundle lives in .data/cli/<name>/ (TONEWRIGHT_CLI_DIR moves it) with the list of files it was made from (their
 // sizes and modification times); it is rebuilt when one of them changed or it is missing.
@@ -11,7 +13,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url'
 
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 /** The scripts that may be run this way, by name. */
-const SCRIPTS = { analyze: 'scripts/analyze.ts' }
+const SCRIPTS = { 'analyze': 'scripts/analyze.ts', 'bench-analysis': 'scripts/bench-analysis.ts' }
 const INPUTS_FILE = 'inputs.json'
 
 /** A file's identity for staleness: size and modification time (a stat, no read: this runs at every call). */
@@ -80,7 +82,9 @@ async function main() {
     await build(name, dir)
   }
   if (buildOnly) return
-  // The script reads its arguments from argv[2] on, as if it had been started itself.
+  // The script reads its arguments from argv[2] on, as if it had been started itself; a bundle runs from
+  // elsewhere, so the project's own files are found from TONEWRIGHT_ROOT (tests/support/realFixtures.ts).
+  process.env.TONEWRIGHT_ROOT = ROOT
   process.argv = [process.argv[0], join(dir, `${name}.mjs`), ...args.slice(1)]
   await import(pathToFileURL(join(dir, `${name}.mjs`)).href)
 }

@@ -8,7 +8,8 @@ import { dirname, join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { midiNote } from './midiNote'
 
-const ROOT = fileURLToPath(new URL('../../', import.meta.url))
+// A bundle of a script that reads the fixtures runs from elsewhere; scripts/run-built.mjs names the project for it.
+const ROOT = process.env.TONEWRIGHT_ROOT ?? fileURLToPath(new URL('../../', import.meta.url))
 export const REAL_FIXTURE_DIR = join(ROOT, '.data', 'fixtures', 'real')
 const EXPECTED_PATH = join(ROOT, 'tests', 'fixtures', 'real', 'expected.json')
 const FREEPATS_CFG = '/etc/timidity/freepats.cfg'
