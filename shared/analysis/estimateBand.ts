@@ -153,10 +153,9 @@ function mixDown(signal: Float64Array, sampleRate: number, centerHz: number, set
   const { factor, startIndex, endIndex } = settings
   let coarsest = 1
   while (factor % (2 * coarsest) === 0 && factor / (2 * coarsest) >= 4) coarsest *= 2
-  if (!bands || coarsest < 2) return mixDownBand(signal, sampleRate, centerHz, settings)
   const edgeHz = ((1 - (settings.passbandFraction ?? PASSBAND)) * sampleRate) / factor
-  const coarse = bands(centerHz, edgeHz, coarsest, startIndex, endIndex - startIndex)
-  return coarse.factor < 2 ? mixDownBand(signal, sampleRate, centerHz, settings) : mixDownCoarse(coarse, centerHz, settings)
+  const coarse = bands && coarsest >= 2 ? bands(centerHz, edgeHz, coarsest, startIndex, endIndex - startIndex) : null
+  return coarse && coarse.factor >= 2 ? mixDownCoarse(coarse, centerHz, settings) : mixDownBand(signal, sampleRate, centerHz, settings)
 }
 
 /**
